@@ -1,0 +1,58 @@
+/**
+ * The one shape every trajectory reader produces, whatever the file format.
+ * Readers stream: they yield one frame at a time and never hold a whole file.
+ * Values are in the file's own units; conversion to Å and ps happens when a
+ * trajectory is assembled for the engine (see server/analysis/trajectory.ts).
+ */
+
+/** Lattice vectors a, b, c as rows: [ax, ay, az, bx, by, bz, cx, cy, cz]. */
+export type Cell = Float64Array;
+
+export interface Frame {
+  /** 0-based index of the frame in the file. */
+  index: number;
+  /** x, y, z per atom, length 3·N, in the file's length unit. */
+  positions: Float32Array | Float64Array;
+  /** vx, vy, vz per atom when the file has them, in the file's velocity unit. */
+  velocities?: Float32Array | Float64Array;
+  /** Element symbol (or label) per atom, length N. */
+  species: string[];
+  /** Periodic cell of this frame, or null when the file states none. */
+  cell: Cell | null;
+  /** Which directions are periodic, when the file says (extended XYZ pbc=, H5MD boundary). */
+  pbc?: [boolean, boolean, boolean];
+  /** Simulation time of this frame in the file's time unit, when stated. */
+  time?: number;
+  /** Integration step number, when stated. */
+  step?: number;
+}
+
+/** Where a frame starts in the (decompressed) byte stream, for random access. */
+export interface FrameOffset {
+  index: number;
+  /** Byte offset in the decompressed stream. */
+  offset: number;
+}
+
+export type TrajectoryFormat = 'xyz' | 'extxyz' | 'pdb' | 'h5md';
+export type Compression = 'none' | 'gzip' | 'zip';
+
+/** Error raised by any reader: says what went wrong and where. */
+export class TrajectoryFormatError extends Error {
+  constructor(
+    message: string,
+    readonly where: { file?: string; frame?: number; line?: number; path?: string } = {},
+  ) {
+    super(formatWhere(message, where));
+    this.name = 'TrajectoryFormatError';
+  }
+}
+
+function formatWhere(message: string, where: TrajectoryFormatError['where']): string {
+  const parts: string[] = [];
+  if (where.file) parts.push(where.file);
+  if (where.frame !== undefined) parts.push(`frame ${where.frame + 1}`);
+  if (where.line !== undefined) parts.push(`line ${where.line}`);
+  if (where.path) parts.push(`HDF5 path ${where.path}`);
+  return parts.length ? `${parts.join(', ')}: ${message}` : message;
+}
