@@ -37,3 +37,17 @@ export const JOULE_PER_ENGINE_ENERGY =
 
 /** Bohr radius in Å. */
 export const ANGSTROM_PER_BOHR = BOHR_RADIUS_M / METRE_PER_ANGSTROM;
+
+/** Grams per atomic mass unit. */
+export const GRAM_PER_AMU = ATOMIC_MASS_UNIT_KG * 1e3;
+/** Cubic centimetres per cubic ångström. */
+export const CM3_PER_A3 = 1e-24;
+/** Square centimetres per square ångström and m² per Å². */
+export const CM2_PER_A2 = 1e-16;
+export const M2_PER_A2 = 1e-20;
+/** Wavenumber (cm⁻¹) of one terahertz: 1e12 / (c in cm/s). */
+export const WAVENUMBER_PER_THZ = 1e12 / (SPEED_OF_LIGHT_M_PER_S * 100);
+/** Energy quantum of one terahertz in meV: h·1e12 / e · 1e3. */
+export const MEV_PER_THZ = (PLANCK_J_S * 1e12) / ELEMENTARY_CHARGE_C * 1e3;
+/** Kelvin equivalent of one terahertz: h·1e12 / k_B. */
+export const KELVIN_PER_THZ = (PLANCK_J_S * 1e12) / BOLTZMANN_J_PER_K;
