@@ -1,0 +1,135 @@
+/**
+ * Line access over a chunked byte stream without decoding text: the current
+ * line is buf[start, end) (line terminator and a trailing CR excluded). The
+ * synchronous `next()` serves lines already buffered, so the hot loops only
+ * await when a chunk runs out.
+ */
+import { TrajectoryFormatError } from './frame.ts';
+
+const EMPTY = Buffer.alloc(0);
+/** Smallest refill; tiny upstream chunks are coalesced to amortise copying. */
+const MIN_REFILL_BYTES = 64 * 1024;
+
+export interface LineReaderOptions {
+  file: string;
+  maxLineBytes: number;
+  /** Absolute byte offset of the first byte the source yields. */
+  baseOffset?: number;
+  /** Whether line numbers are meaningful (false after a seek into the middle of a file). */
+  countLines?: boolean;
+}
+
+export class LineReader {
+  buf: Buffer = EMPTY;
+  start = 0;
+  end = 0;
+  /** 1-based number of the current line. */
+  lineNo = 0;
+  /** Absolute byte offset of the current line's first byte. */
+  lineOffset = 0;
+  eof = false;
+  readonly countLines: boolean;
+  private pos = 0;
+  private bufBase: number;
+  private readonly iterator: AsyncIterator<Buffer>;
+
+  constructor(
+    source: AsyncIterable<Buffer>,
+    private readonly options: LineReaderOptions,
+  ) {
+    this.iterator = source[Symbol.asyncIterator]();
+    this.bufBase = options.baseOffset ?? 0;
+    this.countLines = options.countLines ?? true;
+  }
+
+  get fileName(): string {
+    return this.options.file;
+  }
+
+  /** Line number for error messages, or undefined when unknown. */
+  get line(): number | undefined {
+    return this.countLines ? this.lineNo : undefined;
+  }
+
+  /** Absolute offset just past the bytes consumed so far. */
+  get consumed(): number {
+    return this.bufBase + this.pos;
+  }
+
+  /** Advances to the next buffered line; false when more bytes are needed or the input is over. */
+  next(): boolean {
+    const buf = this.buf;
+    const pos = this.pos;
+    if (pos >= buf.length) return false;
+    let newline = buf.indexOf(10, pos);
+    if (newline < 0) {
+      if (!this.eof) return false;
+      newline = buf.length;
+      this.pos = newline;
+    } else {
+      this.pos = newline + 1;
+    }
+    let end = newline;
+    if (end > pos && buf[end - 1] === 13) end--;
+    this.start = pos;
+    this.end = end;
+    this.lineNo++;
+    this.lineOffset = this.bufBase + pos;
+    return true;
+  }
+
+  /** Advances to the next line, reading more input as needed; false at end of input. */
+  async nextLine(): Promise<boolean> {
+    for (;;) {
+      if (this.next()) return true;
+      if (this.eof) return false;
+      await this.more();
+    }
+  }
+
+  /** Pulls more input into the buffer, keeping the unfinished line. */
+  async more(): Promise<void> {
+    if (this.eof) return;
+    const rest = this.buf.length - this.pos;
+    if (rest > this.options.maxLineBytes) {
+      throw new TrajectoryFormatError(
+        `line is longer than ${this.options.maxLineBytes} bytes: this is binary data or a corrupt file, not a text trajectory`,
+        { file: this.options.file, line: this.countLines ? this.lineNo + 1 : undefined },
+      );
+    }
+    const parts: Buffer[] = rest ? [this.buf.subarray(this.pos)] : [];
+    let total = rest;
+    for (;;) {
+      const next = await this.iterator.next();
+      if (next.done) {
+        this.eof = true;
+        break;
+      }
+      parts.push(next.value);
+      total += next.value.length;
+      if (total >= MIN_REFILL_BYTES || next.value.indexOf(10) >= 0) break;
+    }
+    this.bufBase += this.pos;
+    this.pos = 0;
+    this.buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, total);
+  }
+
+  /** Stops the upstream source early (consumer broke off). */
+  async close(): Promise<void> {
+    await this.iterator.return?.();
+  }
+
+  /** The current line as text, for messages and the rare header parse. */
+  text(): string {
+    return this.buf.toString('utf8', this.start, this.end);
+  }
+}
+
+/** True when buf[start, end) holds only spaces and tabs. */
+export function isBlank(buf: Uint8Array, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) {
+    const c = buf[i];
+    if (c !== 32 && c !== 9) return false;
+  }
+  return true;
+}

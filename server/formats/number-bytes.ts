@@ -1,0 +1,98 @@
+/**
+ * Decimal number parsing straight from bytes, so the text readers never
+ * build a string per coordinate. The fast path is exact: a mantissa of at
+ * most 15 significant digits is an exact double, and so is 10^k for
+ * |k| <= 22, so one IEEE multiply or divide rounds exactly as Number() does.
+ * Anything outside that (long mantissas, big exponents) goes through Number()
+ * after a strict grammar check, so results never differ from JS.
+ */
+
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const FORTRAN_EXPONENT = /^([+-]?(?:\d+\.?\d*|\.\d+))[dD]([+-]?\d+)$/;
+
+/** Parses buf[start, end) as a decimal number; NaN when it is not one. */
+export function parseNumberBytes(buf: Uint8Array, start: number, end: number): number {
+  let i = start;
+  let negative = false;
+  let c = buf[i];
+  if (c === 45) {
+    negative = true;
+    i++;
+  } else if (c === 43) {
+    i++;
+  }
+  let mantissa = 0;
+  let significant = 0;
+  let digits = 0;
+  let scale = 0;
+  while (i < end) {
+    const d = buf[i] - 48;
+    if (d < 0 || d > 9) break;
+    if (mantissa !== 0 || d !== 0) significant++;
+    mantissa = mantissa * 10 + d;
+    digits++;
+    i++;
+  }
+  if (i < end && buf[i] === 46) {
+    i++;
+    while (i < end) {
+      const d = buf[i] - 48;
+      if (d < 0 || d > 9) break;
+      if (mantissa !== 0 || d !== 0) significant++;
+      mantissa = mantissa * 10 + d;
+      digits++;
+      scale--;
+      i++;
+    }
+  }
+  if (digits === 0 || significant > 15) return parseSlow(buf, start, end);
+  if (i < end) {
+    c = buf[i];
+    if (c !== 101 && c !== 69) return parseSlow(buf, start, end);
+    i++;
+    let expNegative = false;
+    c = buf[i];
+    if (c === 45) {
+      expNegative = true;
+      i++;
+    } else if (c === 43) {
+      i++;
+    }
+    let exponent = 0;
+    let expDigits = 0;
+    while (i < end && expDigits < 6) {
+      const d = buf[i] - 48;
+      if (d < 0 || d > 9) break;
+      exponent = exponent * 10 + d;
+      expDigits++;
+      i++;
+    }
+    if (expDigits === 0 || i !== end) return parseSlow(buf, start, end);
+    scale += expNegative ? -exponent : exponent;
+  }
+  let value: number;
+  if (scale === 0) value = mantissa;
+  else if (scale < 0 && scale >= -22) value = mantissa / POW10[-scale];
+  else if (scale > 0 && scale <= 22) value = mantissa * POW10[scale];
+  else return parseSlow(buf, start, end);
+  return negative ? -value : value;
+}
+
+function parseSlow(buf: Uint8Array, start: number, end: number): number {
+  let text = '';
+  for (let i = start; i < end; i++) text += String.fromCharCode(buf[i]);
+  return parseNumberText(text);
+}
+
+/**
+ * The same grammar for strings (header values, H5MD attributes). Fortran
+ * "1.5D+02" is accepted because simulation codes written in Fortran emit it;
+ * hexadecimal, "Infinity" and "NaN" are not coordinates and give NaN.
+ */
+export function parseNumberText(text: string): number {
+  if (DECIMAL.test(text)) return Number(text);
+  const fortran = FORTRAN_EXPONENT.exec(text);
+  if (fortran) return Number(`${fortran[1]}e${fortran[2]}`);
+  return NaN;
+}
