@@ -1,0 +1,152 @@
+/**
+ * Per-atom time series, one atom at a time, so memory stays at a few
+ * Float64 buffers of the frame count whatever the atom count.
+ *
+ * Unwrapping accumulates each frame-to-frame displacement after reducing it
+ * to the minimum image of the *current* frame's cell. Under constant
+ * pressure this keeps the true displacement (the box breathing does not
+ * enter), which is the scheme recommended by von Bülow, Bullerjahn & Hummer,
+ * J. Chem. Phys. 153, 021101 (2020) [from memory]. It requires that no atom
+ * moves more than half a cell width between stored frames.
+ */
+import { cellFramesOf, minimumImage, type CellFrames } from './cell-geometry.ts';
+import type { Trajectory } from './trajectory.ts';
+
+export class AtomSeriesReader {
+  readonly nFrames: number;
+  readonly geometry: CellFrames | null;
+  /** COM trajectory (component-major, 3·nFrames) subtracted from positions, if drift removal is on. */
+  readonly comPositions: Float64Array | null;
+  private readonly comVelocities: Float64Array | null;
+  private readonly d = new Float64Array(3);
+
+  constructor(
+    private readonly traj: Trajectory,
+    private readonly masses: Float64Array,
+    removeComDrift: boolean,
+  ) {
+    this.nFrames = traj.nFrames;
+    this.geometry = cellFramesOf(traj);
+    if (traj.positions.length !== traj.nFrames * traj.nAtoms * 3) throw new Error('Position array length does not match atoms × frames × 3.');
+    if (traj.velocities && traj.velocities.length !== traj.positions.length) throw new Error('Velocity array length does not match positions.');
+    this.comPositions = null;
+    this.comVelocities = null;
+    if (removeComDrift) {
+      this.comPositions = this.massWeightedMean((atom, out) => this.rawUnwrapped(atom, out), this.nFrames);
+      if (traj.velocities) this.comVelocities = this.massWeightedMean((atom, out) => this.rawVelocities(atom, out), this.nFrames);
+    }
+  }
+
+  get unwraps(): boolean {
+    return this.geometry !== null;
+  }
+
+  get hasVelocities(): boolean {
+    return this.traj.velocities !== undefined;
+  }
+
+  /** Unwrapped positions of one atom, component-major: out[c·T + t], COM removed when asked. */
+  unwrapped(atom: number, out: Float64Array): Float64Array {
+    this.rawUnwrapped(atom, out);
+    const com = this.comPositions;
+    if (com) for (let i = 0; i < 3 * this.nFrames; i++) out[i] -= com[i];
+    return out;
+  }
+
+  /** Frames covered by velocity series: all of them from stored velocities, else the interior frames. */
+  get velocityLength(): number {
+    return this.traj.velocities ? this.nFrames : Math.max(0, this.nFrames - 2);
+  }
+
+  /**
+   * Velocities of one atom, component-major out[c·L + t] with L = velocityLength,
+   * from the file or from central differences of unwrapped positions.
+   */
+  velocities(atom: number, out: Float64Array, dtPs: number, scratch: Float64Array): Float64Array {
+    if (this.traj.velocities) {
+      this.rawVelocities(atom, out);
+      const com = this.comVelocities;
+      if (com) for (let i = 0; i < 3 * this.nFrames; i++) out[i] -= com[i];
+      return out;
+    }
+    this.unwrapped(atom, scratch);
+    const T = this.nFrames;
+    const L = T - 2;
+    const inv = 1 / (2 * dtPs);
+    for (let c = 0; c < 3; c++) {
+      for (let t = 0; t < L; t++) out[c * L + t] = (scratch[c * T + t + 2] - scratch[c * T + t]) * inv;
+    }
+    return out;
+  }
+
+  private rawVelocities(atom: number, out: Float64Array): void {
+    const v = this.traj.velocities as Float32Array;
+    const T = this.nFrames;
+    const stride = 3 * this.traj.nAtoms;
+    for (let c = 0; c < 3; c++) {
+      let p = 3 * atom + c;
+      const base = c * T;
+      for (let t = 0; t < T; t++, p += stride) out[base + t] = v[p];
+    }
+  }
+
+  private rawUnwrapped(atom: number, out: Float64Array): void {
+    const x = this.traj.positions;
+    const T = this.nFrames;
+    const stride = 3 * this.traj.nAtoms;
+    const p0 = 3 * atom;
+    const geom = this.geometry;
+    out[0] = x[p0];
+    out[T] = x[p0 + 1];
+    out[2 * T] = x[p0 + 2];
+    if (!geom) {
+      for (let c = 0; c < 3; c++) {
+        let p = p0 + c;
+        for (let t = 0; t < T; t++, p += stride) out[c * T + t] = x[p];
+      }
+      return;
+    }
+    const H = geom.cells;
+    const d = this.d;
+    let prev = p0;
+    for (let t = 1; t < T; t++) {
+      const p = prev + stride;
+      let dx = x[p] - x[prev];
+      let dy = x[p + 1] - x[prev + 1];
+      let dz = x[p + 2] - x[prev + 2];
+      if (geom.orthorhombic) {
+        const o = 9 * t;
+        const lx = H[o], ly = H[o + 4], lz = H[o + 8];
+        dx -= lx * Math.round(dx / lx);
+        dy -= ly * Math.round(dy / ly);
+        dz -= lz * Math.round(dz / lz);
+      } else {
+        d[0] = dx;
+        d[1] = dy;
+        d[2] = dz;
+        minimumImage(geom, t, d);
+        dx = d[0];
+        dy = d[1];
+        dz = d[2];
+      }
+      out[t] = out[t - 1] + dx;
+      out[T + t] = out[T + t - 1] + dy;
+      out[2 * T + t] = out[2 * T + t - 1] + dz;
+      prev = p;
+    }
+  }
+
+  private massWeightedMean(read: (atom: number, out: Float64Array) => void, T: number): Float64Array {
+    const sum = new Float64Array(3 * T);
+    const buf = new Float64Array(3 * T);
+    let total = 0;
+    for (let i = 0; i < this.traj.nAtoms; i++) {
+      const m = this.masses[i];
+      read(i, buf);
+      for (let k = 0; k < 3 * T; k++) sum[k] += m * buf[k];
+      total += m;
+    }
+    for (let k = 0; k < 3 * T; k++) sum[k] /= total;
+    return sum;
+  }
+}
