@@ -1,0 +1,148 @@
+/**
+ * Frames → the engine's Trajectory: flat Float32 arrays in Å, Å/ps and ps.
+ * With the counts from inspection the arrays are allocated once at their
+ * final size, so peak memory stays about one Float32 copy of the data.
+ */
+import { TrajectoryFormatError, type Frame } from './frame.ts';
+import type { Trajectory } from '../analysis/trajectory.ts';
+import {
+  LENGTH_TO_ANGSTROM,
+  TIME_TO_PS,
+  VELOCITY_TO_ANGSTROM_PER_PS,
+  type LengthUnit,
+  type TimeUnit,
+  type VelocityUnit,
+} from './units.ts';
+
+export interface AssembleUnits {
+  length: LengthUnit;
+  time: TimeUnit;
+  velocity: VelocityUnit;
+  /** Interval between frames in ps, used when the file states no times. */
+  timeStepPs?: number;
+  /** Defaults to 'periodic' when every frame has a cell and pbc is not off, else 'none'. */
+  boundary?: Trajectory['boundary'];
+}
+
+export interface AssembleExpected {
+  atoms: number;
+  frames: number;
+}
+
+export async function assembleTrajectory(
+  frames: AsyncIterable<Frame> | Iterable<Frame>,
+  units: AssembleUnits,
+  expected?: AssembleExpected,
+  file = 'trajectory',
+): Promise<Trajectory> {
+  const lengthFactor = LENGTH_TO_ANGSTROM[units.length];
+  const timeFactor = TIME_TO_PS[units.time];
+  const velocityFactor = VELOCITY_TO_ANGSTROM_PER_PS[units.velocity];
+  if (lengthFactor === undefined || timeFactor === undefined || velocityFactor === undefined) {
+    throw new RangeError(`unknown unit in ${JSON.stringify(units)}`);
+  }
+  if (units.timeStepPs !== undefined && !(units.timeStepPs > 0)) {
+    throw new RangeError(`timeStepPs must be positive, got ${units.timeStepPs}`);
+  }
+
+  let nAtoms = expected?.atoms ?? -1;
+  let capacity = expected?.frames ?? 0;
+  let species: string[] = [];
+  let positions: Float32Array = new Float32Array(nAtoms > 0 ? capacity * nAtoms * 3 : 0);
+  let velocities: Float32Array | undefined;
+  let cells: Float64Array | null = null;
+  let times: Float64Array = new Float64Array(capacity);
+  let timed: boolean | undefined;
+  let allPeriodic = true;
+  let count = 0;
+
+  for await (const frame of frames) {
+    const where = { file, frame: frame.index };
+    const n = frame.species.length;
+    if (count === 0) {
+      if (nAtoms >= 0 && n !== nAtoms) {
+        throw new TrajectoryFormatError(`frame has ${n} atoms but inspection found ${nAtoms}`, where);
+      }
+      nAtoms = n;
+      species = frame.species.slice();
+      if (positions.length === 0) {
+        capacity = Math.max(capacity, 16);
+        positions = new Float32Array(capacity * n * 3);
+        times = new Float64Array(capacity);
+      }
+      if (frame.velocities) velocities = new Float32Array(capacity * n * 3);
+      if (frame.cell) cells = new Float64Array(capacity * 9);
+      timed = frame.time !== undefined;
+      if (!timed && units.timeStepPs === undefined) {
+        throw new TrajectoryFormatError('frames carry no time; a time step (timeStepPs) is needed', where);
+      }
+    } else if (n !== nAtoms) {
+      throw new TrajectoryFormatError(`frame has ${n} atoms but the first frame has ${nAtoms}`, where);
+    }
+    if (count >= capacity) {
+      if (expected) throw new TrajectoryFormatError(`more frames than the ${expected.frames} inspection found`, where);
+      capacity *= 2;
+      positions = grow32(positions, capacity * nAtoms * 3);
+      if (velocities) velocities = grow32(velocities, capacity * nAtoms * 3);
+      if (cells) cells = grow64(cells, capacity * 9);
+      times = grow64(times, capacity);
+    }
+    const base = count * nAtoms * 3;
+    scaleInto(positions, base, frame.positions, lengthFactor);
+    if (velocities) {
+      if (!frame.velocities) throw new TrajectoryFormatError('frame has no velocities but the first frame has', where);
+      scaleInto(velocities, base, frame.velocities, velocityFactor);
+    }
+    if (cells) {
+      if (!frame.cell) throw new TrajectoryFormatError('frame has no cell but the first frame has one', where);
+      for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;
+    }
+    if (frame.pbc && !frame.pbc.every(Boolean)) allPeriodic = false;
+    if (timed) {
+      if (frame.time === undefined) throw new TrajectoryFormatError('frame has no time but the first frame has one', where);
+      times[count] = frame.time * timeFactor;
+    } else {
+      times[count] = count * units.timeStepPs!;
+    }
+    count++;
+  }
+  if (count === 0) throw new TrajectoryFormatError('no frames to assemble', { file });
+  if (expected && count !== expected.frames) {
+    throw new TrajectoryFormatError(`found ${count} frames but inspection found ${expected.frames}`, { file });
+  }
+  const boundary = units.boundary ?? (cells && allPeriodic ? 'periodic' : 'none');
+  if (boundary === 'periodic' && !cells) {
+    throw new TrajectoryFormatError('periodic boundary requested but the trajectory has no cell', { file });
+  }
+  const trajectory: Trajectory = {
+    nAtoms,
+    nFrames: count,
+    species,
+    positions: count === capacity ? positions : positions.slice(0, count * nAtoms * 3),
+    cells: cells ? (count === capacity ? cells : cells.slice(0, count * 9)) : null,
+    times: count === capacity ? times : times.slice(0, count),
+    boundary,
+  };
+  if (velocities) trajectory.velocities = count === capacity ? velocities : velocities.slice(0, count * nAtoms * 3);
+  return trajectory;
+}
+
+function scaleInto(out: Float32Array, base: number, values: ArrayLike<number>, factor: number): void {
+  if (factor === 1) {
+    out.set(values as Float64Array, base);
+    return;
+  }
+  for (let k = 0; k < values.length; k++) out[base + k] = values[k] * factor;
+}
+
+function grow32(array: Float32Array, length: number): Float32Array {
+  const out = new Float32Array(length);
+  out.set(array);
+  return out;
+}
+
+function grow64(array: Float64Array, length: number): Float64Array {
+  const out = new Float64Array(length);
+  out.set(array);
+  return out;
+}

@@ -1,0 +1,45 @@
+/**
+ * Extended XYZ output for downloading a cut of a trajectory. Numbers are
+ * written in JS shortest round-trip form, so reading the file back gives
+ * the exact same values.
+ */
+import type { Frame } from './frame.ts';
+
+/** Output is handed on in pieces about this size. */
+const CHUNK_CHARS = 256 * 1024;
+
+export async function* writeExtxyz(frames: AsyncIterable<Frame> | Iterable<Frame>): AsyncGenerator<Uint8Array> {
+  let pending = '';
+  for await (const frame of frames) {
+    pending += frameHeader(frame);
+    const { positions, velocities, species } = frame;
+    const n = species.length;
+    if (positions.length !== 3 * n || (velocities && velocities.length !== 3 * n)) {
+      throw new RangeError(`frame ${frame.index + 1}: ${n} species but ${positions.length / 3} positions`);
+    }
+    for (let a = 0; a < n; a++) {
+      const k = 3 * a;
+      let line = `${species[a]} ${positions[k]} ${positions[k + 1]} ${positions[k + 2]}`;
+      if (velocities) line += ` ${velocities[k]} ${velocities[k + 1]} ${velocities[k + 2]}`;
+      pending += `${line}\n`;
+      if (pending.length >= CHUNK_CHARS) {
+        yield Buffer.from(pending, 'utf8');
+        pending = '';
+      }
+    }
+  }
+  if (pending) yield Buffer.from(pending, 'utf8');
+}
+
+function frameHeader(frame: Frame): string {
+  for (const s of frame.species) {
+    if (!/^\S+$/.test(s)) throw new RangeError(`frame ${frame.index + 1}: species label "${s}" is empty or contains whitespace`);
+  }
+  const parts: string[] = [];
+  if (frame.cell) parts.push(`Lattice="${Array.from(frame.cell).join(' ')}"`);
+  parts.push(`Properties=species:S:1:pos:R:3${frame.velocities ? ':velo:R:3' : ''}`);
+  if (frame.time !== undefined) parts.push(`Time=${frame.time}`);
+  if (frame.step !== undefined) parts.push(`Step=${frame.step}`);
+  if (frame.pbc) parts.push(`pbc="${frame.pbc.map((p) => (p ? 'T' : 'F')).join(' ')}"`);
+  return `${frame.species.length}\n${parts.join(' ')}\n`;
+}
