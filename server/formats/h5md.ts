@@ -57,10 +57,15 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
   try {
     handle = new h5.File(path, 'r');
   } catch (error) {
-    throw new TrajectoryFormatError(`not a readable HDF5 file (${(error as Error).message})`, { file: options.file });
+    throw unreadable(error, options.file);
   }
   try {
-    const layout = describe(h5, handle, options);
+    let layout: Layout;
+    try {
+      layout = describe(h5, handle, options);
+    } catch (error) {
+      throw error instanceof TrajectoryFormatError ? error : unreadable(error, options.file);
+    }
     const { frames, atoms } = layout;
     const valuesPerFrame = atoms * 3;
     const block = Math.max(1, Math.floor(BLOCK_BYTES / (valuesPerFrame * 8)));
@@ -97,8 +102,17 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
       t = end;
     }
   } finally {
-    handle.close();
+    try {
+      handle.close();
+    } catch {
+      // A file that failed to open fully may refuse to close; nothing is held open then.
+    }
   }
+}
+
+function unreadable(error: unknown, file: string): TrajectoryFormatError {
+  const detail = error instanceof Error ? error.message : String(error);
+  return new TrajectoryFormatError(`not a readable HDF5 file (${detail})`, { file });
 }
 
 function isGroup(entity: unknown, h5: H5): entity is Group {
@@ -349,7 +363,7 @@ function readBlock(dataset: Dataset, from: number, to: number, valuesPerFrame: n
 
 function checkNumeric(dataset: Dataset, file: string): void {
   const dtype = dataset.dtype;
-  if (typeof dtype !== 'string' || !/^[<>|=]?[fiu]\d$/.test(dtype)) {
+  if (typeof dtype !== 'string' || !/^[<>|=!]?[bBhHiIlLqQefd]$/.test(dtype)) {
     throw new TrajectoryFormatError(`dataset holds ${JSON.stringify(dtype)}, not numbers`, { file, path: dataset.path });
   }
 }

@@ -69,6 +69,7 @@ export class LineReader {
     } else {
       this.pos = newline + 1;
     }
+    if (newline - pos > this.options.maxLineBytes) this.tooLong(this.lineNo + 1);
     let end = newline;
     if (end > pos && buf[end - 1] === 13) end--;
     this.start = pos;
@@ -91,12 +92,7 @@ export class LineReader {
   async more(): Promise<void> {
     if (this.eof) return;
     const rest = this.buf.length - this.pos;
-    if (rest > this.options.maxLineBytes) {
-      throw new TrajectoryFormatError(
-        `line is longer than ${this.options.maxLineBytes} bytes: this is binary data or a corrupt file, not a text trajectory`,
-        { file: this.options.file, line: this.countLines ? this.lineNo + 1 : undefined },
-      );
-    }
+    if (rest > this.options.maxLineBytes) this.tooLong(this.lineNo + 1);
     const parts: Buffer[] = rest ? [this.buf.subarray(this.pos)] : [];
     let total = rest;
     for (;;) {
@@ -112,6 +108,13 @@ export class LineReader {
     this.bufBase += this.pos;
     this.pos = 0;
     this.buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, total);
+  }
+
+  private tooLong(line: number): never {
+    throw new TrajectoryFormatError(
+      `line is longer than ${this.options.maxLineBytes} bytes: this is binary data or a corrupt file, not a text trajectory`,
+      { file: this.options.file, line: this.countLines ? line : undefined },
+    );
   }
 
   /** Stops the upstream source early (consumer broke off). */
