@@ -83,10 +83,7 @@ export async function* readFrames(
   try {
     for await (const frame of opened.frames) {
       if (frame.index >= to) break;
-      if (wants(frame.index)) {
-        delete frame.byteOffset;
-        yield frame;
-      }
+      if (wants(frame.index)) yield frame;
       if (frame.index + stride >= to) break;
     }
   } finally {

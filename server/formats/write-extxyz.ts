@@ -19,8 +19,8 @@ export async function* writeExtxyz(frames: AsyncIterable<Frame> | Iterable<Frame
     }
     for (let a = 0; a < n; a++) {
       const k = 3 * a;
-      let line = `${species[a]} ${positions[k]} ${positions[k + 1]} ${positions[k + 2]}`;
-      if (velocities) line += ` ${velocities[k]} ${velocities[k + 1]} ${velocities[k + 2]}`;
+      let line = `${species[a]} ${num(positions[k])} ${num(positions[k + 1])} ${num(positions[k + 2])}`;
+      if (velocities) line += ` ${num(velocities[k])} ${num(velocities[k + 1])} ${num(velocities[k + 2])}`;
       pending += `${line}\n`;
       if (pending.length >= CHUNK_CHARS) {
         yield Buffer.from(pending, 'utf8');
@@ -29,6 +29,11 @@ export async function* writeExtxyz(frames: AsyncIterable<Frame> | Iterable<Frame
     }
   }
   if (pending) yield Buffer.from(pending, 'utf8');
+}
+
+/** String(-0) is "0"; the sign of zero is kept so a cut reads back bit-identical. */
+function num(x: number): string {
+  return x === 0 && 1 / x < 0 ? '-0' : String(x);
 }
 
 function frameHeader(frame: Frame): string {

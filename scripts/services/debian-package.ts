@@ -1,0 +1,39 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, rmSync, writeFileSync } from 'node:fs';
+
+let aptUpdated = false;
+
+/** True when `binary` is an executable path or found on PATH. */
+export function hasBinary(binary: string): boolean {
+  if (binary.startsWith('/')) return existsSync(binary);
+  return spawnSync('sh', ['-c', `command -v ${binary}`], { stdio: 'ignore' }).status === 0;
+}
+
+/**
+ * Installs Debian packages when `binary` is missing. The project promises a
+ * two-command set-up on a fresh machine, so the services it needs come from
+ * Debian's own archive rather than a download of our choosing.
+ */
+export function ensureDebianPackages(binary: string, packages: string[], log: (m: string) => void): void {
+  if (hasBinary(binary)) return;
+  if (process.getuid?.() !== 0) {
+    throw new Error(`${binary} is missing; install it with: sudo apt-get install -y ${packages.join(' ')}`);
+  }
+  log(`installing ${packages.join(', ')} from Debian's packages (${binary} is missing)…`);
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  if (!aptUpdated) {
+    execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
+    aptUpdated = true;
+  }
+  // Debian's maintainer scripts would otherwise start a system-wide copy of
+  // the service on its default port; we only want our private instance.
+  const policy = '/usr/sbin/policy-rc.d';
+  const wrotePolicy = !existsSync(policy);
+  if (wrotePolicy) writeFileSync(policy, '#!/bin/sh\nexit 101\n', { mode: 0o755 });
+  try {
+    execFileSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...packages], { stdio: 'inherit', env });
+  } finally {
+    if (wrotePolicy) rmSync(policy, { force: true });
+  }
+  if (!hasBinary(binary)) throw new Error(`${binary} still missing after installing ${packages.join(' ')}`);
+}

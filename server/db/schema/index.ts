@@ -1,0 +1,5 @@
+export * from './users.ts';
+export * from './projects.ts';
+export * from './trajectories.ts';
+export * from './analyses.ts';
+export * from './sharing.ts';

@@ -1,0 +1,47 @@
+import { bigint, boolean, char, double, index, int, json, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core';
+import { createdAt, id, ref, timestamp } from './columns.ts';
+import { projects } from './projects.ts';
+import { users } from './users.ts';
+
+export const trajectoryStatuses = ['uploading', 'inspecting', 'ready', 'failed'] as const;
+export const ensembles = ['NVE', 'NVT', 'NPT', 'other'] as const;
+export const boundaries = ['periodic', 'walls', 'none'] as const;
+
+export const trajectories = mysqlTable('trajectories', {
+  id: id(),
+  projectId: ref('project_id').references(() => projects.id, { onDelete: 'cascade' }),
+  name: varchar('name', { length: 255 }).notNull(),
+  objectKey: varchar('object_key', { length: 255 }).notNull(),
+  sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull().default(0),
+  sha256: char('sha256', { length: 64 }),
+  format: varchar('format', { length: 16 }),
+  compression: varchar('compression', { length: 8 }),
+  status: mysqlEnum('status', trajectoryStatuses).notNull().default('uploading'),
+  error: text('error'),
+  atoms: int('atoms'),
+  frames: int('frames'),
+  speciesCounts: json('species_counts').$type<Record<string, number>>(),
+  cell: json('cell').$type<number[] | null>(),
+  cellChanges: boolean('cell_changes'),
+  hasVelocities: boolean('has_velocities'),
+  /** Time between frames in `timeUnit`. */
+  timeStep: double('time_step'),
+  timeUnit: varchar('time_unit', { length: 8 }).notNull().default('ps'),
+  lengthUnit: varchar('length_unit', { length: 16 }).notNull().default('angstrom'),
+  velocityUnit: varchar('velocity_unit', { length: 16 }).notNull().default('angstrom/ps'),
+  temperatureK: double('temperature_k'),
+  ensemble: mysqlEnum('ensemble', ensembles),
+  boundary: mysqlEnum('boundary', boundaries).notNull().default('periodic'),
+  potential: varchar('potential', { length: 255 }).notNull().default(''),
+  engine: varchar('engine', { length: 255 }).notNull().default(''),
+  notes: text('notes').notNull().default(''),
+  /** Which metadata fields were read from the file rather than typed in. */
+  fromFile: json('from_file').$type<string[]>(),
+  /** Object key of the frame-offset index written by the inspection job. */
+  frameIndexKey: varchar('frame_index_key', { length: 255 }),
+  uploadedBy: ref('uploaded_by').references(() => users.id),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at'),
+}, (t) => [index('trajectories_project').on(t.projectId)]);
+
+export type TrajectoryRow = typeof trajectories.$inferSelect;

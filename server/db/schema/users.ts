@@ -1,0 +1,45 @@
+import { boolean, char, index, mysqlEnum, mysqlTable, varchar } from 'drizzle-orm/mysql-core';
+import { createdAt, id, ref, timestamp } from './columns.ts';
+
+export const users = mysqlTable('users', {
+  id: id(),
+  email: varchar('email', { length: 254 }).notNull().unique(),
+  displayName: varchar('display_name', { length: 120 }).notNull(),
+  /** `scrypt$N$r$p$salt$hash`: the KDF parameters travel with the hash. */
+  passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+  role: mysqlEnum('role', ['admin', 'member']).notNull().default('member'),
+  disabled: boolean('disabled').notNull().default(false),
+  createdAt: createdAt(),
+});
+
+export const apiTokens = mysqlTable('api_tokens', {
+  id: id(),
+  userId: ref('user_id').references(() => users.id, { onDelete: 'cascade' }),
+  name: varchar('name', { length: 120 }).notNull(),
+  /** sha256 of the token; the token itself is shown once and never stored. */
+  tokenHash: char('token_hash', { length: 64 }).notNull().unique(),
+  prefix: varchar('prefix', { length: 16 }).notNull(),
+  createdAt: createdAt(),
+  lastUsedAt: timestamp('last_used_at'),
+  revokedAt: timestamp('revoked_at'),
+}, (t) => [index('api_tokens_user').on(t.userId)]);
+
+export const passwordResets = mysqlTable('password_resets', {
+  id: id(),
+  userId: ref('user_id').references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: char('token_hash', { length: 64 }).notNull().unique(),
+  expiresAt: timestamp('expires_at').notNull(),
+  usedAt: timestamp('used_at'),
+  createdAt: createdAt(),
+});
+
+/** Failed sign-in attempts, kept in the database so every web node sees them. */
+export const signInAttempts = mysqlTable('sign_in_attempts', {
+  id: id(),
+  email: varchar('email', { length: 254 }).notNull(),
+  ip: varchar('ip', { length: 64 }).notNull(),
+  createdAt: createdAt(),
+}, (t) => [index('sign_in_attempts_email').on(t.email, t.createdAt), index('sign_in_attempts_ip').on(t.ip, t.createdAt)]);
+
+export type UserRow = typeof users.$inferSelect;
+export const userRoles = ['admin', 'member'] as const;

@@ -1,0 +1,22 @@
+/** The invented Larkspur Materials Lab. Nothing here is real data. */
+export const DEMO_ACCOUNTS = [
+  {
+    role: 'admin (data steward)', siteRole: 'admin' as const, displayName: 'Mira Okonkwo-Hale',
+    email: 'steward@larkspur-lab.example', password: 'larkspur-steward-2026',
+  },
+  {
+    role: 'member (graduate student)', siteRole: 'member' as const, displayName: 'Tobias Vennard',
+    email: 'tobias@larkspur-lab.example', password: 'larkspur-student-2026',
+  },
+];
+
+export const DEMO_PROJECTS = [
+  {
+    name: 'Noble-liquid benchmark',
+    description: 'Argon-like Lennard-Jones runs at a low, a middle and a high temperature: a solid, a liquid and a hot liquid.',
+  },
+  {
+    name: 'Small-molecule vibrations',
+    description: 'A box of harmonic diatomics, for sharp VDOS peaks.',
+  },
+];

@@ -1,0 +1,7 @@
+import type { SandboxedJob } from 'bullmq';
+import type { AppContext } from '../../context.ts';
+
+export type JobHandler = (job: SandboxedJob, ctx: AppContext) => Promise<unknown>;
+
+/** Job kinds by name; the worker refuses any kind not listed here. */
+export const jobHandlers: Record<string, JobHandler> = {};

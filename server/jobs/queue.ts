@@ -1,0 +1,44 @@
+import { Queue, type JobsOptions } from 'bullmq';
+import type { Redis } from 'ioredis';
+import { redisConnection } from './connection.ts';
+
+/** One queue carries both kinds of work so one pool of workers serves them. */
+export const QUEUE_NAME = 'ergodic-work';
+
+export type JobName = 'inspect' | 'analyse';
+
+export interface InspectJobData { trajectoryId: number }
+export interface AnalyseJobData { runId: number }
+export type JobData = InspectJobData | AnalyseJobData;
+
+export const DEFAULT_JOB_OPTIONS: JobsOptions = {
+  attempts: 3,
+  backoff: { type: 'exponential', delay: 2000 },
+  removeOnComplete: { age: 24 * 3600, count: 1000 },
+  removeOnFail: { age: 7 * 24 * 3600 },
+};
+
+export class WorkQueue {
+  readonly queue: Queue;
+  private readonly connection: Redis;
+
+  constructor(redisUrl: string) {
+    this.connection = redisConnection(redisUrl);
+    this.queue = new Queue(QUEUE_NAME, { connection: this.connection, defaultJobOptions: DEFAULT_JOB_OPTIONS });
+  }
+
+  async add(name: JobName, data: JobData, jobId?: string): Promise<string> {
+    const job = await this.queue.add(name, data, jobId ? { jobId } : undefined);
+    return String(job.id);
+  }
+
+  async ping(): Promise<void> {
+    const answer = await this.connection.ping();
+    if (answer !== 'PONG') throw new Error(`Redis answered ${answer}`);
+  }
+
+  async close(): Promise<void> {
+    await this.queue.close();
+    this.connection.disconnect();
+  }
+}

@@ -1,0 +1,6 @@
+import { pino, type Logger } from 'pino';
+
+export function createLogger(level: string): Logger {
+  return pino({ level, base: { app: 'ergodic' }, redact: ['req.headers.cookie', 'req.headers.authorization'] });
+}
+export type { Logger };

@@ -1,0 +1,70 @@
+import {
+  DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client,
+} from '@aws-sdk/client-s3';
+import { Upload } from '@aws-sdk/lib-storage';
+import type { Readable } from 'node:stream';
+import type { Config } from '../config.ts';
+
+/** The S3-compatible store holding uploaded trajectories and report curves. */
+export class ObjectStore {
+  readonly client: S3Client;
+
+  constructor(readonly bucket: string, client: S3Client) {
+    this.client = client;
+  }
+
+  static fromConfig(config: Config): ObjectStore {
+    const client = new S3Client({
+      endpoint: config.S3_ENDPOINT,
+      region: config.S3_REGION,
+      forcePathStyle: true,
+      credentials: { accessKeyId: config.S3_ACCESS_KEY_ID, secretAccessKey: config.S3_SECRET_ACCESS_KEY },
+      // With the SDK defaults a streamed body is stored with its aws-chunked framing by S3-compatible fakes.
+      requestChecksumCalculation: 'WHEN_REQUIRED',
+      responseChecksumValidation: 'WHEN_REQUIRED',
+    });
+    return new ObjectStore(config.S3_BUCKET, client);
+  }
+
+  async ping(): Promise<void> {
+    await this.client.send(new HeadBucketCommand({ Bucket: this.bucket }));
+  }
+
+  async putBytes(key: string, body: Uint8Array, contentType = 'application/octet-stream'): Promise<void> {
+    await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: body, ContentType: contentType }));
+  }
+
+  /** Multipart upload of a stream of unknown length; abort() removes the parts already sent. */
+  streamUpload(key: string, body: Readable, contentType = 'application/octet-stream'): Upload {
+    return new Upload({
+      client: this.client,
+      params: { Bucket: this.bucket, Key: key, Body: body, ContentType: contentType },
+      queueSize: 2,
+      partSize: 8 * 1024 * 1024,
+      leavePartsOnError: false,
+    });
+  }
+
+  async getStream(key: string, range?: { start: number; end?: number }): Promise<Readable> {
+    const out = await this.client.send(new GetObjectCommand({
+      Bucket: this.bucket,
+      Key: key,
+      Range: range ? `bytes=${range.start}-${range.end ?? ''}` : undefined,
+    }));
+    return out.Body as Readable;
+  }
+
+  async getBytes(key: string): Promise<Uint8Array> {
+    const out = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: key }));
+    if (!out.Body) throw new Error(`object ${key} has no body`);
+    return out.Body.transformToByteArray();
+  }
+
+  async delete(key: string): Promise<void> {
+    await this.client.send(new DeleteObjectCommand({ Bucket: this.bucket, Key: key }));
+  }
+
+  close(): void {
+    this.client.destroy();
+  }
+}
