@@ -3,6 +3,7 @@
  * selection) first, then one group per species present in it. Masses are
  * resolved once here so every module uses the same numbers.
  */
+import type { ComponentSet } from '../../shared/analysis-params.ts';
 import { massOf } from '../../shared/elements.ts';
 import type { Trajectory } from './trajectory.ts';
 
@@ -56,7 +57,7 @@ export function selectAtoms(traj: Trajectory, species: readonly string[] | undef
 }
 
 /** Cartesian components an analysis uses; lateral diffusion in a membrane uses "xy". */
-export type Components = 'xyz' | 'xy' | 'xz' | 'yz' | 'x' | 'y' | 'z';
+export type Components = ComponentSet;
 
 export function componentIndices(c: Components): number[] {
   return [...c].map((ch) => 'xyz'.indexOf(ch));

@@ -3,8 +3,10 @@
  * is one-sided over lags 0..M−1 with w(0) = 1, which keeps the spectrum's
  * integral (Parseval: ∫Ĉ dν = C(0)) while taming truncation ripples.
  */
-export const WINDOW_FUNCTIONS = ['hann', 'none', 'blackman', 'gaussian'] as const;
-export type WindowFunction = (typeof WINDOW_FUNCTIONS)[number];
+import { SPECTRAL_WINDOWS, type SpectralWindow } from '../../shared/analysis-params.ts';
+
+export const WINDOW_FUNCTIONS = SPECTRAL_WINDOWS;
+export type WindowFunction = SpectralWindow;
 
 export function lagWindow(kind: WindowFunction, m: number, M: number): number {
   const u = m / M;

@@ -10,8 +10,8 @@
 import { rdf, type RdfOptions, type RdfResult } from './rdf.ts';
 import type { Trajectory } from './trajectory.ts';
 
-export const SQ_WINDOWS = ['lorch', 'none'] as const;
-export type SqWindow = (typeof SQ_WINDOWS)[number];
+export { SQ_WINDOWS, type SqWindow } from '../../shared/analysis-params.ts';
+import type { SqWindow } from '../../shared/analysis-params.ts';
 
 export interface SqOptions extends RdfOptions {
   qMaxInvA?: number;

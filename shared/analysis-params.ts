@@ -1,0 +1,56 @@
+/**
+ * Analysis settings as the browser sends them and the server runs them: one
+ * zod schema, so both sides accept and reject exactly the same input.
+ */
+import { z } from 'zod';
+
+export const ANALYSIS_KEYS = ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'ngp', 'sq'] as const;
+export type AnalysisKey = (typeof ANALYSIS_KEYS)[number];
+export const analysisKeySchema = z.enum(ANALYSIS_KEYS);
+
+export const SPECTRAL_WINDOWS = ['hann', 'none', 'blackman', 'gaussian'] as const;
+export type SpectralWindow = (typeof SPECTRAL_WINDOWS)[number];
+
+export const SQ_WINDOWS = ['lorch', 'none'] as const;
+export type SqWindow = (typeof SQ_WINDOWS)[number];
+
+export const COMPONENT_SETS = ['xyz', 'xy', 'xz', 'yz', 'x', 'y', 'z'] as const;
+export type ComponentSet = (typeof COMPONENT_SETS)[number];
+
+const timeWindow = z
+  .object({ startPs: z.number().nonnegative(), endPs: z.number().positive() })
+  .refine((w) => w.endPs > w.startPs, { message: 'The window must end after it starts.' });
+
+/** Fit window for D: automatic, or start/end in ps. */
+export const fitWindowSchema = z.union([z.object({ mode: z.literal('auto') }), z.object({ mode: z.literal('manual') }).and(timeWindow)]);
+export type FitWindow = z.infer<typeof fitWindowSchema>;
+
+export const analysisParamsSchema = z.object({
+  /** Species to include; empty means all. */
+  species: z.array(z.string().min(1)).default([]),
+  /** Species pair for g(r) beside the total; absent means every pair. */
+  pair: z.tuple([z.string().min(1), z.string().min(1)]).optional(),
+  components: z.enum(COMPONENT_SETS).default('xyz'),
+  maxLagPs: z.number().positive().optional(),
+  fitWindow: fitWindowSchema.default({ mode: 'auto' }),
+  greenKuboWindow: fitWindowSchema.default({ mode: 'auto' }),
+  window: z.enum(SPECTRAL_WINDOWS).default('hann'),
+  zeroPadFactor: z.number().int().min(1).max(16).default(1),
+  rMaxA: z.number().positive().optional(),
+  binWidthA: z.number().positive().max(1).default(0.05),
+  sqWindow: z.enum(SQ_WINDOWS).default('lorch'),
+  qMaxInvA: z.number().positive().max(100).optional(),
+  /** Temperature for heat capacity, entropy and zero-point energy; default the kinetic temperature. */
+  temperatureK: z.number().positive().optional(),
+  /** Total degrees of freedom; default 3N − 3 − constraints. */
+  degreesOfFreedom: z.number().int().positive().optional(),
+  constraints: z.number().int().nonnegative().default(0),
+  removeComDrift: z.boolean().default(true),
+  /** Mass overrides in u, by species label or element symbol. */
+  masses: z.record(z.string().min(1), z.number().positive()).default({}),
+});
+
+/** Parsed settings, defaults filled in. */
+export type AnalysisParams = z.infer<typeof analysisParamsSchema>;
+/** What a caller may send. */
+export type AnalysisParamsInput = z.input<typeof analysisParamsSchema>;
