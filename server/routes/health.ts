@@ -1,12 +1,13 @@
-import { Router } from 'express';
 import type { AppContext } from '../context.ts';
 import { checkHealth } from '../services/health.ts';
+import type { RouteDef } from './route-table.ts';
 
-export function healthRouter(ctx: AppContext): Router {
-  const router = Router();
-  router.get('/health', async (_req, res) => {
-    const report = await checkHealth(ctx);
-    res.status(report.status === 'ok' ? 200 : 503).json(report);
-  });
-  return router;
+export function healthRoutes(ctx: AppContext): RouteDef[] {
+  return [{
+    method: 'get', path: '/health', access: { kind: 'public' },
+    handler: async (_req, res) => {
+      const report = await checkHealth(ctx);
+      res.status(report.status === 'ok' ? 200 : 503).json(report);
+    },
+  }];
 }

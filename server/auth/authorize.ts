@@ -1,0 +1,70 @@
+import type {} from 'passport';
+import type { RequestHandler } from 'express';
+import { and, eq } from 'drizzle-orm';
+import type { AppContext } from '../context.ts';
+import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
+import { forbidden, notFound, unauthorized } from '../errors.ts';
+import type { Access } from '../routes/route-table.ts';
+import { projectOf } from './project-of.ts';
+
+const RANK: Record<ProjectRole, number> = { viewer: 1, editor: 2, owner: 3 };
+
+/** The signed-in user, set by the identity middleware from a session or a bearer token. */
+export interface CurrentUser {
+  id: number;
+  email: string;
+  displayName: string;
+  role: 'admin' | 'member';
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // passport declares `User`; ours carries these fields.
+    interface User extends CurrentUser {}
+  }
+}
+
+/** What a route handler may rely on after authorization. */
+export interface AuthorizedLocals {
+  projectId?: number;
+  projectRole?: ProjectRole;
+}
+
+function idParam(value: unknown): number | null {
+  const n = Number(value);
+  return Number.isSafeInteger(n) && n > 0 && String(n) === String(value) ? n : null;
+}
+
+/**
+ * Enforces a route's Access rule. Resources the caller may not see answer 404
+ * rather than 403, so ids do not reveal what exists in other projects.
+ */
+export function authorize(ctx: AppContext, access: Access): RequestHandler {
+  return async (req, res, next) => {
+    if (access.kind === 'public') return next();
+    const user = req.user;
+    if (!user) throw unauthorized();
+    if (access.kind === 'signed-in') return next();
+    if (access.kind === 'admin') {
+      if (user.role !== 'admin') throw forbidden('Only a site admin can do this.');
+      return next();
+    }
+    const raw = req.params[access.param ?? 'id'];
+    const id = idParam(raw);
+    const what = access.via[0]!.toUpperCase() + access.via.slice(1);
+    if (id === null) throw notFound(what);
+    const projectId = await projectOf(ctx.db, access.via, id);
+    if (projectId === null) throw notFound(what);
+    const [membership] = await ctx.db.select({ role: projectMembers.role }).from(projectMembers)
+      .innerJoin(projects, eq(projects.id, projectMembers.projectId))
+      .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, user.id)));
+    if (!membership) throw notFound(what);
+    if (RANK[membership.role] < RANK[access.role]) {
+      throw forbidden(`This needs the ${access.role} role in the project; you are ${membership.role === 'editor' ? 'an' : 'a'} ${membership.role}.`);
+    }
+    res.locals['projectId'] = projectId;
+    res.locals['projectRole'] = membership.role;
+    next();
+  };
+}
