@@ -12,7 +12,8 @@ import { BOLTZMANN_ENGINE, MEV_PER_THZ, WAVENUMBER_PER_THZ } from './constants.t
 import { CosineSpectrum, nextPowerOfTwo } from './fft.ts';
 import { harmonicThermo, type HarmonicThermo } from './harmonic-thermo.ts';
 import { findPeaks } from './peaks.ts';
-import { lagWindow, type WindowFunction } from './spectral-windows.ts';
+import { correlationSpectrum } from './correlation-spectrum.ts';
+import type { WindowFunction } from './spectral-windows.ts';
 import type { Trajectory } from './trajectory.ts';
 import { vacf, type VacfOptions, type VacfResult } from './vacf.ts';
 
@@ -75,24 +76,20 @@ export function vdosFromVacf(v: VacfResult, traj: Trajectory, options: VdosOptio
   if (M < 2) throw new Error('The VDOS needs at least two lags.');
   const L = nextPowerOfTwo(2 * M * Math.max(1, options.zeroPadFactor ?? 1));
   const dt = v.dtPs;
-  const spectrum = new CosineSpectrum(L);
+  const transformer = new CosineSpectrum(L);
   const nFreq = L / 2 + 1;
   const freqTHz = Float64Array.from({ length: nFreq }, (_, k) => k / (L * dt));
-  const b = new Float64Array(M);
-  const cos = new Float64Array(nFreq);
 
   const groups = v.groups.map((g): VdosGroupResult => {
     const W = g.massWeightedSum;
-    b[0] = W[0];
-    for (let m = 1; m < M; m++) b[m] = (m === M - 1 ? 1 : 2) * lagWindow(kind, m, M) * W[m];
-    spectrum.transform(b, cos);
+    const spectrum = correlationSpectrum(W, dt, kind, 1, transformer).values;
     const d = v.dimensions;
     const removesCom = v.comDriftRemoved && g.nAtoms === traj.nAtoms;
     const dof = g.label === 'all' && options.degreesOfFreedom !== undefined ? options.degreesOfFreedom : d * g.nAtoms - (removesCom ? d : 0);
     const kTkin = W[0] / dof;
     const kT = options.normalisationTemperatureK !== undefined ? BOLTZMANN_ENGINE * options.normalisationTemperatureK : kTkin;
     const dos = new Float64Array(nFreq);
-    for (let k = 0; k < nFreq; k++) dos[k] = (2 / kT) * dt * cos[k];
+    for (let k = 0; k < nFreq; k++) dos[k] = (2 / kT) * spectrum[k];
     let integral = 0;
     for (let k = 0; k < nFreq; k++) integral += (k === 0 || k === nFreq - 1 ? 0.5 : 1) * dos[k];
     integral /= L * dt;
