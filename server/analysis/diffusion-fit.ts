@@ -1,7 +1,7 @@
 /**
  * Einstein diffusion from an MSD curve: D = slope / (2d) on the diffusive
  * window. The automatic window ends where origin statistics are still good
- * (lag ≤ half the run, or the user's max lag) and reaches back as far as the
+ * (lag ≤ a quarter of the run, or the user's max lag) and reaches back as far as the
  * local log–log slope stays within ±SLOPE_TOLERANCE of 1. A curve whose late
  * growth is small compared with its height is bounded (a solid, a trapped
  * particle): no D is reported for it, only the plateau.

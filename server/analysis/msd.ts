@@ -45,6 +45,8 @@ export interface MsdResult {
 
 /** Atom blocks for the uncertainty of D: atoms are dealt round-robin into this many blocks. */
 export const DIFFUSION_BLOCKS = 8;
+/** The automatic fit window ends at lag ≤ run length / this. */
+export const AUTO_FIT_END_FRACTION_INVERSE = 4;
 
 export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fraction: number) => void): MsdResult {
   const dt = frameIntervalPs(traj);
@@ -83,7 +85,8 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
     onProgress?.((k + 1) / sel.atoms.length);
   });
 
-  const endIndex = Math.min(nLags - 1, Math.floor((T - 1) / 2));
+  // Origins thin out at long lags; a quarter of the run keeps ≥ 3/4 of them.
+  const endIndex = Math.min(nLags - 1, Math.floor((T - 1) / AUTO_FIT_END_FRACTION_INVERSE));
   const groups = sel.groups.map((g, gi): MsdGroupResult => {
     const n = g.atoms.length;
     const curve = sums[gi].map((v) => v / n);
