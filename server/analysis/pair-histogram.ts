@@ -10,6 +10,8 @@
  * pairs are counted anyway).
  */
 export const BRUTE_FORCE_MAX_ATOMS = 256;
+/** Relative margin below r_max² treated as r_max (single-precision round-off of positions). */
+export const R_MAX_ROUNDOFF = 4e-6;
 
 export type PairMethod = 'auto' | 'cell-list' | 'brute-force';
 
@@ -40,7 +42,9 @@ export class PairHistogram {
   ) {
     this.wrapped = new Float64Array(3 * nAtoms);
     this.next = new Int32Array(nAtoms);
-    this.rMax2 = rMax * rMax;
+    // Positions arrive in single precision; a pair sitting exactly at r_max
+    // (e.g. the ±L/2 images in a crystal) must not slip in through round-off.
+    this.rMax2 = rMax * rMax * (1 - R_MAX_ROUNDOFF);
     this.binsPerA = nBins / rMax;
   }
 

@@ -8,7 +8,8 @@
  * like pair, N_b/V for unlike — so an ideal gas gives g = 1 exactly in
  * expectation and the coordination number N_ab(r) is the mean count of b
  * atoms within r of an a atom (an integer step function for a crystal).
- * Only distances strictly below r_max count; r_max may not exceed half the
+ * Only distances strictly below r_max count (within single-precision
+ * round-off of r_max counts as r_max); r_max may not exceed half the
  * shortest box edge (minimum image would double-count beyond it).
  */
 import { cellFramesOf } from './cell-geometry.ts';
