@@ -1,13 +1,15 @@
 /**
  * Decimal number parsing straight from bytes, so the text readers never
- * build a string per coordinate. The fast path is exact: a mantissa of at
- * most 15 significant digits is an exact double, and so is 10^k for
- * |k| <= 22, so one IEEE multiply or divide rounds exactly as Number() does.
+ * build a string per coordinate. The fast path is exact: a digit string
+ * whose integer value stays below 2^53 is accumulated without rounding,
+ * and 10^k is exact for |k| <= 22, so one IEEE multiply or divide rounds
+ * exactly as Number() does.
  * Anything outside that (long mantissas, big exponents) goes through Number()
  * after a strict grammar check, so results never differ from JS.
  */
 
-const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+const POW10 = Float64Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+const MAX_EXACT = 2 ** 53;
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const FORTRAN_EXPONENT = /^([+-]?(?:\d+\.?\d*|\.\d+))[dD]([+-]?\d+)$/;
 
@@ -23,13 +25,11 @@ export function parseNumberBytes(buf: Uint8Array, start: number, end: number): n
     i++;
   }
   let mantissa = 0;
-  let significant = 0;
   let digits = 0;
   let scale = 0;
   while (i < end) {
     const d = buf[i] - 48;
     if (d < 0 || d > 9) break;
-    if (mantissa !== 0 || d !== 0) significant++;
     mantissa = mantissa * 10 + d;
     digits++;
     i++;
@@ -39,14 +39,13 @@ export function parseNumberBytes(buf: Uint8Array, start: number, end: number): n
     while (i < end) {
       const d = buf[i] - 48;
       if (d < 0 || d > 9) break;
-      if (mantissa !== 0 || d !== 0) significant++;
       mantissa = mantissa * 10 + d;
       digits++;
       scale--;
       i++;
     }
   }
-  if (digits === 0 || significant > 15) return parseSlow(buf, start, end);
+  if (digits === 0 || mantissa >= MAX_EXACT) return parseSlow(buf, start, end);
   if (i < end) {
     c = buf[i];
     if (c !== 101 && c !== 69) return parseSlow(buf, start, end);

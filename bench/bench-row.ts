@@ -1,0 +1,1 @@
+export interface BenchRow { name: string; seconds: number; reference?: string; ratio?: number; note?: string }
