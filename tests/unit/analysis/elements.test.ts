@@ -1,0 +1,31 @@
+import { describe, expect, it } from 'vitest';
+import { ELEMENTS, elementOf, elementSymbolOf, massOf, UnknownElementError } from '../../../shared/elements.ts';
+
+describe('Element table (IUPAC 2021 conventional weights [FROM MEMORY]; Cordero et al. 2008 radii [FROM MEMORY])', () => {
+  it('when H through Kr and the listed heavy elements are looked up, then all are present with a mass, radius and colour', () => {
+    const heavy = ['Ag', 'Au', 'Pt', 'Pd', 'I', 'Xe', 'Sn', 'Pb', 'W'];
+    for (let z = 1; z <= 36; z++) expect([...ELEMENTS.values()].some((e) => e.atomicNumber === z)).toBe(true);
+    for (const s of heavy) expect(ELEMENTS.has(s)).toBe(true);
+    for (const e of ELEMENTS.values()) {
+      expect(e.massU).toBeGreaterThan(0);
+      expect(e.covalentRadiusA).toBeGreaterThan(0.2);
+      expect(e.colour).toMatch(/^#[0-9a-f]{6}$/);
+    }
+  });
+
+  it('when labels such as "Ar1", "ar", "OW" or "Na+" are given, then the element is recognised', () => {
+    expect(elementSymbolOf('Ar1')).toBe('Ar');
+    expect(elementSymbolOf('ar')).toBe('Ar');
+    expect(elementSymbolOf('OW')).toBe('O');
+    expect(elementSymbolOf('Na+')).toBe('Na');
+    expect(elementOf('C12').massU).toBeCloseTo(12.011, 3);
+  });
+
+  it('when a label is unknown, then a clear error names it, unless the user gave a mass', () => {
+    expect(() => massOf('Qq')).toThrow(UnknownElementError);
+    expect(() => massOf('Qq')).toThrow(/"Qq"/);
+    expect(massOf('Qq', { Qq: 72 })).toBe(72);
+    expect(massOf('Ar1', { Ar: 39.948 })).toBe(39.948);
+    expect(() => massOf('Ar', { Ar: -1 })).toThrow(/positive/);
+  });
+});
