@@ -1,0 +1,156 @@
+/**
+ * Engine benchmark: a 500-atom × 4000-frame trajectory with velocities,
+ * synthesised in memory, through msd, vacf, vdos, rdf and thermo. Each stage
+ * is compared with a naive reference in the same run where one exists and
+ * with a numpy implementation of the same algorithm when python3 has numpy.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { msd } from '../server/analysis/msd.ts';
+import { PairHistogram } from '../server/analysis/pair-histogram.ts';
+import { rdf } from '../server/analysis/rdf.ts';
+import { thermo } from '../server/analysis/thermo.ts';
+import type { Trajectory } from '../server/analysis/trajectory.ts';
+import { vacf } from '../server/analysis/vacf.ts';
+import { vdosFromVacf } from '../server/analysis/vdos.ts';
+import { SeededRandom } from '../server/simulate/random.ts';
+import type { BenchRow } from './bench-row.ts';
+
+const N = 500, T = 4000, DT = 0.01, BOX = 28.6, R_MAX = 9, BIN = 0.05;
+/** Frames the O(N²) references actually run; their times are scaled to all frames. */
+const REFERENCE_RDF_FRAMES = 200;
+const REFERENCE_MSD_ATOMS = 5;
+
+export async function benchEngine(): Promise<BenchRow[]> {
+  const traj = synthesise();
+  const float32Bytes = traj.positions.byteLength + (traj.velocities?.byteLength ?? 0);
+  (globalThis as { gc?: () => void }).gc?.();
+  const rssBefore = process.memoryUsage().rss;
+  const rows: BenchRow[] = [];
+  const time = <R>(f: () => R): [R, number] => {
+    const t0 = performance.now();
+    const r = f();
+    return [r, (performance.now() - t0) / 1000];
+  };
+
+  const [, tMsd] = time(() => msd(traj));
+  const [v, tVacf] = time(() => vacf(traj));
+  const [, tVdos] = time(() => vdosFromVacf(v, traj));
+  const [, tRdf] = time(() => rdf(traj, { rMaxA: R_MAX, binWidthA: BIN }));
+  const [, tThermo] = time(() => thermo(traj));
+  const peakRss = process.resourceUsage().maxRSS * 1024;
+
+  const tMsdNaive = naiveMsdSeconds(traj) * (N / REFERENCE_MSD_ATOMS);
+  const tRdfNaive = bruteRdfSeconds(traj) * (T / REFERENCE_RDF_FRAMES);
+  const numpy = numpyTimes(traj);
+  const total = tMsd + tVacf + tVdos + tRdf + tThermo;
+  const stage = (name: string, seconds: number, naive?: number, naiveLabel?: string): void => {
+    rows.push({ name, seconds, reference: naiveLabel, ratio: naive ? seconds / naive : undefined, note: naive ? `naive ${naive.toFixed(2)} s (scaled)` : undefined });
+    const np = numpy?.[name];
+    if (np !== undefined) rows.push({ name: `${name} vs numpy`, seconds, reference: 'numpy, same algorithm', ratio: seconds / np, note: `numpy ${np.toFixed(3)} s` });
+  };
+  stage('msd', tMsd, tMsdNaive, `direct O(T²) MSD on ${REFERENCE_MSD_ATOMS} atoms, scaled`);
+  stage('vacf', tVacf);
+  stage('vdos', tVdos);
+  stage('rdf', tRdf, tRdfNaive, `brute-force O(N²) pairs on ${REFERENCE_RDF_FRAMES} frames, scaled`);
+  stage('thermo', tThermo);
+  const npTotal = numpy ? Object.values(numpy).reduce((a, b) => a + b, 0) : undefined;
+  rows.push({
+    name: 'pipeline',
+    seconds: total,
+    reference: npTotal ? 'numpy pipeline (target ratio ≤ 0.5)' : undefined,
+    ratio: npTotal ? total / npTotal : undefined,
+    note: numpy ? `numpy ${npTotal?.toFixed(2)} s (its rdf timed on ${REFERENCE_RDF_FRAMES} frames, scaled)` : 'numpy not available: no comparison',
+  });
+  rows.push({
+    name: 'peak RSS',
+    seconds: 0,
+    reference: 'Float32 size of positions + velocities (target ≤ 2)',
+    ratio: peakRss / float32Bytes,
+    note: `peak ${(peakRss / 2 ** 20).toFixed(0)} MiB, before analyses ${(rssBefore / 2 ** 20).toFixed(0)} MiB (runtime + trajectory), trajectory ${(float32Bytes / 2 ** 20).toFixed(0)} MiB`,
+  });
+  rows.push({
+    name: 'engine working memory',
+    seconds: 0,
+    reference: 'Float32 size of positions + velocities',
+    ratio: Math.max(0, peakRss - rssBefore) / float32Bytes,
+    note: 'peak RSS growth during the analyses, excluding the runtime and the trajectory itself',
+  });
+  return rows;
+}
+
+/** Ornstein–Uhlenbeck-like motion wrapped in a cubic box: realistic array sizes and access patterns. */
+function synthesise(): Trajectory {
+  const rng = new SeededRandom(500);
+  const positions = new Float32Array(3 * N * T), velocities = new Float32Array(3 * N * T);
+  const a = Math.exp(-0.2), s = Math.sqrt(1 - a * a);
+  for (let i = 0; i < N; i++)
+    for (let c = 0; c < 3; c++) {
+      let v = rng.normal(), x = rng.uniform() * BOX;
+      for (let f = 0; f < T; f++) {
+        if (f > 0) {
+          v = a * v + s * rng.normal();
+          x += v * DT;
+        }
+        const p = 3 * (N * f + i) + c;
+        positions[p] = x - BOX * Math.floor(x / BOX);
+        velocities[p] = v;
+      }
+    }
+  const cells = new Float64Array(9 * T);
+  for (let f = 0; f < T; f++) (cells[9 * f] = BOX), (cells[9 * f + 4] = BOX), (cells[9 * f + 8] = BOX);
+  return { nAtoms: N, nFrames: T, species: new Array<string>(N).fill('Ar'), positions, velocities, cells, times: Float64Array.from({ length: T }, (_, f) => f * DT), boundary: 'periodic' };
+}
+
+function naiveMsdSeconds(traj: Trajectory): number {
+  const nLags = Math.floor((T - 1) / 2) + 1;
+  const x = new Float64Array(T);
+  const out = new Float64Array(nLags);
+  const t0 = performance.now();
+  for (let i = 0; i < REFERENCE_MSD_ATOMS; i++)
+    for (let c = 0; c < 3; c++) {
+      x[0] = traj.positions[3 * i + c];
+      for (let f = 1; f < T; f++) {
+        let d = traj.positions[3 * (N * f + i) + c] - traj.positions[3 * (N * (f - 1) + i) + c];
+        d -= BOX * Math.round(d / BOX);
+        x[f] = x[f - 1] + d;
+      }
+      for (let m = 1; m < nLags; m++) {
+        let sum = 0;
+        for (let k = 0; k + m < T; k++) sum += (x[k + m] - x[k]) ** 2;
+        out[m] += sum / (T - m);
+      }
+    }
+  return (performance.now() - t0) / 1000;
+}
+
+function bruteRdfSeconds(traj: Trajectory): number {
+  const nBins = Math.round(R_MAX / BIN);
+  const hist = new Float64Array(nBins);
+  const h = new PairHistogram(N, new Int32Array(N), Int32Array.from([0]), 1, nBins, R_MAX, 'brute-force');
+  const t0 = performance.now();
+  for (let f = 0; f < REFERENCE_RDF_FRAMES; f++) h.addFrame(traj.positions, 3 * N * f, [BOX, BOX, BOX], hist);
+  return (performance.now() - t0) / 1000;
+}
+
+function numpyTimes(traj: Trajectory): Record<string, number> | null {
+  if (spawnSync('python3', ['-c', 'import numpy'], { encoding: 'utf8' }).status !== 0) return null;
+  const dir = mkdtempSync(join(tmpdir(), 'ergodic-bench-'));
+  try {
+    const file = join(dir, 'traj.f32');
+    const v = traj.velocities as Float32Array;
+    const both = new Float32Array(traj.positions.length + v.length);
+    both.set(traj.positions);
+    both.set(v, traj.positions.length);
+    writeFileSync(file, both);
+    const script = join(dirname(fileURLToPath(import.meta.url)), 'engine-numpy.py');
+    const r = spawnSync('python3', [script, file, String(N), String(T), String(DT), String(BOX), String(R_MAX), String(BIN), String(REFERENCE_RDF_FRAMES)], { encoding: 'utf8', maxBuffer: 1 << 20 });
+    if (r.status !== 0) throw new Error(`numpy reference failed: ${r.stderr}`);
+    return JSON.parse(r.stdout) as Record<string, number>;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
