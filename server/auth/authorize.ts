@@ -1,5 +1,5 @@
 import type {} from 'passport';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { and, eq } from 'drizzle-orm';
 import type { AppContext } from '../context.ts';
 import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
@@ -67,4 +67,20 @@ export function authorize(ctx: AppContext, access: Access): RequestHandler {
     res.locals['projectRole'] = membership.role;
     next();
   };
+}
+
+/** The caller of a route whose rule requires sign-in; authorize() has already refused anyone else. */
+export function currentUser(req: Request): CurrentUser {
+  if (!req.user) throw unauthorized();
+  return req.user;
+}
+
+/** The project and role authorize() found for a project route. */
+export function authorizedProject(res: Response): { projectId: number; role: ProjectRole } {
+  const projectId: unknown = res.locals['projectId'];
+  const role: unknown = res.locals['projectRole'];
+  if (typeof projectId !== 'number' || typeof role !== 'string' || !(role in RANK)) {
+    throw new Error('authorizedProject() used on a route without a project access rule');
+  }
+  return { projectId, role: role as ProjectRole };
 }

@@ -1,0 +1,13 @@
+import { authorizedProject } from '../auth/authorize.ts';
+import type { AppContext } from '../context.ts';
+import { listProjectAudit } from '../services/audit.ts';
+import type { RouteDef } from './route-table.ts';
+
+export function auditRoutes(ctx: AppContext): RouteDef[] {
+  return [{
+    method: 'get', path: '/projects/:id/audit', access: { kind: 'project', role: 'owner', via: 'project' },
+    handler: async (_req, res) => {
+      res.json({ entries: await listProjectAudit(ctx.db, authorizedProject(res).projectId) });
+    },
+  }];
+}

@@ -1,0 +1,55 @@
+import { and, desc, eq, gt, isNull } from 'drizzle-orm';
+import { newSecretToken, sha256Hex } from '../auth/secret-token.ts';
+import type { Database } from '../db/client.ts';
+import { accessLinks, reports, users } from '../db/schema/index.ts';
+import { notFound } from '../errors.ts';
+import { recordAudit } from './audit.ts';
+import { getReportForReader, type ReaderReport } from './report-reader.ts';
+
+export interface AccessLinkView {
+  id: number;
+  reportId: number;
+  createdBy: string;
+  createdAt: Date;
+  expiresAt: Date;
+  revokedAt: Date | null;
+  lastUsedAt: Date | null;
+}
+
+export async function createAccessLink(db: Database, reportId: number, actorId: number, expiresInDays: number, now = new Date()) {
+  const [report] = await db.select({ projectId: reports.projectId }).from(reports).where(eq(reports.id, reportId));
+  if (!report) throw notFound('Report');
+  const { token, hash } = newSecretToken();
+  const expiresAt = new Date(now.getTime() + expiresInDays * 86_400_000);
+  const [{ id }] = await db.insert(accessLinks).values({ projectId: report.projectId, reportId, tokenHash: hash, createdBy: actorId, expiresAt }).$returningId();
+  await recordAudit(db, { projectId: report.projectId, actorId, action: 'access_link.created', details: { reportId, linkId: id, expiresAt: expiresAt.toISOString() } });
+  return { id, reportId, token, expiresAt };
+}
+
+/** Every link of a report, revoked and expired ones included, so owners see the whole history. */
+export async function listAccessLinks(db: Database, reportId: number): Promise<AccessLinkView[]> {
+  return db.select({
+    id: accessLinks.id, reportId: accessLinks.reportId, createdBy: users.displayName, createdAt: accessLinks.createdAt,
+    expiresAt: accessLinks.expiresAt, revokedAt: accessLinks.revokedAt, lastUsedAt: accessLinks.lastUsedAt,
+  }).from(accessLinks).innerJoin(users, eq(users.id, accessLinks.createdBy))
+    .where(eq(accessLinks.reportId, reportId)).orderBy(desc(accessLinks.createdAt), desc(accessLinks.id));
+}
+
+export async function revokeAccessLink(db: Database, reportId: number, actorId: number, linkId: number): Promise<void> {
+  const [link] = await db.select().from(accessLinks).where(and(eq(accessLinks.id, linkId), eq(accessLinks.reportId, reportId)));
+  if (!link) throw notFound('Access link');
+  if (!link.revokedAt) await db.update(accessLinks).set({ revokedAt: new Date() }).where(eq(accessLinks.id, linkId));
+  await recordAudit(db, { projectId: link.projectId, actorId, action: 'access_link.revoked', details: { reportId, linkId } });
+}
+
+/**
+ * The report a valid link points at. Unknown, expired and revoked tokens all
+ * answer the same 404, so a guessed token learns nothing.
+ */
+export async function resolveAccessLink(db: Database, token: string, now = new Date()): Promise<{ report: ReaderReport; expiresAt: Date }> {
+  const [link] = await db.select().from(accessLinks)
+    .where(and(eq(accessLinks.tokenHash, sha256Hex(token)), isNull(accessLinks.revokedAt), gt(accessLinks.expiresAt, now)));
+  if (!link) throw notFound('Access link');
+  await db.update(accessLinks).set({ lastUsedAt: now }).where(eq(accessLinks.id, link.id));
+  return { report: await getReportForReader(db, link.reportId), expiresAt: link.expiresAt };
+}

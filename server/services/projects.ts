@@ -1,0 +1,74 @@
+import { and, desc, eq, sql } from 'drizzle-orm';
+import type { Database } from '../db/client.ts';
+import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
+import { AppError, notFound } from '../errors.ts';
+import { recordAudit } from './audit.ts';
+
+export interface ProjectSummary {
+  id: number;
+  name: string;
+  description: string;
+  /** The caller's role in the project. */
+  role: ProjectRole;
+  memberCount: number;
+  createdAt: Date;
+  lastActivityAt: Date;
+}
+
+const memberCount = sql<number>`(SELECT COUNT(*) FROM project_members pm WHERE pm.project_id = ${projects.id})`.mapWith(Number);
+
+function summaryQuery(db: Database, userId: number) {
+  return db.select({
+    id: projects.id, name: projects.name, description: projects.description, role: projectMembers.role,
+    memberCount, createdAt: projects.createdAt, lastActivityAt: projects.lastActivityAt,
+  }).from(projects).innerJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, userId)));
+}
+
+/** The projects the user belongs to, most recently active first. */
+export async function listProjects(db: Database, userId: number): Promise<ProjectSummary[]> {
+  return summaryQuery(db, userId).orderBy(desc(projects.lastActivityAt), desc(projects.id));
+}
+
+export async function getProject(db: Database, projectId: number, userId: number): Promise<ProjectSummary> {
+  const [row] = await summaryQuery(db, userId).where(eq(projects.id, projectId));
+  if (!row) throw notFound('Project');
+  return row;
+}
+
+export interface ProjectFields {
+  name: string;
+  description: string;
+}
+
+export async function createProject(db: Database, userId: number, fields: ProjectFields): Promise<ProjectSummary> {
+  const projectId = await db.transaction(async (tx) => {
+    const [{ id }] = await tx.insert(projects).values({ ...fields, createdBy: userId, lastActivityAt: new Date() }).$returningId();
+    await tx.insert(projectMembers).values({ projectId: id, userId, role: 'owner' });
+    return id;
+  });
+  await recordAudit(db, { projectId, actorId: userId, action: 'project.created', details: { name: fields.name } });
+  return getProject(db, projectId, userId);
+}
+
+export async function updateProject(db: Database, projectId: number, actorId: number, changes: Partial<ProjectFields>): Promise<ProjectSummary> {
+  await db.update(projects).set({ ...changes, lastActivityAt: new Date() }).where(eq(projects.id, projectId));
+  await recordAudit(db, { projectId, actorId, action: 'project.updated', details: { ...changes } });
+  return getProject(db, projectId, actorId);
+}
+
+/** Deletes a project and everything in it, once the caller has typed its exact name. */
+export async function deleteProject(db: Database, projectId: number, actorId: number, confirmName: string): Promise<void> {
+  const [project] = await db.select({ name: projects.name }).from(projects).where(eq(projects.id, projectId));
+  if (!project) throw notFound('Project');
+  if (confirmName !== project.name) {
+    throw new AppError(400, 'confirmation_mismatch', `confirm: type the project's name exactly ("${project.name}") to delete it.`,
+      [{ field: 'confirm', message: 'does not match the project name' }]);
+  }
+  await db.delete(projects).where(eq(projects.id, projectId));
+  await recordAudit(db, { projectId, actorId, action: 'project.deleted', details: { name: project.name } });
+}
+
+/** Marks the project as just used, for the "last activity" column. */
+export async function touchProject(db: Database, projectId: number): Promise<void> {
+  await db.update(projects).set({ lastActivityAt: new Date() }).where(eq(projects.id, projectId));
+}
