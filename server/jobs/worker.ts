@@ -9,7 +9,7 @@ export interface RunningWorker {
   close(): Promise<void>;
 }
 
-const processorFile = new URL('./processor.ts', import.meta.url);
+const processorFile = new URL('./processor-entry.mjs', import.meta.url);
 
 /**
  * A BullMQ worker whose jobs run in sandboxed worker threads, so a long

@@ -1,7 +1,12 @@
 import type { SandboxedJob } from 'bullmq';
 import type { AppContext } from '../../context.ts';
+import { analyseJob } from './analyse.ts';
+import { inspectJob } from './inspect.ts';
 
 export type JobHandler = (job: SandboxedJob, ctx: AppContext) => Promise<unknown>;
 
 /** Job kinds by name; the worker refuses any kind not listed here. */
-export const jobHandlers: Record<string, JobHandler> = {};
+export const jobHandlers: Record<string, JobHandler> = {
+  inspect: inspectJob,
+  analyse: analyseJob,
+};

@@ -1,0 +1,64 @@
+import { UnrecoverableError, type SandboxedJob } from 'bullmq';
+import { eq } from 'drizzle-orm';
+import type { AppContext } from '../../context.ts';
+import { trajectories } from '../../db/schema/index.ts';
+import { TrajectoryFormatError } from '../../formats/frame.ts';
+import { inspectTrajectory } from '../../formats/inspect.ts';
+import { readerLimits } from '../../services/reader-limits.ts';
+import { getTrajectoryRow } from '../../services/trajectories.ts';
+import type { InspectJobData } from '../queue.ts';
+
+/**
+ * Reads an upload once from the object store: validates every frame, counts
+ * atoms, frames and species, notes cell, velocities and time step, and keeps
+ * a frame index for the viewer. A malformed file marks only its own
+ * trajectory failed, with the reader's message (file, frame, line).
+ */
+export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<unknown> {
+  const { trajectoryId } = job.data as InspectJobData;
+  const row = await getTrajectoryRow(ctx, trajectoryId).catch(() => null);
+  if (!row) return { skipped: 'trajectory deleted' };
+  await ctx.db.update(trajectories).set({ status: 'inspecting', error: null }).where(eq(trajectories.id, row.id));
+  let lastReport = 0;
+  try {
+    const stream = await ctx.store.getStream(row.objectKey);
+    const result = await inspectTrajectory(stream, row.name, { ...readerLimits(ctx.config), totalBytes: row.sizeBytes }, (p) => {
+      const now = Date.now();
+      if (now - lastReport < 500) return;
+      lastReport = now;
+      void job.updateProgress(Math.min(99, Math.round((100 * p.rawBytes) / Math.max(1, row.sizeBytes))));
+    });
+    const frameIndexKey = `${row.objectKey}.frame-index.json`;
+    await ctx.store.putBytes(frameIndexKey, Buffer.from(JSON.stringify({
+      format: result.format, compression: result.compression, offsets: result.frameOffsets,
+    })), 'application/json');
+    const fromFile: string[] = [];
+    const update: Partial<typeof trajectories.$inferInsert> = {
+      status: 'ready', error: null, format: result.format, compression: result.compression,
+      atoms: result.atoms, frames: result.frames, speciesCounts: result.speciesCounts, cell: result.cell,
+      cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, frameIndexKey, updatedAt: new Date(),
+    };
+    // Values the file states are pre-filled, unless the uploader already typed them in.
+    if (result.timeStep !== undefined && row.timeStep === null && result.timeStep > 0) {
+      update.timeStep = result.timeStep;
+      fromFile.push('timeStep');
+    }
+    if (row.boundary === 'periodic' && !result.cell) {
+      update.boundary = 'none';
+      fromFile.push('boundary');
+    } else if (result.cell) {
+      fromFile.push('boundary');
+    }
+    update.fromFile = [...new Set([...(row.fromFile ?? []), ...fromFile])];
+    await ctx.db.update(trajectories).set(update).where(eq(trajectories.id, row.id));
+    return { atoms: result.atoms, frames: result.frames };
+  } catch (err) {
+    const readerError = err instanceof TrajectoryFormatError || err instanceof RangeError;
+    const message = err instanceof Error ? err.message : String(err);
+    if (readerError || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) {
+      await ctx.db.update(trajectories).set({ status: 'failed', error: message, updatedAt: new Date() }).where(eq(trajectories.id, row.id));
+    }
+    // A bad file will not get better on a retry; a lost connection might.
+    throw readerError ? new UnrecoverableError(message) : err;
+  }
+}

@@ -1,0 +1,41 @@
+import { desc, eq } from 'drizzle-orm';
+import type { ReportDto, ReportListItem } from '../../shared/report.ts';
+import type { AppContext } from '../context.ts';
+import { reports, trajectories } from '../db/schema/index.ts';
+import { notFound } from '../errors.ts';
+import { curveToCsv, decodeCurves } from './report-curves.ts';
+
+async function reportRow(ctx: AppContext, id: number) {
+  const [row] = await ctx.db.select({ r: reports, trajectoryName: trajectories.name }).from(reports)
+    .innerJoin(trajectories, eq(trajectories.id, reports.trajectoryId)).where(eq(reports.id, id));
+  if (!row) throw notFound('Report');
+  return row;
+}
+
+/** The whole report with its curves, as members and access-link holders read it. */
+export async function getReport(ctx: AppContext, id: number): Promise<ReportDto> {
+  const { r, trajectoryName } = await reportRow(ctx, id);
+  const curves = decodeCurves(await ctx.store.getBytes(r.curvesKey));
+  return {
+    id: r.id, projectId: r.projectId, trajectoryId: r.trajectoryId, trajectoryName, runId: r.runId, title: r.title,
+    analyses: r.analyses, params: r.params, summary: r.summary as ReportDto['summary'], methods: r.methods,
+    engineVersion: r.engineVersion, inputSha256: r.inputSha256, createdAt: r.createdAt.toISOString(), curves,
+  };
+}
+
+export async function getCurveCsv(ctx: AppContext, id: number, name: string): Promise<string> {
+  const { r } = await reportRow(ctx, id);
+  const curves = decodeCurves(await ctx.store.getBytes(r.curvesKey));
+  const curve = Object.hasOwn(curves, name) ? curves[name] : undefined;
+  if (!curve) throw notFound(`Curve "${name}" in report ${id} (it has: ${Object.keys(curves).join(', ') || 'none'})`);
+  return curveToCsv(curve);
+}
+
+export async function listReports(ctx: AppContext, projectId: number): Promise<ReportListItem[]> {
+  const rows = await ctx.db.select({ r: reports, trajectoryName: trajectories.name }).from(reports)
+    .innerJoin(trajectories, eq(trajectories.id, reports.trajectoryId))
+    .where(eq(reports.projectId, projectId)).orderBy(desc(reports.id)).limit(500);
+  return rows.map(({ r, trajectoryName }) => ({
+    id: r.id, trajectoryId: r.trajectoryId, trajectoryName, title: r.title, analyses: r.analyses, createdAt: r.createdAt.toISOString(),
+  }));
+}
