@@ -1,8 +1,22 @@
 import type { Routes } from '@angular/router';
+import { adminGuard, signedInGuard } from './core/signed-in-guard';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'projects' },
   { path: 'sign-in', title: 'Sign in · Ergodic', loadComponent: () => import('./auth/sign-in-page') },
-  { path: 'projects', title: 'Projects · Ergodic', loadComponent: () => import('./projects/projects-page') },
+  { path: 'sign-up', title: 'Create an account · Ergodic', loadComponent: () => import('./auth/sign-up-page') },
+  { path: 'forgot-password', title: 'Forgot password · Ergodic', loadComponent: () => import('./auth/forgot-password-page') },
+  { path: 'reset-password', title: 'Choose a new password · Ergodic', loadComponent: () => import('./auth/reset-password-page') },
+  // Public on purpose: the page explains the invitation before asking anyone to sign in.
+  { path: 'invitations/:token', title: 'Invitation · Ergodic', loadComponent: () => import('./projects/invitation-page') },
+  { path: 'projects', title: 'Projects · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./projects/projects-page') },
+  { path: 'projects/:id', title: 'Project · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./projects/project-page') },
+  {
+    path: 'projects/:id/settings', title: 'Project settings · Ergodic', canActivate: [signedInGuard],
+    loadComponent: () => import('./projects/project-settings-page'),
+  },
+  { path: 'account/tokens', title: 'API tokens · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./auth/tokens-page') },
+  { path: 'admin/users', title: 'Users · Ergodic', canActivate: [adminGuard], loadComponent: () => import('./admin/users-page') },
+  { path: 'admin/mail', title: 'Sent mail · Ergodic', canActivate: [adminGuard], loadComponent: () => import('./admin/dev-mail-page') },
   { path: '**', title: 'Not found · Ergodic', loadComponent: () => import('./shell/not-found-page') },
 ];

@@ -1,13 +1,16 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDividerModule } from '@angular/material/divider';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { RouterLink, RouterLinkActive } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive } from '@angular/router';
+import { AuthState } from '../core/auth-state';
 import { Logo } from './logo';
 
 @Component({
   selector: 'erg-top-bar',
-  imports: [MatToolbarModule, MatButtonModule, MatIconModule, RouterLink, RouterLinkActive, Logo],
+  imports: [MatToolbarModule, MatButtonModule, MatDividerModule, MatIconModule, MatMenuModule, RouterLink, RouterLinkActive, Logo],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <mat-toolbar class="top-bar">
@@ -15,11 +18,30 @@ import { Logo } from './logo';
         <erg-logo />
         <span class="name">Ergodic</span>
       </a>
-      <nav aria-label="Main">
-        <a mat-button routerLink="/projects" routerLinkActive="active">Projects</a>
-      </nav>
+      @if (auth.isSignedIn()) {
+        <nav aria-label="Main">
+          <a mat-button routerLink="/projects" routerLinkActive="active">Projects</a>
+        </nav>
+      }
       <span class="spacer"></span>
-      <a mat-stroked-button routerLink="/sign-in"><mat-icon>login</mat-icon> Sign in</a>
+      @if (auth.user(); as user) {
+        <button mat-button type="button" [matMenuTriggerFor]="userMenu" aria-label="Account menu for {{ user.displayName }}">
+          <mat-icon aria-hidden="true">account_circle</mat-icon> {{ user.displayName }}
+        </button>
+        <mat-menu #userMenu="matMenu">
+          <div class="who" aria-hidden="true">{{ user.email }}</div>
+          <a mat-menu-item routerLink="/account/tokens"><mat-icon aria-hidden="true">key</mat-icon> API tokens</a>
+          @if (auth.isAdmin()) {
+            <mat-divider />
+            <a mat-menu-item routerLink="/admin/users"><mat-icon aria-hidden="true">group</mat-icon> Users</a>
+            <a mat-menu-item routerLink="/admin/mail"><mat-icon aria-hidden="true">mail</mat-icon> Sent mail</a>
+          }
+          <mat-divider />
+          <button mat-menu-item type="button" (click)="signOut()"><mat-icon aria-hidden="true">logout</mat-icon> Sign out</button>
+        </mat-menu>
+      } @else {
+        <a mat-stroked-button routerLink="/sign-in"><mat-icon aria-hidden="true">login</mat-icon> Sign in</a>
+      }
     </mat-toolbar>
   `,
   styles: `
@@ -28,6 +50,15 @@ import { Logo } from './logo';
     .name { font-weight: 600; letter-spacing: 0.02em; }
     .spacer { flex: 1; }
     .active { background: var(--mat-sys-secondary-container); }
+    .who { padding: 8px 16px; font-size: 0.85rem; color: var(--mat-sys-on-surface-variant); }
   `,
 })
-export class TopBar {}
+export class TopBar {
+  protected readonly auth = inject(AuthState);
+  private readonly router = inject(Router);
+
+  protected async signOut(): Promise<void> {
+    await this.auth.signOut();
+    await this.router.navigateByUrl('/sign-in');
+  }
+}

@@ -1,0 +1,132 @@
+import { Clipboard } from '@angular/cdk/clipboard';
+import { DatePipe } from '@angular/common';
+import { httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { MatTableModule } from '@angular/material/table';
+import { firstValueFrom } from 'rxjs';
+import { apiErrorMessage } from '../core/api-error';
+import { TokensApi, type ApiToken, type NewApiToken } from './tokens-api';
+
+@Component({
+  selector: 'erg-tokens-page',
+  imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule,
+    MatProgressSpinnerModule, MatTableModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <section class="page">
+      <h1>API tokens</h1>
+      <p class="muted">A token lets a script act as you: send it as <code>Authorization: Bearer &lt;token&gt;</code>. Revoke it when the script no longer needs it.</p>
+
+      <form class="create" [formGroup]="form" (ngSubmit)="create()" novalidate>
+        <mat-form-field>
+          <mat-label>Token name</mat-label>
+          <input matInput formControlName="name" required maxlength="120">
+          <mat-hint>Where it will be used, e.g. "cluster upload script".</mat-hint>
+          @if (form.controls.name.hasError('required')) { <mat-error>Give the token a name.</mat-error> }
+        </mat-form-field>
+        <button mat-flat-button type="submit" [disabled]="busy()">Create token</button>
+      </form>
+      @if (error()) { <p class="form-error" role="alert">{{ error() }}</p> }
+
+      @if (created(); as fresh) {
+        <mat-card appearance="outlined" class="fresh" role="status">
+          <mat-card-content>
+            <p><strong>Copy your new token now.</strong> It will not be shown again.</p>
+            <div class="secret">
+              <code aria-label="New API token">{{ fresh.token }}</code>
+              <button mat-stroked-button type="button" (click)="copy(fresh.token)">
+                <mat-icon aria-hidden="true">content_copy</mat-icon> {{ copied() ? 'Copied' : 'Copy' }}
+              </button>
+            </div>
+          </mat-card-content>
+        </mat-card>
+      }
+
+      <h2>Your tokens</h2>
+      @if (tokens.isLoading()) {
+        <div class="state"><mat-spinner diameter="24" aria-label="Loading tokens" /></div>
+      } @else if (tokens.error()) {
+        <p class="form-error" role="alert">{{ loadError() }}</p>
+      } @else if (!tokens.value()?.tokens?.length) {
+        <p class="state" role="status">No tokens yet.</p>
+      } @else {
+        <table mat-table [dataSource]="tokens.value()!.tokens" aria-label="Your API tokens">
+          <ng-container matColumnDef="name"><th mat-header-cell *matHeaderCellDef>Name</th><td mat-cell *matCellDef="let t">{{ t.name }}</td></ng-container>
+          <ng-container matColumnDef="prefix"><th mat-header-cell *matHeaderCellDef>Starts with</th><td mat-cell *matCellDef="let t"><code>{{ t.prefix }}…</code></td></ng-container>
+          <ng-container matColumnDef="created"><th mat-header-cell *matHeaderCellDef>Created</th><td mat-cell *matCellDef="let t">{{ t.createdAt | date: 'medium' }}</td></ng-container>
+          <ng-container matColumnDef="used"><th mat-header-cell *matHeaderCellDef>Last used</th><td mat-cell *matCellDef="let t">{{ t.lastUsedAt ? (t.lastUsedAt | date: 'medium') : 'Never' }}</td></ng-container>
+          <ng-container matColumnDef="actions">
+            <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
+            <td mat-cell *matCellDef="let t"><button mat-button type="button" (click)="revoke(t)" [attr.aria-label]="'Revoke token ' + t.name">Revoke</button></td>
+          </ng-container>
+          <tr mat-header-row *matHeaderRowDef="columns"></tr>
+          <tr mat-row *matRowDef="let row; columns: columns"></tr>
+        </table>
+      }
+    </section>
+  `,
+  styles: `
+    .create { display: flex; gap: 12px; align-items: baseline; flex-wrap: wrap; }
+    .create mat-form-field { flex: 1; min-width: 240px; }
+    .fresh { margin: 16px 0; background: var(--mat-sys-tertiary-container); }
+    .secret { display: flex; gap: 12px; align-items: center; flex-wrap: wrap; }
+    .secret code { word-break: break-all; font-size: 0.95rem; }
+  `,
+})
+export default class TokensPage {
+  private readonly api = inject(TokensApi);
+  private readonly clipboard = inject(Clipboard);
+
+  protected readonly tokens = httpResource<{ tokens: ApiToken[] }>(() => '/api/tokens');
+  protected readonly columns = ['name', 'prefix', 'created', 'used', 'actions'];
+  protected readonly busy = signal(false);
+  protected readonly error = signal('');
+  protected readonly created = signal<NewApiToken | null>(null);
+  protected readonly copied = signal(false);
+  protected readonly form = inject(FormBuilder).nonNullable.group({ name: ['', [Validators.required, Validators.maxLength(120)]] });
+
+  protected loadError(): string {
+    return apiErrorMessage(this.tokens.error(), 'Your tokens could not be loaded.');
+  }
+
+  protected async create(): Promise<void> {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.busy.set(true);
+    this.error.set('');
+    try {
+      this.created.set(await firstValueFrom(this.api.create(this.form.getRawValue().name)));
+      this.copied.set(false);
+      this.form.reset();
+      this.tokens.reload();
+    } catch (err) {
+      this.error.set(apiErrorMessage(err));
+    } finally {
+      this.busy.set(false);
+    }
+  }
+
+  protected copy(token: string): void {
+    this.copied.set(this.clipboard.copy(token));
+  }
+
+  protected async revoke(token: ApiToken): Promise<void> {
+    this.error.set('');
+    try {
+      await firstValueFrom(this.api.revoke(token.id));
+      if (this.created()?.id === token.id) this.created.set(null);
+      this.tokens.reload();
+    } catch (err) {
+      this.error.set(apiErrorMessage(err));
+    }
+  }
+}

@@ -1,0 +1,40 @@
+import { DatePipe } from '@angular/common';
+import { httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatListModule } from '@angular/material/list';
+import { apiErrorMessage } from '../core/api-error';
+import { describeAuditEntry } from './audit-wording';
+import type { AuditEntry } from './project-types';
+
+/** Who changed membership, roles, invitations and access links (owners only). */
+@Component({
+  selector: 'erg-audit-panel',
+  imports: [DatePipe, MatListModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (audit.error()) {
+      <p class="form-error" role="alert">{{ loadError() }}</p>
+    } @else if (entries().length === 0) {
+      <p class="muted">{{ audit.isLoading() ? 'Loading…' : 'Nothing recorded yet.' }}</p>
+    } @else {
+      <mat-list aria-label="Audit log">
+        @for (entry of entries(); track entry.id) {
+          <mat-list-item>
+            <span matListItemTitle>{{ entry.actor?.displayName ?? 'Someone' }} {{ describe(entry) }}</span>
+            <span matListItemLine class="muted">{{ entry.createdAt | date: 'medium' }}</span>
+          </mat-list-item>
+        }
+      </mat-list>
+    }
+  `,
+})
+export class AuditPanel {
+  readonly projectId = input.required<number>();
+  protected readonly audit = httpResource<{ entries: AuditEntry[] }>(() => `/api/projects/${this.projectId()}/audit`);
+  protected readonly entries = computed(() => this.audit.value()?.entries ?? []);
+  protected readonly describe = describeAuditEntry;
+
+  protected loadError(): string {
+    return apiErrorMessage(this.audit.error(), 'The audit log could not be loaded.');
+  }
+}

@@ -1,0 +1,65 @@
+import { TitleCasePipe } from '@angular/common';
+import { httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { RouterLink } from '@angular/router';
+import { apiErrorMessage } from '../core/api-error';
+import type { ProjectSummary } from './project-types';
+
+/**
+ * A project's home: its header, then its trajectories. The header is done;
+ * the `project-trajectories` section is where the trajectories table goes.
+ */
+@Component({
+  selector: 'erg-project-page',
+  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <section class="page">
+      @if (project.isLoading() && !project.hasValue()) {
+        <div class="state"><mat-spinner diameter="28" aria-label="Loading project" /></div>
+      } @else if (project.error()) {
+        <div class="state" role="alert">
+          <mat-icon aria-hidden="true">error</mat-icon><span>{{ loadError() }}</span>
+          <a mat-button routerLink="/projects">Back to projects</a>
+        </div>
+      } @else if (summary(); as p) {
+        <header class="project-header">
+          <div>
+            <h1>{{ p.name }}</h1>
+            @if (p.description) { <p class="description">{{ p.description }}</p> }
+            <p class="muted">You are {{ p.role === 'editor' ? 'an' : 'a' }} <strong>{{ p.role | titlecase }}</strong> · {{ p.memberCount }} member{{ p.memberCount === 1 ? '' : 's' }}</p>
+          </div>
+          @if (canEditSettings()) {
+            <a mat-stroked-button [routerLink]="['/projects', p.id, 'settings']"><mat-icon aria-hidden="true">tune</mat-icon> Settings</a>
+          }
+        </header>
+        <section class="project-trajectories" aria-labelledby="trajectories-heading">
+          <h2 id="trajectories-heading">Trajectories</h2>
+          <p class="muted">Trajectories arrive here.</p>
+        </section>
+      }
+    </section>
+  `,
+  styles: `
+    .project-header { display: flex; justify-content: space-between; align-items: flex-start; gap: 16px; flex-wrap: wrap; }
+    .description { max-width: 70ch; white-space: pre-line; }
+  `,
+})
+export default class ProjectPage {
+  /** The :id route parameter. */
+  readonly id = input.required<string>();
+
+  protected readonly project = httpResource<{ project: ProjectSummary }>(() => `/api/projects/${encodeURIComponent(this.id())}`);
+  protected readonly summary = computed(() => this.project.value()?.project ?? null);
+  protected readonly canEditSettings = computed(() => {
+    const role = this.summary()?.role;
+    return role === 'owner' || role === 'editor';
+  });
+
+  protected loadError(): string {
+    return apiErrorMessage(this.project.error(), 'This project could not be loaded.');
+  }
+}
