@@ -44,6 +44,7 @@ try {
   const demo = await seedDemo(server.ctx, log);
   process.once('SIGINT', () => void stopEverything(0, server));
   process.once('SIGTERM', () => void stopEverything(0, server));
+  demo.ready.catch((err: unknown) => log(`demo data incomplete: ${err instanceof Error ? err.message : err}`));
   log(`Ergodic is running at ${server.url}`);
   for (const account of demo.accounts) log(`demo ${account.role}: ${account.email} / ${account.password}`);
   log('press Ctrl-C to stop');

@@ -1,21 +1,29 @@
+import { createHash } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../context.ts';
-import { projectMembers, projects, users } from '../db/schema/index.ts';
+import { projectMembers, projects, trajectories, users } from '../db/schema/index.ts';
+import { startRun } from '../services/analysis-runs.ts';
 import { hashPassword } from '../services/passwords.ts';
+import { registerUpload } from '../services/trajectories.ts';
+import { objectKeyFor } from '../services/upload-to-store.ts';
+import { DEMO_TRAJECTORIES, toExtxyzBytes } from './demo-trajectories.ts';
 import { DEMO_ACCOUNTS, DEMO_PROJECTS } from './scenario.ts';
 
 export interface SeededDemo {
   accounts: { role: string; email: string; password: string }[];
+  /** Resolves when the demo runs are uploaded and their analyses queued. */
+  ready: Promise<void>;
 }
 
 /**
- * Seeds the invented Larkspur Materials Lab once: its two accounts and two
- * projects. A second start finds the admin and leaves everything as it is.
+ * Seeds the invented Larkspur Materials Lab once: two accounts, two projects,
+ * trajectories simulated on the spot and analyses run by the real engine.
+ * A second start finds the admin and leaves everything as it is.
  */
 export async function seedDemo(ctx: AppContext, log: (m: string) => void): Promise<SeededDemo> {
   const accounts = DEMO_ACCOUNTS.map(({ role, email, password }) => ({ role, email, password }));
   const [existing] = await ctx.db.select({ id: users.id }).from(users).where(eq(users.email, DEMO_ACCOUNTS[0].email));
-  if (existing) return { accounts };
+  if (existing) return { accounts, ready: Promise.resolve() };
 
   log('seeding the demo lab…');
   const ids: number[] = [];
@@ -26,15 +34,45 @@ export async function seedDemo(ctx: AppContext, log: (m: string) => void): Promi
     }).$returningId();
     ids.push(row.id);
   }
-  const [steward, student] = ids;
+  const [steward, student] = ids as [number, number];
+  const projectIds = new Map<string, number>();
   for (const project of DEMO_PROJECTS) {
     const [row] = await ctx.db.insert(projects).values({
       name: project.name, description: project.description, createdBy: student, lastActivityAt: new Date(),
     }).$returningId();
+    projectIds.set(project.name, row.id);
     await ctx.db.insert(projectMembers).values([
       { projectId: row.id, userId: student, role: 'owner' },
       { projectId: row.id, userId: steward, role: 'viewer' },
     ]);
   }
-  return { accounts };
+  const ready = seedRuns(ctx, student, projectIds, log);
+  return { accounts, ready };
+}
+
+async function seedRuns(ctx: AppContext, userId: number, projectIds: Map<string, number>, log: (m: string) => void): Promise<void> {
+  for (const demo of DEMO_TRAJECTORIES) {
+    const projectId = projectIds.get(demo.project)!;
+    const bytes = await toExtxyzBytes(demo.simulate());
+    const objectKey = objectKeyFor(projectId, demo.fileName);
+    await ctx.store.putBytes(objectKey, bytes, 'text/plain');
+    const stored = { objectKey, sizeBytes: bytes.length, sha256: createHash('sha256').update(bytes).digest('hex') };
+    const trajectory = await registerUpload(ctx, projectId, userId, demo.fileName, stored, { ...demo.metadata, timeUnit: 'ps' });
+    const status = await waitUntilInspected(ctx, trajectory.id);
+    if (status !== 'ready') {
+      log(`demo trajectory ${demo.fileName} is ${status}; skipping its analyses`);
+      continue;
+    }
+    await startRun(ctx, trajectory.id, userId, demo.analyses, {});
+    log(`demo trajectory ${demo.fileName} uploaded; analyses queued`);
+  }
+}
+
+async function waitUntilInspected(ctx: AppContext, id: number, timeoutMs = 120_000): Promise<string> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const [row] = await ctx.db.select({ status: trajectories.status }).from(trajectories).where(eq(trajectories.id, id));
+    if (!row || row.status === 'ready' || row.status === 'failed' || Date.now() > deadline) return row?.status ?? 'deleted';
+    await new Promise((r) => setTimeout(r, 250));
+  }
 }

@@ -1,0 +1,56 @@
+import { eq, inArray } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analysisRuns, projects, reports, trajectories, users } from '../../server/db/schema/index.ts';
+import { seedDemo } from '../../server/demo/seed.ts';
+import { DEMO_ACCOUNTS, DEMO_PROJECTS } from '../../server/demo/scenario.ts';
+import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
+import { createTestApp } from '../support/test-app.ts';
+
+const testApp = createTestApp();
+const { ctx } = testApp;
+let worker: RunningWorker;
+
+beforeAll(async () => {
+  worker = await startWorker(testApp.config, ctx.log);
+});
+afterAll(async () => {
+  await worker.close();
+  await testApp.close();
+});
+
+describe('the demo lab seed', () => {
+  it('when seeded on an empty database, then the lab, its runs and engine-computed reports appear, and a second seed changes nothing', async () => {
+    const demo = await seedDemo(ctx, () => {});
+    expect(demo.accounts.map((a) => a.email)).toEqual(DEMO_ACCOUNTS.map((a) => a.email));
+    await demo.ready;
+
+    // Other test files share this database: look only at the lab's own rows.
+    const labProjects = await ctx.db.select().from(projects).where(inArray(projects.name, DEMO_PROJECTS.map((p) => p.name)));
+    const labIds = labProjects.map((p) => p.id);
+    const labRuns = () => ctx.db.select().from(analysisRuns).where(inArray(analysisRuns.projectId, labIds));
+    const deadline = Date.now() + 240_000;
+    let runs = await labRuns();
+    while (runs.some((r) => r.status === 'queued' || r.status === 'running') && Date.now() < deadline) {
+      await new Promise((r) => setTimeout(r, 500));
+      runs = await labRuns();
+    }
+    expect(runs.map((r) => [r.status, r.error])).toEqual(runs.map(() => ['done', null]));
+    expect(await ctx.db.select().from(trajectories).where(inArray(trajectories.projectId, labIds))).toHaveLength(4);
+
+    const byFile = new Map<string, (typeof reports.$inferSelect)>();
+    for (const r of await ctx.db.select({ r: reports, name: trajectories.name }).from(reports).innerJoin(trajectories, eq(trajectories.id, reports.trajectoryId)).where(inArray(reports.projectId, labIds))) {
+      byFile.set(r.name, r.r);
+    }
+    // The solid sits below the Lindemann threshold and the liquids above it
+    // (Lindemann criterion, ~0.1; COMMON PRACTICE), so the demo shows a melting signature.
+    const lindemannOf = (file: string) => (byFile.get(file)!.summary as { lindemann: { melted: boolean } }).lindemann.melted;
+    expect(lindemannOf('argon-like-40K-solid.extxyz')).toBe(false);
+    expect(lindemannOf('argon-like-90K-liquid.extxyz')).toBe(true);
+    expect(lindemannOf('argon-like-130K-hot-liquid.extxyz')).toBe(true);
+
+    const again = await seedDemo(ctx, () => {});
+    await again.ready;
+    expect(await ctx.db.select().from(users).where(inArray(users.email, DEMO_ACCOUNTS.map((a) => a.email)))).toHaveLength(2);
+    expect(await ctx.db.select().from(projects).where(inArray(projects.name, DEMO_PROJECTS.map((p) => p.name)))).toHaveLength(2);
+  }, 300_000);
+});
