@@ -1,0 +1,88 @@
+import { existsSync } from 'node:fs';
+import { writeFile } from 'node:fs/promises';
+import { parseArgs } from 'node:util';
+import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey } from '../../shared/analysis-params.ts';
+import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shared/trajectory.ts';
+import { analyzeFile } from './analyze-file.ts';
+import { printSummary } from './print-summary.ts';
+
+const USAGE = `Usage: ergodic analyze FILE [options]
+
+Runs Ergodic's analysis engine on a local trajectory (XYZ, extended XYZ, PDB,
+H5MD; plain, gzip or zip) and prints a summary, or writes the report JSON the
+web API serves.
+
+Options:
+  --analyses LIST      comma-separated, from: ${ANALYSIS_KEYS.join(', ')}
+                       (default: thermo,msd,vacf,vdos,rdf)
+  --dt-ps X            time between frames in ps, when the file states none
+  --temperature K      temperature for heat capacity (default: the kinetic temperature)
+  --length-unit U      ${LENGTH_UNITS.join(' | ')} (default angstrom)
+  --velocity-unit U    ${VELOCITY_UNITS.join(' | ')} (default angstrom/ps)
+  --time-unit U        unit of times written in the file: ${TIME_UNITS.join(' | ')} (default ps)
+  --boundary B         ${BOUNDARIES.join(' | ')} (default: periodic when the file has a cell)
+  --r-max A            g(r) range in Å
+  --json OUT           write the report JSON to OUT ("-" for standard output)
+  -h, --help           this text`;
+
+function oneOf<T extends string>(value: string | undefined, allowed: readonly T[], flag: string): T | undefined {
+  if (value === undefined) return undefined;
+  if (!allowed.includes(value as T)) throw new Error(`${flag} must be one of ${allowed.join(', ')} (got "${value}")`);
+  return value as T;
+}
+
+function positive(value: string | undefined, flag: string): number | undefined {
+  if (value === undefined) return undefined;
+  const n = Number(value);
+  if (!(n > 0) || !Number.isFinite(n)) throw new Error(`${flag} must be a positive number (got "${value}")`);
+  return n;
+}
+
+export async function main(argv: string[]): Promise<number> {
+  try {
+    const { values, positionals } = parseArgs({
+      args: argv, allowPositionals: true,
+      options: {
+        analyses: { type: 'string' }, 'dt-ps': { type: 'string' }, temperature: { type: 'string' },
+        'length-unit': { type: 'string' }, 'velocity-unit': { type: 'string' }, 'time-unit': { type: 'string' },
+        boundary: { type: 'string' }, 'r-max': { type: 'string' }, json: { type: 'string' }, help: { type: 'boolean', short: 'h' },
+      },
+    });
+    const [command, file, ...extra] = positionals;
+    if (values.help || !command) {
+      console.log(USAGE);
+      return values.help ? 0 : 2;
+    }
+    if (command !== 'analyze') throw new Error(`unknown command "${command}"; the command is "analyze"`);
+    if (!file) throw new Error('give the trajectory file: ergodic analyze FILE');
+    if (extra.length) throw new Error(`unexpected arguments: ${extra.join(' ')}`);
+    if (!existsSync(file)) throw new Error(`${file}: no such file`);
+    const analyses = (values.analyses ?? 'thermo,msd,vacf,vdos,rdf').split(',').map((k) => k.trim()).filter(Boolean).map((k) => {
+      const parsed = analysisKeySchema.safeParse(k);
+      if (!parsed.success) throw new Error(`unknown analysis "${k}"; choose from ${ANALYSIS_KEYS.join(', ')}`);
+      return parsed.data;
+    }) as AnalysisKey[];
+    const timeUnit = oneOf(values['time-unit'], TIME_UNITS, '--time-unit') ?? 'ps';
+    const dtPs = positive(values['dt-ps'], '--dt-ps');
+    const { report } = await analyzeFile(file, {
+      analyses,
+      params: { temperatureK: positive(values.temperature, '--temperature'), rMaxA: positive(values['r-max'], '--r-max') },
+      lengthUnit: oneOf(values['length-unit'], LENGTH_UNITS, '--length-unit') ?? 'angstrom',
+      velocityUnit: oneOf(values['velocity-unit'], VELOCITY_UNITS, '--velocity-unit') ?? 'angstrom/ps',
+      timeUnit: dtPs !== undefined ? 'ps' : timeUnit,
+      timeStep: dtPs,
+      boundary: oneOf(values.boundary, BOUNDARIES, '--boundary'),
+    });
+    const json = JSON.stringify(report, null, 2);
+    if (values.json === '-') process.stdout.write(json + '\n');
+    else {
+      if (values.json) await writeFile(values.json, json + '\n');
+      printSummary(report);
+      if (values.json) console.log(`\nReport JSON written to ${values.json}`);
+    }
+    return 0;
+  } catch (err) {
+    console.error(`ergodic: ${err instanceof Error ? err.message : String(err)}`);
+    return 1;
+  }
+}

@@ -1,0 +1,42 @@
+import type { LocalReport } from './analyze-file.ts';
+
+const format = (v: unknown): string =>
+  typeof v === 'number' ? (Number.isInteger(v) ? String(v) : Math.abs(v) >= 1e4 || (Math.abs(v) < 1e-3 && v !== 0) ? v.toExponential(4) : v.toPrecision(5))
+    : v === null || v === undefined ? '–' : String(v);
+
+/** Nested headline values as indented `name: value` lines. */
+function lines(value: unknown, indent: string, out: string[]): void {
+  if (Array.isArray(value)) {
+    value.forEach((item, i) => {
+      if (item !== null && typeof item === 'object') {
+        const label = (item as { label?: unknown }).label;
+        out.push(`${indent}${label !== undefined ? String(label) : `#${i + 1}`}:`);
+        lines(item, indent + '  ', out);
+      } else out.push(`${indent}- ${format(item)}`);
+    });
+    return;
+  }
+  for (const [key, v] of Object.entries(value as Record<string, unknown>)) {
+    if (key === 'label') continue;
+    if (v !== null && typeof v === 'object') {
+      out.push(`${indent}${key}:`);
+      lines(v, indent + '  ', out);
+    } else out.push(`${indent}${key}: ${format(v)}`);
+  }
+}
+
+export function printSummary(report: LocalReport): void {
+  const input = report.methods['input'] as { file: string; atoms: number; frames: number; format: string };
+  const out = [
+    `Ergodic ${report.engineVersion} — ${input.file} (${input.format}, ${input.atoms} atoms, ${input.frames} frames)`,
+    `sha256 ${report.inputSha256}`,
+  ];
+  for (const key of report.analyses) {
+    const summary = report.summary[key];
+    if (!summary) continue;
+    out.push('', `[${key}]`);
+    lines(summary, '  ', out);
+  }
+  out.push('', String(report.methods['caution'] ?? ''));
+  console.log(out.join('\n'));
+}
