@@ -21,7 +21,7 @@ export function trajectoryUpload(ctx: AppContext): RequestHandler {
         if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(badRequest(`Send the trajectory in a multipart field named "file" (got "${err.field}").`));
         return next(badRequest(`Upload refused: ${err.message}.`));
       }
-      next(err instanceof Error && /interrupted|too large|Unexpected end/i.test(err.message) ? badRequest(`Upload failed: ${err.message}.`) : err);
+      next(err instanceof Error && /interrupted|too large|Unexpected end|Request aborted/i.test(err.message) ? badRequest(`Upload failed: ${err.message}.`) : err);
     });
   };
 }

@@ -42,6 +42,15 @@ export class ApiClient {
     return res;
   }
 
+  /** A request with this caller's credentials, for multipart bodies and raw responses. */
+  raw(method: Method, path: string): request.Test {
+    const target = this.bearer ? request(this.app) : this.agent;
+    let req = target[method](path);
+    if (this.bearer) req = req.set('Authorization', `Bearer ${this.bearer}`);
+    else if (UNSAFE.has(method) && this.xsrf) req = req.set('X-XSRF-TOKEN', this.xsrf);
+    return req;
+  }
+
   get(path: string) { return this.send('get', path); }
   post(path: string, body?: unknown) { return this.send('post', path, body ?? {}); }
   patch(path: string, body?: unknown) { return this.send('patch', path, body ?? {}); }

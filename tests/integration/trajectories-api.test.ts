@@ -1,0 +1,195 @@
+import { ListObjectsV2Command } from '@aws-sdk/client-s3';
+import { request as httpRequest } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { gzipSync } from 'node:zlib';
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { trajectories } from '../../server/db/schema/index.ts';
+import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
+import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder.ts';
+import { ApiClient } from '../support/api-client.ts';
+import { signUp, type TestAccount } from '../support/accounts.ts';
+import { lennardJonesExtxyz } from '../support/fixtures.ts';
+import { createTestApp } from '../support/test-app.ts';
+
+const testApp = createTestApp({ UPLOAD_MAX_BYTES: String(4 * 1024 * 1024) });
+const { app, ctx } = testApp;
+let worker: RunningWorker;
+let owner: TestAccount;
+let script: ApiClient;
+let projectId: number;
+let liquid: Awaited<ReturnType<typeof lennardJonesExtxyz>>;
+
+async function objectKeysUnder(prefix: string): Promise<string[]> {
+  const out = await ctx.store.client.send(new ListObjectsV2Command({ Bucket: ctx.store.bucket, Prefix: prefix }));
+  return (out.Contents ?? []).map((o) => o.Key!);
+}
+
+async function waitUntilSettled(id: number) {
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    const res = await script.get(`/api/trajectories/${id}`);
+    if (!['uploading', 'inspecting'].includes(res.body.status) || Date.now() > deadline) return res.body;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+function upload(client: ApiClient | null, bytes: Buffer, name: string, fields: Record<string, string> = {}) {
+  const request = (client ?? script).raw('post', `/api/projects/${projectId}/trajectories`);
+  for (const [k, v] of Object.entries(fields)) request.field(k, v);
+  return request.attach('file', bytes, name);
+}
+
+beforeAll(async () => {
+  worker = await startWorker(testApp.config, ctx.log);
+  owner = await signUp(app, 'uploader');
+  const created = await owner.client.post('/api/projects', { name: 'Ingest tests' });
+  projectId = created.body.project.id;
+  const token = await owner.client.post('/api/tokens', { name: 'cluster' });
+  script = ApiClient.withToken(app, token.body.token.token);
+  liquid = await lennardJonesExtxyz({ productionSteps: 600 });
+});
+afterAll(async () => {
+  await worker.close();
+  await testApp.close();
+});
+
+describe('POST /api/projects/:id/trajectories (upload)', () => {
+  it('when a script uploads a gzip-compressed extended XYZ with a bearer token, then it is stored, checksummed and inspected to ready', async () => {
+    const gz = gzipSync(liquid.bytes);
+    const res = await upload(null, gz, 'run.extxyz.gz', { temperatureK: '86.5', ensemble: 'NVE', potential: 'LJ 12-6' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.sizeBytes).toBe(gz.length);
+    expect(res.body.sha256).toMatch(/^[0-9a-f]{64}$/);
+    const ready = await waitUntilSettled(res.body.id);
+    expect(ready.error).toBeNull();
+    expect(ready).toMatchObject({
+      status: 'ready', format: 'extxyz', compression: 'gzip', atoms: liquid.run.trajectory.nAtoms,
+      frames: liquid.run.trajectory.nFrames, hasVelocities: true, temperatureK: 86.5, ensemble: 'NVE', potential: 'LJ 12-6',
+    });
+    expect(ready.fromFile).toContain('timeStep');
+  });
+
+  it('when a metadata field is wrong, then the upload is refused naming the field, and no object is left behind', async () => {
+    const before = await objectKeysUnder(`projects/${projectId}/`);
+    const res = await upload(null, liquid.bytes, 'bad-meta.extxyz', { ensemble: 'NXT' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/ensemble/);
+    expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
+  });
+
+  it('when the file is larger than the upload limit, then it answers 413 with the limit and keeps no object or row', async () => {
+    const before = await objectKeysUnder(`projects/${projectId}/`);
+    const rowsBefore = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
+    const res = await upload(null, Buffer.alloc(5 * 1024 * 1024, 65), 'huge.xyz');
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toMatch(/4 MiB/);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
+    expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
+  });
+
+  it('when the connection drops mid-upload, then no trajectory row and no object remain', async () => {
+    const server = app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const port = (server.address() as AddressInfo).port;
+    const token = (await owner.client.post('/api/tokens', { name: 'flaky' })).body.token.token as string;
+    const before = await objectKeysUnder(`projects/${projectId}/`);
+    const rowsBefore = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
+    await new Promise<void>((resolve) => {
+      const boundary = 'ergodic-test-boundary';
+      const req = httpRequest({
+        host: '127.0.0.1', port, method: 'POST', path: `/api/projects/${projectId}/trajectories`,
+        headers: { authorization: `Bearer ${token}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': String(3 * 1024 * 1024) },
+      });
+      req.on('error', () => resolve());
+      req.write(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="cut-off.xyz"\r\nContent-Type: text/plain\r\n\r\n`);
+      req.write(Buffer.alloc(1024 * 1024, 65), () => setTimeout(() => { req.destroy(); resolve(); }, 200));
+    });
+    await new Promise((r) => setTimeout(r, 1500));
+    server.close();
+    expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
+    expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
+  });
+
+  it('when there is no file part, then it says to send the trajectory in a field named "file"', async () => {
+    const res = await script.raw('post', `/api/projects/${projectId}/trajectories`).field('name', 'x');
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/field named "file"/);
+  });
+
+  it('when the file is malformed, then that trajectory fails with file, frame and line, and the project keeps its other trajectories', async () => {
+    const res = await upload(null, Buffer.from('3\nframe one\nAr 0 0 0\nAr 1 1 1\nAr 2 2 2\n3\nframe two\nAr 0 0 0\nAr 1 1 1\n'), 'short.xyz');
+    expect(res.status).toBe(201);
+    const failed = await waitUntilSettled(res.body.id);
+    expect(failed.status).toBe('failed');
+    expect(failed.error).toMatch(/short\.xyz.*frame 2/);
+    const list = await script.get(`/api/projects/${projectId}/trajectories`);
+    expect(list.body.filter((t: { status: string }) => t.status === 'ready').length).toBeGreaterThan(0);
+  });
+});
+
+describe('trajectory metadata, frames and cuts', () => {
+  let id: number;
+  beforeAll(async () => {
+    const res = await upload(null, liquid.bytes, 'liquid.extxyz');
+    id = (await waitUntilSettled(res.body.id)).id;
+  });
+
+  it('when the uploader corrects the time step, then it is stored and no longer marked as read from the file', async () => {
+    const res = await script.patch(`/api/trajectories/${id}`, { timeStep: 0.02, timeUnit: 'ps', notes: 'checked' });
+    expect(res.status).toBe(200);
+    expect(res.body.timeStep).toBe(0.02);
+    expect(res.body.fromFile).not.toContain('timeStep');
+  });
+
+  it('when metadata values are out of range, then every bad field is named', async () => {
+    const res = await script.patch(`/api/trajectories/${id}`, { temperatureK: -5, lengthUnit: 'furlong' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/temperatureK/);
+    expect(res.body.error.message).toMatch(/lengthUnit/);
+  });
+
+  it('when the viewer asks for a late frame range, then the positions are exactly those of the file, in Å', async () => {
+    const traj = liquid.run.trajectory;
+    const res = await script.raw('get', `/api/trajectories/${id}/frames?from=40&to=46&stride=2`).buffer(true)
+      .parse((response, done) => { const chunks: Buffer[] = []; response.on('data', (c: Buffer) => chunks.push(c)); response.on('end', () => done(null, Buffer.concat(chunks))); });
+    expect(res.status).toBe(200);
+    const body = res.body as Buffer;
+    // The browser's own decoder reads what the server wrote.
+    const decoded = decodeFramesPayload(body.buffer.slice(body.byteOffset, body.byteOffset + body.byteLength) as ArrayBuffer);
+    expect(decoded.frames.map((f) => f.index)).toEqual([40, 42, 44]);
+    expect(decoded.atoms).toBe(traj.nAtoms);
+    const n3 = traj.nAtoms * 3;
+    for (let k = 0; k < 3; k++) {
+      const expected = traj.positions.subarray((40 + 2 * k) * n3, (41 + 2 * k) * n3);
+      const got = decoded.frames[k]!.positions;
+      // The file holds decimal text; Float32 round trip to 1e-4 Å is ample for a viewer.
+      for (let i = 0; i < n3; i += 37) expect(got[i]).toBeCloseTo(expected[i]!, 3);
+    }
+  });
+
+  it('when a range starts past the last frame, then it says how many frames there are', async () => {
+    const res = await script.get(`/api/trajectories/${id}/frames?from=100000`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/has \d+ frames/);
+  });
+
+  it('when a cut is downloaded, then it is extended XYZ with exactly the asked frames', async () => {
+    const res = await script.raw('get', `/api/trajectories/${id}/cut?from=3&to=6`).buffer(true);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-disposition']).toMatch(/liquid-frames-3\.extxyz/);
+    const text = res.text;
+    const headers = text.split('\n').filter((l: string) => l.includes('Lattice='));
+    expect(headers).toHaveLength(3);
+    expect(headers[0]).toMatch(/Properties=species:S:1:pos:R:3/);
+  });
+
+  it('when the trajectory is deleted, then its row and stored objects are gone', async () => {
+    const row = (await ctx.db.select().from(trajectories).where(eq(trajectories.id, id)))[0]!;
+    const res = await script.send('delete', `/api/trajectories/${id}`);
+    expect(res.status).toBe(204);
+    expect(await ctx.db.select().from(trajectories).where(eq(trajectories.id, id))).toHaveLength(0);
+    expect(await objectKeysUnder(row.objectKey)).toEqual([]);
+  });
+});
