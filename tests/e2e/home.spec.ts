@@ -12,7 +12,8 @@ test('when a visitor opens the home page, then Ergodic loads and no request leav
 
   await expect(page).toHaveTitle(/Ergodic/);
   await expect(page.getByRole('link', { name: 'Ergodic home' })).toBeVisible();
-  await expect(page.getByRole('heading', { name: 'Projects', level: 1 })).toBeVisible();
+  // Visitors land on sign-in: every project page needs an account.
+  await expect(page.getByRole('heading', { name: 'Sign in', level: 1 })).toBeVisible();
   // The shipped icon font and Noto Sans must load from our own origin.
   await page.evaluate(() => document.fonts.ready);
   const fonts = await page.evaluate(() => [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family));

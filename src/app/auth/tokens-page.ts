@@ -1,8 +1,8 @@
 import { Clipboard } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -86,6 +86,7 @@ export default class TokensPage {
 
   protected readonly tokens = httpResource<{ tokens: ApiToken[] }>(() => '/api/tokens');
   protected readonly columns = ['name', 'prefix', 'created', 'used', 'actions'];
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly busy = signal(false);
   protected readonly error = signal('');
   protected readonly created = signal<NewApiToken | null>(null);
@@ -106,7 +107,8 @@ export default class TokensPage {
     try {
       this.created.set(await firstValueFrom(this.api.create(this.form.getRawValue().name)));
       this.copied.set(false);
-      this.form.reset();
+      // Resetting through the directive also clears "submitted", so the empty field shows no error.
+      this.formDirective().resetForm();
       this.tokens.reload();
     } catch (err) {
       this.error.set(apiErrorMessage(err));

@@ -17,9 +17,9 @@ import type { AuditEntry } from './project-types';
     } @else if (entries().length === 0) {
       <p class="muted">{{ audit.isLoading() ? 'Loading…' : 'Nothing recorded yet.' }}</p>
     } @else {
-      <mat-list aria-label="Audit log">
+      <mat-list role="list" aria-label="Audit log">
         @for (entry of entries(); track entry.id) {
-          <mat-list-item>
+          <mat-list-item role="listitem">
             <span matListItemTitle>{{ entry.actor?.displayName ?? 'Someone' }} {{ describe(entry) }}</span>
             <span matListItemLine class="muted">{{ entry.createdAt | date: 'medium' }}</span>
           </mat-list-item>

@@ -1,7 +1,7 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -41,9 +41,9 @@ import { ProjectsApi } from './projects-api';
     @if (pending().length === 0) {
       <p class="muted">None waiting.</p>
     } @else {
-      <mat-list aria-label="Pending invitations">
+      <mat-list role="list" aria-label="Pending invitations">
         @for (inv of pending(); track inv.id) {
-          <mat-list-item>
+          <mat-list-item role="listitem">
             <span matListItemTitle>{{ inv.email }} · {{ inv.role | titlecase }}</span>
             <span matListItemLine class="muted">Invited by {{ inv.invitedBy }}; expires {{ inv.expiresAt | date: 'medium' }}</span>
             <button matListItemMeta mat-button type="button" (click)="revoke(inv)" [attr.aria-label]="'Withdraw invitation to ' + inv.email">Withdraw</button>
@@ -66,6 +66,7 @@ export class InvitationsPanel {
   protected readonly meaning = ROLE_MEANING;
   protected readonly invitations = httpResource<{ invitations: PendingInvitation[] }>(() => `/api/projects/${this.projectId()}/invitations`);
   protected readonly pending = computed(() => this.invitations.value()?.invitations ?? []);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly busy = signal(false);
   protected readonly error = signal('');
   protected readonly sent = signal('');
@@ -86,7 +87,8 @@ export class InvitationsPanel {
       const { email, role } = this.form.getRawValue();
       const invitation = await firstValueFrom(this.api.invite(this.projectId(), email.trim(), role));
       this.sent.set(`Invitation sent to ${invitation.email}.`);
-      this.form.reset({ email: '', role });
+      // Resetting through the directive also clears "submitted", so the empty field shows no error.
+      this.formDirective().resetForm({ email: '', role });
       this.invitations.reload();
     } catch (err) {
       this.error.set(apiErrorMessage(err));
