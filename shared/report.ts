@@ -1,3 +1,5 @@
+import type { ReportSummary } from './report-summary.ts';
+
 /** A report as the API returns it: what was run, on what, with which result. */
 export interface ReportDto {
   id: number;
@@ -8,8 +10,8 @@ export interface ReportDto {
   title: string;
   analyses: string[];
   params: Record<string, unknown>;
-  /** Headline numbers per analysis key. */
-  summary: Record<string, Record<string, number | string | boolean | null>>;
+  /** Headline numbers, one typed block per analysis that ran. */
+  summary: ReportSummary;
   /** Methods actually used, per analysis key, plus `caution` and `input` (file, checksum, units). */
   methods: Record<string, unknown>;
   engineVersion: string;

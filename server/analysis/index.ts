@@ -4,12 +4,13 @@
  * the methods actually used (so a result can always be reproduced).
  */
 import { ANALYSIS_KEYS, analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
+import type { ReportSummary } from '../../shared/report-summary.ts';
 import { SIMULATION_CAUTION } from '../../shared/simulation-caution.ts';
 import { lindemann } from './lindemann.ts';
 import { msd } from './msd.ts';
 import { ngp } from './ngp.ts';
 import { rdf, type RdfResult } from './rdf.ts';
-import { sqFromRdf } from './sq.ts';
+import { sqFromRdf, type SqResult } from './sq.ts';
 import { thermo } from './thermo.ts';
 import type { Trajectory } from './trajectory.ts';
 import { vacf, type VacfResult } from './vacf.ts';
@@ -26,10 +27,8 @@ export interface Curve {
   data: Float64Array[];
 }
 
-export type Headline = Record<string, number | string | boolean | null>;
-
 export interface AnalysisRun {
-  summary: Partial<Record<AnalysisKey, Headline>>;
+  summary: ReportSummary;
   curves: Record<string, Curve>;
   methods: Partial<Record<AnalysisKey, Record<string, unknown>>> & { params: AnalysisParams };
   caution: string;
@@ -55,10 +54,9 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
       case 'thermo': {
         const r = thermo(traj, { degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, masses }, progress);
         run.summary.thermo = {
-          temperatureK: r.temperature.mean,
-          temperatureStdErrorK: r.temperature.stdError,
-          densityGPerCm3: r.density?.mean ?? null,
-          densityStdErrorGPerCm3: r.density?.stdError ?? null,
+          temperatureK: { mean: r.temperature.mean, stdError: r.temperature.stdError },
+          densityGPerCm3: r.density ? { mean: r.density.mean, stdError: r.density.stdError } : null,
+          degreesOfFreedom: r.degreesOfFreedom,
           equilibrated: r.equilibration.equilibrated,
         };
         const cols: [string, string, Float64Array][] = [
@@ -73,15 +71,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
       }
       case 'msd': {
         const r = msd(traj, { species, masses, components: params.components, maxLagPs: params.maxLagPs, fitWindowPs: manual(params.fitWindow), removeComDrift: params.removeComDrift }, progress);
-        const s: Headline = {};
-        for (const g of r.groups) {
-          s[`${g.label}.regime`] = g.diffusion.regime;
-          s[`${g.label}.D_1e-9m2/s`] = g.diffusion.d?.e9M2PerS ?? null;
-          s[`${g.label}.Derr_1e-9m2/s`] = g.diffusion.dStdError?.e9M2PerS ?? null;
-          s[`${g.label}.slopeExponent`] = g.diffusion.slopeExponent;
-          s[`${g.label}.plateau_A2`] = g.diffusion.plateauA2;
-        }
-        run.summary.msd = s;
+        run.summary.msd = {
+          dimensions: r.dimensions,
+          groups: r.groups.map(({ label, nAtoms, diffusion: f }) => ({
+            label, atoms: nAtoms, regime: f.regime, d: f.d, dStdError: f.dStdError, uncertaintyMethod: f.uncertaintyMethod,
+            slopeExponent: f.slopeExponent, fitWindowPs: { start: f.window.startPs, end: f.window.endPs, source: f.window.source }, plateauA2: f.plateauA2,
+          })),
+        };
         run.curves.msd = curve([['lag', 'ps', r.lagPs], ...r.groups.map((g): [string, string, Float64Array] => [`MSD ${g.label}`, 'Å²', g.msdA2])]);
         run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod })) };
         break;
@@ -91,13 +87,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         vacfCache ??= vacf(traj, vacfOptions, progress);
         const v = vacfCache;
         if (key === 'vacf') {
-          const s: Headline = {};
-          for (const g of v.groups) {
-            s[`${g.label}.D_GK_1e-9m2/s`] = g.greenKubo.d.e9M2PerS;
-            s[`${g.label}.D_GK_spread_1e-9m2/s`] = g.greenKubo.dSpread.e9M2PerS;
-            s[`${g.label}.converged`] = g.greenKubo.converged;
-          }
-          run.summary.vacf = s;
+          run.summary.vacf = {
+            velocitySource: v.velocitySource,
+            groups: v.groups.map(({ label, nAtoms, greenKubo: gk }) => ({
+              label, atoms: nAtoms, dGreenKubo: gk.d, spread: gk.dSpread, converged: gk.converged,
+              plateauWindowPs: { start: gk.window.startPs, end: gk.window.endPs, source: gk.window.source },
+            })),
+          };
           run.curves.vacf = curve([
             ['lag', 'ps', v.lagPs],
             ...v.groups.flatMap((g): [string, string, Float64Array][] => [
@@ -110,21 +106,17 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         } else {
           const r = vdosFromVacf(v, traj, { window: params.window, zeroPadFactor: params.zeroPadFactor, degreesOfFreedom: params.degreesOfFreedom, thermoTemperatureK: params.temperatureK });
           const all = r.groups[0];
-          const s: Headline = { temperatureK: r.thermo.temperatureK };
-          all.peaks.slice(0, 5).forEach((p, i) => {
-            s[`peak${i + 1}_cm-1`] = p.cm1;
-            s[`peak${i + 1}_fwhm_cm-1`] = p.fwhmCm1;
-          });
-          Object.assign(s, {
-            cv_quantum_kB_per_atom: r.thermo.quantum.cvPerAtomKB,
-            cv_classical_kB_per_atom: r.thermo.classical.cvPerAtomKB,
-            cv_quantum_J_per_molK: r.thermo.quantum.cvJPerMolK,
-            cv_quantum_J_per_gK: r.thermo.quantum.cvJPerGK,
-            entropy_quantum_kB_per_atom: r.thermo.quantum.entropyPerAtomKB,
-            entropy_classical_kB_per_atom: r.thermo.classical.entropyPerAtomKB,
-            zpe_eV_per_atom: r.thermo.quantum.zeroPointPerAtomEV,
-          });
-          run.summary.vdos = s;
+          const { quantum, classical } = r.thermo;
+          const cv = (h: typeof quantum) => ({ perAtomKB: h.cvPerAtomKB, jPerMolK: h.cvJPerMolK, jPerGK: h.cvJPerGK });
+          const entropy = (h: typeof quantum) => ({ perAtomKB: h.entropyPerAtomKB, jPerMolK: h.entropyJPerMolK });
+          run.summary.vdos = {
+            temperatureK: r.thermo.temperatureK,
+            peaks: all.peaks.slice(0, 5).map((p) => ({ thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1 })),
+            cv: { quantum: cv(quantum), classical: cv(classical) },
+            entropy: { quantum: entropy(quantum), classical: entropy(classical) },
+            zeroPoint: { evPerAtom: quantum.zeroPointPerAtomEV, kJPerMol: quantum.zeroPointKJPerMol },
+            modes: r.thermo.modes,
+          };
           run.curves.vdos = curve([
             ['frequency', 'THz', r.freqTHz],
             ['wavenumber', 'cm⁻¹', r.freqCm1],
@@ -140,14 +132,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         rdfCache ??= rdf(traj, rdfOptions, progress);
         const r = rdfCache;
         if (key === 'rdf') {
-          const s: Headline = {};
-          for (const p of [r.total, ...r.pairs]) {
-            s[`${p.label}.firstPeak_A`] = p.firstPeak?.rA ?? null;
-            s[`${p.label}.firstPeak_g`] = p.firstPeak?.g ?? null;
-            s[`${p.label}.firstMinimum_A`] = p.firstMinimum?.rA ?? null;
-            s[`${p.label}.coordination`] = p.firstMinimum?.coordination ?? null;
-          }
-          run.summary.rdf = s;
+          run.summary.rdf = {
+            pairs: [r.total, ...r.pairs].map((p) => ({
+              label: p.label,
+              firstPeak: p.firstPeak ? { rA: p.firstPeak.rA, g: p.firstPeak.g } : null,
+              firstMinimum: p.firstMinimum ? { rA: p.firstMinimum.rA, coordination: p.firstMinimum.coordination } : null,
+            })),
+          };
           run.curves.rdf = curve([
             ['r', 'Å', r.rA],
             ...[r.total, ...r.pairs].flatMap((p): [string, string, Float64Array][] => [
@@ -158,9 +149,7 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
           run.methods.rdf = { rMaxA: r.rMaxA, binWidthA: r.binWidthA, framesUsed: r.framesUsed, method: r.method, normalisation: r.normalisation };
         } else {
           const q = sqFromRdf(r, { sqWindow: params.sqWindow, qMaxInvA: params.qMaxInvA });
-          let peak = 0;
-          for (let i = 0; i < q.s.length; i++) if (q.qInvA[i] >= q.qReliableFromInvA && (peak === 0 || q.s[i] > q.s[peak])) peak = i;
-          run.summary.sq = { firstPeak_invA: q.qInvA[peak] ?? null, firstPeak_S: q.s[peak] ?? null };
+          run.summary.sq = { firstPeak: highestReliablePeak(q) };
           run.curves.sq = curve([['q', 'Å⁻¹', q.qInvA], ['S(q)', '1', q.s]]);
           run.methods.sq = { window: q.window, qReliableFromInvA: q.qReliableFromInvA, rMaxA: r.rMaxA };
         }
@@ -184,6 +173,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
     onProgress?.((index + 1) / wanted.length);
   });
   return run;
+}
+
+/** The main peak of S(q) above the q where the finite r_max stops dominating. */
+function highestReliablePeak(q: SqResult): { qInvA: number; s: number } | null {
+  let peak = -1;
+  for (let i = 0; i < q.s.length; i++) if (q.qInvA[i] >= q.qReliableFromInvA && (peak < 0 || q.s[i] > q.s[peak])) peak = i;
+  return peak < 0 ? null : { qInvA: q.qInvA[peak], s: q.s[peak] };
 }
 
 function curve(columns: [string, string, Float64Array][]): Curve {

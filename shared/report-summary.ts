@@ -1,0 +1,133 @@
+/**
+ * Headline numbers of a report, one typed block per analysis. The engine
+ * writes them, the API stores and serves them, the report page reads them:
+ * every quantity carries its unit in its field name.
+ */
+
+/** A diffusion coefficient in the three units the product reports. */
+export interface DiffusionValue {
+  a2PerPs: number;
+  e9M2PerS: number;
+  cm2PerS: number;
+}
+
+export type MotionRegime = 'diffusive' | 'subdiffusive' | 'superdiffusive' | 'bounded' | 'too-short';
+
+export interface MsdGroupSummary {
+  /** "all" or a species label. */
+  label: string;
+  atoms: number;
+  regime: MotionRegime;
+  /** Einstein D; null when the motion is bounded or the run too short for the automatic window. */
+  d: DiffusionValue | null;
+  dStdError: DiffusionValue | null;
+  uncertaintyMethod: 'atom-blocks' | 'fit-residuals' | 'none';
+  /** Log–log slope of the MSD over the fit window (1 diffusive, 2 ballistic, 0 bounded). */
+  slopeExponent: number;
+  fitWindowPs: { start: number; end: number; source: 'auto' | 'manual' };
+  /** Mean MSD over the late window when bounded, Å². */
+  plateauA2: number | null;
+}
+
+export interface MsdSummary {
+  dimensions: number;
+  groups: MsdGroupSummary[];
+}
+
+export interface VacfGroupSummary {
+  label: string;
+  atoms: number;
+  /** D = (1/d)∫⟨v(0)·v(t)⟩dt over the plateau of the running integral. */
+  dGreenKubo: DiffusionValue;
+  /** Spread of the running integral over the plateau window. */
+  spread: DiffusionValue;
+  converged: boolean;
+  plateauWindowPs: { start: number; end: number; source: 'auto' | 'manual' };
+}
+
+export interface VacfSummary {
+  velocitySource: 'stored-velocities' | 'central-differences';
+  groups: VacfGroupSummary[];
+}
+
+export interface VdosPeakSummary {
+  thz: number;
+  cm1: number;
+  meV: number;
+  fwhmCm1: number;
+}
+
+/** Harmonic heat capacity, entropy or zero-point energy in the units a reader looks for. */
+export interface HeatCapacityValue {
+  perAtomKB: number;
+  jPerMolK: number;
+  jPerGK: number;
+}
+
+export interface EntropyValue {
+  perAtomKB: number;
+  jPerMolK: number;
+}
+
+export interface VdosSummary {
+  /** Temperature the harmonic weights were evaluated at, K. */
+  temperatureK: number;
+  /** Largest peaks of the "all" group, by height. */
+  peaks: VdosPeakSummary[];
+  cv: { quantum: HeatCapacityValue; classical: HeatCapacityValue };
+  entropy: { quantum: EntropyValue; classical: EntropyValue };
+  zeroPoint: { evPerAtom: number; kJPerMol: number };
+  /** Modes the spectrum is normalised to (degrees of freedom). */
+  modes: number;
+}
+
+export interface RdfPairSummary {
+  /** "all" (every pair of atoms) or a species pair such as "Ar-Ar". */
+  label: string;
+  firstPeak: { rA: number; g: number } | null;
+  firstMinimum: { rA: number; coordination: number } | null;
+}
+
+export interface RdfSummary {
+  pairs: RdfPairSummary[];
+}
+
+export interface MeanWithError {
+  mean: number;
+  stdError: number;
+}
+
+export interface ThermoSummary {
+  temperatureK: MeanWithError;
+  /** Null without a periodic cell. */
+  densityGPerCm3: MeanWithError | null;
+  degreesOfFreedom: number;
+  equilibrated: boolean;
+}
+
+export interface LindemannSummary {
+  index: number;
+  threshold: number;
+  melted: boolean;
+  displacementRatio: number;
+}
+
+export interface NgpSummary {
+  peakLagPs: number | null;
+  peakAlpha2: number | null;
+}
+
+export interface SqSummary {
+  firstPeak: { qInvA: number; s: number } | null;
+}
+
+export interface ReportSummary {
+  thermo?: ThermoSummary;
+  msd?: MsdSummary;
+  vacf?: VacfSummary;
+  vdos?: VdosSummary;
+  rdf?: RdfSummary;
+  lindemann?: LindemannSummary;
+  ngp?: NgpSummary;
+  sq?: SqSummary;
+}
