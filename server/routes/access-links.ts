@@ -2,7 +2,9 @@ import { z } from 'zod';
 import { currentUser } from '../auth/authorize.ts';
 import type { AppContext } from '../context.ts';
 import { createAccessLink, listAccessLinks, resolveAccessLink, revokeAccessLink } from '../services/access-links.ts';
+import { getReport } from '../services/reports.ts';
 import { ACCESS_LINK_MAX_DAYS } from '../../shared/account-rules.ts';
+import { curveField, sendCurveCsv } from './curve-csv.ts';
 import { appOrigin, body, idField, params, tokenField } from './request-parts.ts';
 import type { RouteDef } from './route-table.ts';
 
@@ -42,7 +44,16 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/links/:token', access: { kind: 'public' },
       handler: async (req, res) => {
         const { token } = params(req, { token: tokenField });
-        res.json(await resolveAccessLink(ctx.db, token));
+        const link = await resolveAccessLink(ctx.db, token);
+        res.json({ report: await getReport(ctx, link.reportId), expiresAt: link.expiresAt });
+      },
+    },
+    {
+      method: 'get', path: '/links/:token/curves/:curve.csv', access: { kind: 'public' },
+      handler: async (req, res) => {
+        const { token, curve } = params(req, { token: tokenField, curve: curveField });
+        const link = await resolveAccessLink(ctx.db, token);
+        await sendCurveCsv(ctx, res, link.reportId, curve);
       },
     },
   ];

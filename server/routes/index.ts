@@ -4,6 +4,7 @@ import { identityMiddleware } from '../auth/identity.ts';
 import type { AppContext } from '../context.ts';
 import { accessLinkRoutes } from './access-links.ts';
 import { adminRoutes } from './admin.ts';
+import { analysisRoutes } from './analyses.ts';
 import { auditRoutes } from './audit.ts';
 import { authRoutes } from './auth.ts';
 import { commentRoutes } from './comments.ts';
@@ -11,9 +12,11 @@ import { healthRoutes } from './health.ts';
 import { invitationRoutes } from './invitations.ts';
 import { memberRoutes } from './members.ts';
 import { projectRoutes } from './projects.ts';
+import { reportRoutes } from './reports.ts';
 import type { RouteDef } from './route-table.ts';
 import { markGuard, markSharedMiddleware } from './stack-marks.ts';
 import { tokenRoutes } from './tokens.ts';
+import { trajectoryRoutes } from './trajectories.ts';
 
 /** Every API route, each with its access rule; the authorization matrix test reads this. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -25,6 +28,9 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...memberRoutes(ctx),
     ...invitationRoutes(ctx),
     ...auditRoutes(ctx),
+    ...trajectoryRoutes(ctx),
+    ...analysisRoutes(ctx),
+    ...reportRoutes(ctx),
     ...accessLinkRoutes(ctx),
     ...commentRoutes(ctx),
     ...adminRoutes(ctx),

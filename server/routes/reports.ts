@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import type { AppContext } from '../context.ts';
-import { getCurveCsv, getReport, listReports } from '../services/reports.ts';
+import { getReport, listReports } from '../services/reports.ts';
+import { curveField, sendCurveCsv } from './curve-csv.ts';
 import { idParams, idSchema } from './params.ts';
 import type { RouteDef } from './route-table.ts';
 
-const curveParams = z.object({ id: idSchema, curve: z.string().min(1).max(64) });
+const curveParams = z.object({ id: idSchema, curve: curveField });
 
 export function reportRoutes(ctx: AppContext): RouteDef[] {
   return [
@@ -32,10 +33,7 @@ export function reportRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/reports/:id/curves/:curve.csv', access: { kind: 'project', role: 'viewer', via: 'report' },
       handler: async (req, res) => {
         const { id, curve } = curveParams.parse(req.params);
-        const csv = await getCurveCsv(ctx, id, curve);
-        res.type('text/csv; charset=utf-8');
-        res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${id}-${curve.replace(/[^\w-]+/g, '_')}.csv"`);
-        res.send(csv);
+        await sendCurveCsv(ctx, res, id, curve);
       },
     },
   ];

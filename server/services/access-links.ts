@@ -4,7 +4,6 @@ import type { Database } from '../db/client.ts';
 import { accessLinks, reports, users } from '../db/schema/index.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
-import { getReportForReader, type ReaderReport } from './report-reader.ts';
 
 export interface AccessLinkView {
   id: number;
@@ -46,10 +45,10 @@ export async function revokeAccessLink(db: Database, reportId: number, actorId: 
  * The report a valid link points at. Unknown, expired and revoked tokens all
  * answer the same 404, so a guessed token learns nothing.
  */
-export async function resolveAccessLink(db: Database, token: string, now = new Date()): Promise<{ report: ReaderReport; expiresAt: Date }> {
+export async function resolveAccessLink(db: Database, token: string, now = new Date()): Promise<{ reportId: number; expiresAt: Date }> {
   const [link] = await db.select().from(accessLinks)
     .where(and(eq(accessLinks.tokenHash, sha256Hex(token)), isNull(accessLinks.revokedAt), gt(accessLinks.expiresAt, now)));
   if (!link) throw notFound('Access link');
   await db.update(accessLinks).set({ lastUsedAt: now }).where(eq(accessLinks.id, link.id));
-  return { report: await getReportForReader(db, link.reportId), expiresAt: link.expiresAt };
+  return { reportId: link.reportId, expiresAt: link.expiresAt };
 }

@@ -86,7 +86,7 @@ async function createWorld(): Promise<World> {
   await ctx.db.insert(projectMembers).values([
     { projectId, userId: owner.id, role: 'owner' }, { projectId, userId: editor.id, role: 'editor' }, { projectId, userId: viewer.id, role: 'viewer' },
   ]);
-  const fixture = await insertReportFixture(ctx.db, projectId, owner.id);
+  const fixture = await insertReportFixture(ctx, projectId, owner.id);
   const linkToken = `matrix-link-${randomUUID()}`;
   const [{ id: linkId }] = await ctx.db.insert(accessLinks).values({
     projectId, reportId: fixture.reportId, tokenHash: sha256Hex(linkToken), createdBy: owner.id, expiresAt: new Date(Date.now() + 86_400_000),
@@ -104,7 +104,7 @@ async function createWorld(): Promise<World> {
   };
   const named: Record<string, string> = {
     token: linkToken, invitationToken, linkId: String(linkId), invitationId: String(invitationId), tokenId: String(tokenId),
-    userId: String(editor.id),
+    userId: String(editor.id), curve: 'msd',
   };
   for (const [kind, id] of Object.entries(ids)) named[`${kind}Id`] = String(id);
   return { ids, named };
