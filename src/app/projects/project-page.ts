@@ -6,15 +6,16 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
+import { ProjectTrajectories } from '../trajectories/project-trajectories';
 import type { ProjectSummary } from './project-types';
 
 /**
- * A project's home: its header, then its trajectories. The header is done;
- * the `project-trajectories` section is where the trajectories table goes.
+ * A project's home: its header, then its trajectories (upload, table,
+ * analyses in progress).
  */
 @Component({
   selector: 'erg-project-page',
-  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule],
+  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule, ProjectTrajectories],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page">
@@ -38,7 +39,7 @@ import type { ProjectSummary } from './project-types';
         </header>
         <section class="project-trajectories" aria-labelledby="trajectories-heading">
           <h2 id="trajectories-heading">Trajectories</h2>
-          <p class="muted">Trajectories arrive here.</p>
+          <erg-project-trajectories [projectId]="p.id" [canEdit]="canEditSettings()" />
         </section>
       }
     </section>

@@ -1,0 +1,34 @@
+import type { AnalysisKey } from '../../../shared/analysis-params';
+import type { TrajectoryDto } from '../../../shared/trajectory';
+
+export interface AnalysisChoice {
+  key: AnalysisKey;
+  title: string;
+  description: string;
+}
+
+/** The checklist, in the order a scientist reads a report. */
+export const ANALYSIS_CHOICES: AnalysisChoice[] = [
+  { key: 'thermo', title: 'Temperature and density', description: 'Kinetic temperature by equipartition, density, block-averaged errors, equilibration check.' },
+  { key: 'msd', title: 'MSD and diffusion', description: 'Mean-square displacement over all time origins; D from the Einstein relation with an uncertainty.' },
+  { key: 'vacf', title: 'Velocity autocorrelation', description: 'VACF and the running Green–Kubo integral for D.' },
+  { key: 'vdos', title: 'Vibrational density of states', description: 'Spectrum of the mass-weighted VACF, peaks, heat capacity, entropy and zero-point energy.' },
+  { key: 'rdf', title: 'Radial distribution g(r)', description: 'Per species pair and total, with the running coordination number.' },
+  { key: 'sq', title: 'Structure factor S(q)', description: 'Fourier transform of g(r) with a stated window.' },
+  { key: 'lindemann', title: 'Lindemann index', description: 'Relative fluctuation of pair distances; a melting signature.' },
+  { key: 'ngp', title: 'Non-Gaussian parameter α₂(t)', description: 'Departure of displacements from a Gaussian; dynamic heterogeneity.' },
+];
+
+/** Sensible defaults: what the trajectory can support. */
+export function defaultAnalyses(t: Pick<TrajectoryDto, 'cell' | 'boundary' | 'frames'>): AnalysisKey[] {
+  const keys: AnalysisKey[] = ['thermo', 'msd', 'vacf', 'vdos'];
+  if (t.cell && t.boundary === 'periodic') keys.push('rdf');
+  return keys;
+}
+
+/** Why an analysis cannot run on this trajectory, or null. */
+export function unavailableReason(key: AnalysisKey, t: Pick<TrajectoryDto, 'cell' | 'boundary' | 'frames'>): string | null {
+  if ((key === 'rdf' || key === 'sq') && !t.cell) return 'needs a periodic cell, and this file states none';
+  if ((key === 'msd' || key === 'vacf' || key === 'vdos' || key === 'ngp') && (t.frames ?? 0) < 3) return 'needs at least 3 frames';
+  return null;
+}

@@ -1,0 +1,207 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { analysisParamsSchema, SPECTRAL_WINDOWS, SQ_WINDOWS, type AnalysisKey } from '../../../shared/analysis-params';
+import type { AnalysisRunDto } from '../../../shared/analysis-run';
+import type { TrajectoryDto } from '../../../shared/trajectory';
+import { apiErrorMessage } from '../core/api-error';
+import { ANALYSIS_CHOICES, defaultAnalyses, unavailableReason } from './analysis-choices';
+import { buildParams, type AdvancedSettings } from './analysis-params-form';
+import { TrajectoriesApi } from './trajectories-api';
+
+/** The analysis checklist with an advanced panel of parameters; starts one run. */
+@Component({
+  selector: 'erg-analysis-dialog',
+  imports: [
+    ReactiveFormsModule, MatDialogModule, MatCheckboxModule, MatExpansionModule, MatFormFieldModule, MatInputModule,
+    MatSelectModule, MatSlideToggleModule, MatButtonModule,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <h2 mat-dialog-title>Analyse {{ t.name }}</h2>
+    <mat-dialog-content>
+      <p class="facts">{{ t.atoms }} atoms · {{ t.frames }} frames · {{ t.timeStep ?? '?' }} {{ t.timeUnit }} between frames ·
+        {{ t.hasVelocities ? 'velocities in the file' : 'no velocities: the VACF uses central differences of positions' }}</p>
+      @if (!t.timeStep) { <p class="warn" role="alert">The time between frames is not known: set it in the metadata first, or time axes will count frames.</p> }
+      <fieldset class="checklist">
+        <legend>Analyses</legend>
+        @for (choice of choices; track choice.key) {
+          <div class="choice">
+            <mat-checkbox [checked]="selected().has(choice.key)" [disabled]="!!reasonOf(choice.key)" (change)="toggle(choice.key, $event.checked)">
+              <strong>{{ choice.title }}</strong>
+            </mat-checkbox>
+            <div class="description">{{ reasonOf(choice.key) ? 'Not available: ' + reasonOf(choice.key) : choice.description }}</div>
+          </div>
+        }
+      </fieldset>
+      <mat-accordion>
+        <mat-expansion-panel>
+          <mat-expansion-panel-header><mat-panel-title>Advanced settings</mat-panel-title></mat-expansion-panel-header>
+          <form [formGroup]="form" class="advanced">
+            <h3>Atoms and time</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>Species</mat-label>
+              <mat-select formControlName="species" multiple>
+                @for (s of speciesList; track s) { <mat-option [value]="s">{{ s }}</mat-option> }
+              </mat-select>
+              <mat-hint>Empty means all atoms</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Longest lag (ps)</mat-label>
+              <input matInput type="number" formControlName="maxLagPs" min="0" step="any">
+              <mat-hint>Empty: half the run</mat-hint>
+            </mat-form-field>
+            <mat-slide-toggle formControlName="removeComDrift">Remove centre-of-mass drift</mat-slide-toggle>
+            <h3>Diffusion fit (MSD)</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>Fit window</mat-label>
+              <mat-select formControlName="fitMode">
+                <mat-option value="auto">Automatic (where the log–log slope is near 1)</mat-option>
+                <mat-option value="manual">Manual</mat-option>
+              </mat-select>
+            </mat-form-field>
+            @if (form.controls.fitMode.value === 'manual') {
+              <mat-form-field appearance="outline"><mat-label>Fit from (ps)</mat-label><input matInput type="number" formControlName="fitStartPs" step="any"></mat-form-field>
+              <mat-form-field appearance="outline"><mat-label>Fit to (ps)</mat-label><input matInput type="number" formControlName="fitEndPs" step="any"></mat-form-field>
+            }
+            <h3>Green–Kubo plateau (VACF)</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>Plateau window</mat-label>
+              <mat-select formControlName="gkMode">
+                <mat-option value="auto">Automatic</mat-option>
+                <mat-option value="manual">Manual</mat-option>
+              </mat-select>
+            </mat-form-field>
+            @if (form.controls.gkMode.value === 'manual') {
+              <mat-form-field appearance="outline"><mat-label>Plateau from (ps)</mat-label><input matInput type="number" formControlName="gkStartPs" step="any"></mat-form-field>
+              <mat-form-field appearance="outline"><mat-label>Plateau to (ps)</mat-label><input matInput type="number" formControlName="gkEndPs" step="any"></mat-form-field>
+            }
+            <h3>Spectrum and heat capacity (VDOS)</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>Window function</mat-label>
+              <mat-select formControlName="window">
+                @for (w of windows; track w) { <mat-option [value]="w">{{ w }}</mat-option> }
+              </mat-select>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Zero padding (×)</mat-label>
+              <input matInput type="number" formControlName="zeroPadFactor" min="1" max="16" step="1">
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Temperature for Cv (K)</mat-label>
+              <input matInput type="number" formControlName="temperatureK" min="0" step="any">
+              <mat-hint>Empty: the kinetic temperature</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Degrees of freedom</mat-label>
+              <input matInput type="number" formControlName="degreesOfFreedom" min="1" step="1">
+              <mat-hint>Empty: 3N − 3 − constraints</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Constraints</mat-label>
+              <input matInput type="number" formControlName="constraints" min="0" step="1">
+            </mat-form-field>
+            <h3>Structure (g(r), S(q))</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>r_max (Å)</mat-label>
+              <input matInput type="number" formControlName="rMaxA" min="0" step="any">
+              <mat-hint>Empty: half the shortest cell width</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Bin width (Å)</mat-label>
+              <input matInput type="number" formControlName="binWidthA" min="0" max="1" step="any">
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Species pair</mat-label>
+              <mat-select formControlName="pair">
+                <mat-option [value]="null">Every pair</mat-option>
+                @for (p of pairs; track p) { <mat-option [value]="p">{{ p }}</mat-option> }
+              </mat-select>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>S(q) window</mat-label>
+              <mat-select formControlName="sqWindow">
+                @for (w of sqWindows; track w) { <mat-option [value]="w">{{ w }}</mat-option> }
+              </mat-select>
+            </mat-form-field>
+          </form>
+        </mat-expansion-panel>
+      </mat-accordion>
+      @for (problem of problems(); track problem) { <p class="error" role="alert">{{ problem }}</p> }
+    </mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" mat-dialog-close>Cancel</button>
+      <button mat-flat-button type="button" (click)="start()" [disabled]="starting() || selected().size === 0">Start analysis</button>
+    </mat-dialog-actions>
+  `,
+  styles: `
+    .facts { color: var(--mat-sys-on-surface-variant); margin-top: 0; }
+    .warn { color: var(--mat-sys-tertiary); }
+    .checklist { border: none; padding: 0; margin: 0 0 16px; display: grid; gap: 4px; }
+    .checklist legend { font-weight: 600; margin-bottom: 4px; }
+    .description { margin-left: 40px; color: var(--mat-sys-on-surface-variant); font-size: 13px; }
+    .advanced { display: grid; grid-template-columns: 1fr 1fr; gap: 4px 16px; }
+    .advanced h3 { grid-column: 1 / -1; margin: 12px 0 4px; font-size: 14px; }
+    .error { color: var(--mat-sys-error); }
+  `,
+})
+export class AnalysisDialog {
+  protected readonly t = inject<TrajectoryDto>(MAT_DIALOG_DATA);
+  private readonly api = inject(TrajectoriesApi);
+  private readonly ref = inject(MatDialogRef<AnalysisDialog, AnalysisRunDto>);
+  protected readonly choices = ANALYSIS_CHOICES;
+  protected readonly windows = SPECTRAL_WINDOWS;
+  protected readonly sqWindows = SQ_WINDOWS;
+  protected readonly speciesList = Object.keys(this.t.speciesCounts ?? {});
+  protected readonly pairs = this.speciesList.flatMap((a, i) => this.speciesList.slice(i).map((b) => `${a}–${b}`));
+  protected readonly selected = signal(new Set<AnalysisKey>(defaultAnalyses(this.t)));
+  protected readonly starting = signal(false);
+  private readonly serverError = signal('');
+  private readonly formErrors = signal<string[]>([]);
+  protected readonly problems = computed(() => [...this.formErrors(), ...(this.serverError() ? [this.serverError()] : [])]);
+
+  protected readonly form = inject(FormBuilder).nonNullable.group({
+    species: [[] as string[]], maxLagPs: null as number | null, removeComDrift: true, fitMode: 'auto' as AdvancedSettings['fitMode'], fitStartPs: null as number | null, fitEndPs: null as number | null,
+    gkMode: 'auto' as AdvancedSettings['gkMode'], gkStartPs: null as number | null, gkEndPs: null as number | null,
+    window: 'hann' as AdvancedSettings['window'], zeroPadFactor: 1, temperatureK: this.t.temperatureK as number | null,
+    degreesOfFreedom: null as number | null, constraints: 0, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
+    sqWindow: 'lorch' as AdvancedSettings['sqWindow'],
+  });
+
+  protected reasonOf(key: AnalysisKey): string | null {
+    return unavailableReason(key, this.t);
+  }
+
+  protected toggle(key: AnalysisKey, on: boolean): void {
+    this.selected.update((set) => {
+      const next = new Set(set);
+      if (on) next.add(key);
+      else next.delete(key);
+      return next;
+    });
+  }
+
+  protected start(): void {
+    this.serverError.set('');
+    const built = buildParams(this.form.getRawValue());
+    const parsed = analysisParamsSchema.safeParse(built.params);
+    const problems = [...built.problems, ...(parsed.success ? [] : parsed.error.issues.map((i) => `${i.path.join('.') || 'settings'}: ${i.message}`))];
+    this.formErrors.set(problems);
+    if (problems.length || !parsed.success) return;
+    this.starting.set(true);
+    this.api.startAnalysis(this.t.id, { analyses: [...this.selected()], params: parsed.data }).subscribe({
+      next: (run) => this.ref.close(run),
+      error: (err: unknown) => {
+        this.starting.set(false);
+        this.serverError.set(apiErrorMessage(err, 'The analysis could not be started.'));
+      },
+    });
+  }
+}

@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { analysisParamsSchema } from '../../../shared/analysis-params';
+import { buildParams, type AdvancedSettings } from './analysis-params-form';
+
+const defaults: AdvancedSettings = {
+  species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null,
+  gkMode: 'auto', gkStartPs: null, gkEndPs: null, window: 'hann', zeroPadFactor: 1, temperatureK: null,
+  degreesOfFreedom: null, constraints: 0, rMaxA: null, binWidthA: 0.05, pair: null, sqWindow: 'lorch',
+};
+
+describe('advanced analysis settings', () => {
+  it('when nothing is changed, then the parameters are the engine defaults and pass the shared schema', () => {
+    const { params, problems } = buildParams(defaults);
+    expect(problems).toEqual([]);
+    expect(analysisParamsSchema.parse(params)).toEqual(analysisParamsSchema.parse({}));
+  });
+  it('when a manual fit window lacks its end, then it says to give both ends', () => {
+    expect(buildParams({ ...defaults, fitMode: 'manual', fitStartPs: 1 }).problems).toEqual(['Give both ends of the diffusion fit window, in ps.']);
+  });
+  it('when the window ends before it starts, then the shared schema refuses it', () => {
+    const { params } = buildParams({ ...defaults, fitMode: 'manual', fitStartPs: 5, fitEndPs: 2 });
+    expect(analysisParamsSchema.safeParse(params).success).toBe(false);
+  });
+  it('when a species pair is chosen, then it is sent as two species', () => {
+    expect(buildParams({ ...defaults, pair: 'Na–Cl' }).params.pair).toEqual(['Na', 'Cl']);
+  });
+});

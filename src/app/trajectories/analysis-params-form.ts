@@ -1,0 +1,59 @@
+import type { AnalysisParamsInput, SpectralWindow, SqWindow } from '../../../shared/analysis-params';
+
+/** The advanced panel's raw values: blanks are null, windows are split into mode and bounds. */
+export interface AdvancedSettings {
+  species: string[];
+  maxLagPs: number | null;
+  removeComDrift: boolean;
+  fitMode: 'auto' | 'manual';
+  fitStartPs: number | null;
+  fitEndPs: number | null;
+  gkMode: 'auto' | 'manual';
+  gkStartPs: number | null;
+  gkEndPs: number | null;
+  window: SpectralWindow;
+  zeroPadFactor: number;
+  temperatureK: number | null;
+  degreesOfFreedom: number | null;
+  constraints: number;
+  rMaxA: number | null;
+  binWidthA: number;
+  /** "A–B" or null for every pair. */
+  pair: string | null;
+  sqWindow: SqWindow;
+}
+
+const given = (v: number | null | undefined): v is number => v !== null && v !== undefined && !Number.isNaN(v);
+
+/** Turns the panel into the API's parameters, with plain-words problems for half-filled windows. */
+export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput; problems: string[] } {
+  const problems: string[] = [];
+  const window = (mode: 'auto' | 'manual', start: number | null, end: number | null, what: string) => {
+    if (mode === 'auto') return { mode: 'auto' as const };
+    if (!given(start) || !given(end)) {
+      problems.push(`Give both ends of the ${what}, in ps.`);
+      return { mode: 'auto' as const };
+    }
+    return { mode: 'manual' as const, startPs: start, endPs: end };
+  };
+  const params: AnalysisParamsInput = {
+    species: s.species,
+    removeComDrift: s.removeComDrift,
+    fitWindow: window(s.fitMode, s.fitStartPs, s.fitEndPs, 'diffusion fit window'),
+    greenKuboWindow: window(s.gkMode, s.gkStartPs, s.gkEndPs, 'Green–Kubo plateau window'),
+    window: s.window,
+    zeroPadFactor: s.zeroPadFactor,
+    constraints: s.constraints,
+    binWidthA: s.binWidthA,
+    sqWindow: s.sqWindow,
+  };
+  if (given(s.maxLagPs)) params.maxLagPs = s.maxLagPs;
+  if (given(s.temperatureK)) params.temperatureK = s.temperatureK;
+  if (given(s.degreesOfFreedom)) params.degreesOfFreedom = s.degreesOfFreedom;
+  if (given(s.rMaxA)) params.rMaxA = s.rMaxA;
+  if (s.pair) {
+    const [a, b] = s.pair.split('–');
+    if (a && b) params.pair = [a, b];
+  }
+  return { params, problems };
+}

@@ -1,0 +1,129 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Subscription, switchMap, timer } from 'rxjs';
+import type { AnalysisRunDto } from '../../../shared/analysis-run';
+import type { TrajectoryDto } from '../../../shared/trajectory';
+import { apiErrorMessage } from '../core/api-error';
+import { AnalysisDialog } from './analysis-dialog';
+import { ConfirmDialog, type ConfirmData } from './confirm-dialog';
+import { CutDialog } from './cut-dialog';
+import { DropZone } from './drop-zone';
+import { JobList } from './job-list';
+import { JobTracker } from './job-tracker';
+import { MetadataDialog } from './metadata-dialog';
+import { TrajectoriesApi } from './trajectories-api';
+import { TrajectoriesTable, type TrajectoryAction } from './trajectories-table';
+import { UploadList } from './upload-list';
+import { UploadQueue } from './upload-queue';
+
+const SETTLED = new Set(['ready', 'failed']);
+
+/** The project page's trajectories: upload, inspect, describe, analyse. */
+@Component({
+  selector: 'erg-project-trajectories',
+  imports: [DropZone, UploadList, JobList, TrajectoriesTable, MatIconModule, MatProgressSpinnerModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (canEdit()) {
+      <erg-drop-zone (files)="upload($event)" />
+      <erg-upload-list [projectId]="projectId()" />
+    }
+    <erg-job-list [projectId]="projectId()" [canEdit]="canEdit()" />
+    @if (loading()) {
+      <div class="state"><mat-spinner diameter="28" aria-label="Loading trajectories" /></div>
+    } @else if (loadError()) {
+      <p class="state error" role="alert"><mat-icon aria-hidden="true">error</mat-icon> {{ loadError() }}</p>
+    } @else {
+      <erg-trajectories-table [trajectories]="trajectories()" [canEdit]="canEdit()" (action)="act($event.kind, $event.trajectory)" />
+    }
+  `,
+  styles: `.state { display: flex; gap: 8px; align-items: center; padding: 24px 0; } .error { color: var(--mat-sys-error); }`,
+})
+export class ProjectTrajectories {
+  readonly projectId = input.required<number>();
+  readonly canEdit = input(false);
+
+  private readonly api = inject(TrajectoriesApi);
+  private readonly uploads = inject(UploadQueue);
+  private readonly jobs = inject(JobTracker);
+  private readonly dialog = inject(MatDialog);
+  private readonly snack = inject(MatSnackBar);
+  private readonly destroyRef = inject(DestroyRef);
+  protected readonly trajectories = signal<TrajectoryDto[]>([]);
+  protected readonly loading = signal(true);
+  protected readonly loadError = signal('');
+  private readonly unsettled = computed(() => this.trajectories().some((t) => !SETTLED.has(t.status)));
+  private polling: Subscription | null = null;
+
+  constructor() {
+    effect(() => this.load(this.projectId()));
+    // While any upload is still being inspected, refresh the list every couple of seconds.
+    effect(() => {
+      const waiting = this.unsettled();
+      this.polling?.unsubscribe();
+      this.polling = waiting
+        ? timer(1500, 1500).pipe(switchMap(() => this.api.list(this.projectId())), takeUntilDestroyed(this.destroyRef))
+          .subscribe((list) => this.trajectories.set(list))
+        : null;
+    });
+  }
+
+  private load(projectId: number): void {
+    this.loading.set(true);
+    this.api.list(projectId).pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
+      next: (list) => {
+        this.trajectories.set(list);
+        this.loading.set(false);
+      },
+      error: (err: unknown) => {
+        this.loadError.set(apiErrorMessage(err, 'The trajectories could not be loaded.'));
+        this.loading.set(false);
+      },
+    });
+  }
+
+  protected upload(files: File[]): void {
+    this.uploads.add(this.projectId(), files, (t) => this.trajectories.update((list) => [t, ...list.filter((x) => x.id !== t.id)]));
+  }
+
+  protected act(kind: TrajectoryAction, t: TrajectoryDto): void {
+    switch (kind) {
+      case 'edit':
+        this.dialog.open(MetadataDialog, { data: t, width: '640px' }).afterClosed().subscribe((updated?: TrajectoryDto) => {
+          if (updated) this.replace(updated);
+        });
+        break;
+      case 'analyse':
+        this.dialog.open(AnalysisDialog, { data: t, width: '720px' }).afterClosed().subscribe((run?: AnalysisRunDto) => {
+          if (run) this.jobs.track(run, t.name, true);
+        });
+        break;
+      case 'cut':
+        this.dialog.open(CutDialog, { data: t, width: '560px' });
+        break;
+      case 'delete': {
+        const data: ConfirmData = {
+          title: `Delete ${t.name}?`,
+          message: 'The file, its frames and its reports are removed for every member of the project. This cannot be undone.',
+          confirm: 'Delete trajectory',
+        };
+        this.dialog.open(ConfirmDialog, { data }).afterClosed().subscribe((yes?: boolean) => {
+          if (!yes) return;
+          this.api.delete(t.id).subscribe({
+            next: () => this.trajectories.update((list) => list.filter((x) => x.id !== t.id)),
+            error: (err: unknown) => this.snack.open(apiErrorMessage(err, 'The trajectory could not be deleted.'), 'Close'),
+          });
+        });
+        break;
+      }
+    }
+  }
+
+  private replace(updated: TrajectoryDto): void {
+    this.trajectories.update((list) => list.map((x) => (x.id === updated.id ? updated : x)));
+  }
+}

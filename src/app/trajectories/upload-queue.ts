@@ -1,0 +1,64 @@
+import { inject, Injectable, signal } from '@angular/core';
+import type { Subscription } from 'rxjs';
+import { apiErrorMessage } from '../core/api-error';
+import type { TrajectoryDto } from '../../../shared/trajectory';
+import { TrajectoriesApi } from './trajectories-api';
+
+export interface UploadItem {
+  key: number;
+  projectId: number;
+  name: string;
+  size: number;
+  /** 0–100. */
+  percent: number;
+  state: 'sending' | 'stored' | 'failed' | 'cancelled';
+  error?: string;
+}
+
+/**
+ * Uploads in flight, each with its own progress and cancel. Kept in a root
+ * service so uploads keep going while the user moves between pages.
+ */
+@Injectable({ providedIn: 'root' })
+export class UploadQueue {
+  private readonly api = inject(TrajectoriesApi);
+  private readonly running = new Map<number, Subscription>();
+  private nextKey = 1;
+  private readonly itemsState = signal<UploadItem[]>([]);
+  readonly items = this.itemsState.asReadonly();
+
+  add(projectId: number, files: readonly File[], onStored: (t: TrajectoryDto) => void): void {
+    for (const file of files) {
+      const key = this.nextKey++;
+      this.itemsState.update((list) => [...list, { key, projectId, name: file.name, size: file.size, percent: 0, state: 'sending' }]);
+      const subscription = this.api.upload(projectId, file).subscribe({
+        next: (event) => {
+          if (event.kind === 'progress') {
+            this.patch(key, { percent: event.total ? Math.min(99, Math.round((100 * event.loaded) / event.total)) : 0 });
+          } else {
+            this.patch(key, { percent: 100, state: 'stored' });
+            onStored(event.trajectory);
+          }
+        },
+        error: (err: unknown) => this.patch(key, { state: 'failed', error: apiErrorMessage(err, 'The upload failed.') }),
+        complete: () => this.running.delete(key),
+      });
+      this.running.set(key, subscription);
+    }
+  }
+
+  /** Aborting the request makes the server drop the partial object. */
+  cancel(key: number): void {
+    this.running.get(key)?.unsubscribe();
+    this.running.delete(key);
+    this.patch(key, { state: 'cancelled' });
+  }
+
+  dismiss(key: number): void {
+    this.itemsState.update((list) => list.filter((i) => i.key !== key));
+  }
+
+  private patch(key: number, changes: Partial<UploadItem>): void {
+    this.itemsState.update((list) => list.map((i) => (i.key === key ? { ...i, ...changes } : i)));
+  }
+}
