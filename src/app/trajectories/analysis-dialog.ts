@@ -27,7 +27,7 @@ import { TrajectoriesApi } from './trajectories-api';
   template: `
     <h2 mat-dialog-title>Analyse {{ t.name }}</h2>
     <mat-dialog-content>
-      <p class="facts">{{ t.atoms }} atoms · {{ t.frames }} frames · {{ t.timeStep ?? '?' }} {{ t.timeUnit }} between frames ·
+      <p class="facts">{{ t.atoms }} atoms · {{ t.frames }} frames · {{ t.timeStep === null ? '?' : significant(t.timeStep) }} {{ t.timeUnit }} between frames ·
         {{ t.hasVelocities ? 'velocities in the file' : 'no velocities: the VACF uses central differences of positions' }}</p>
       @if (!t.timeStep) { <p class="warn" role="alert">The time between frames is not known: set it in the metadata first, or time axes will count frames.</p> }
       <fieldset class="checklist">
@@ -174,6 +174,10 @@ export class AnalysisDialog {
     degreesOfFreedom: null as number | null, constraints: 0, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
     sqWindow: 'lorch' as AdvancedSettings['sqWindow'],
   });
+
+  protected significant(value: number): string {
+    return Number(value.toPrecision(4)).toString();
+  }
 
   protected reasonOf(key: AnalysisKey): string | null {
     return unavailableReason(key, this.t);
