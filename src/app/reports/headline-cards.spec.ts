@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import type { ReportSummary } from '../../../shared/report-summary';
+import { headlineCards } from './headline-cards';
+
+const D = (a2PerPs: number) => ({ a2PerPs, e9M2PerS: a2PerPs * 10, cm2PerS: a2PerPs * 1e-4 });
+
+const liquid: ReportSummary = {
+  msd: { dimensions: 3, groups: [{ label: 'all', atoms: 108, regime: 'diffusive', d: D(0.1595), dStdError: D(0.0075), uncertaintyMethod: 'atom-blocks', slopeExponent: 0.98, fitWindowPs: { start: 0.86, end: 1.73, source: 'auto' }, plateauA2: null }] },
+  vacf: { velocitySource: 'stored-velocities', groups: [{ label: 'all', atoms: 108, dGreenKubo: D(0.154), spread: D(0.0125), converged: false, plateauWindowPs: { start: 0.86, end: 1.73, source: 'auto' } }] },
+  thermo: { temperatureK: { mean: 86.47, stdError: 1.23 }, densityGPerCm3: { mean: 1.4123, stdError: 0.0004 }, degreesOfFreedom: 321, equilibrated: true },
+  lindemann: { index: 0.21, threshold: 0.1, melted: true, displacementRatio: 0.4 },
+};
+
+describe('headline cards', () => {
+  it('when D is switched between units, then the card shows the matching number and unit label', () => {
+    const [a2] = headlineCards(liquid, 'a2PerPs');
+    const [si] = headlineCards(liquid, 'e9M2PerS');
+    const [cgs] = headlineCards(liquid, 'cm2PerS');
+    expect([a2!.value, a2!.unit]).toEqual(['0.1595 ± 0.0075', 'Å²/ps']);
+    expect([si!.value, si!.unit]).toEqual(['1.595 ± 0.075', '10⁻⁹ m²/s']);
+    expect([cgs!.value, cgs!.unit]).toEqual(['(1.595 ± 0.075) × 10⁻⁵', 'cm²/s']);
+  });
+
+  it('when only some analyses ran, then only their cards appear, in reading order', () => {
+    expect(headlineCards(liquid, 'a2PerPs').map((c) => c.id)).toEqual(['msd', 'vacf', 'thermo', 'lindemann']);
+    expect(headlineCards({ thermo: liquid.thermo }, 'a2PerPs').map((c) => c.id)).toEqual(['thermo']);
+    expect(headlineCards({}, 'a2PerPs')).toEqual([]);
+  });
+
+  it('when the Green–Kubo integral has not converged or the run melted, then the card carries a warning', () => {
+    const cards = headlineCards(liquid, 'a2PerPs');
+    expect(cards.find((c) => c.id === 'vacf')!.warning).toMatch(/not settled/);
+    expect(cards.find((c) => c.id === 'lindemann')!.warning).toMatch(/Melted/);
+    expect(cards.find((c) => c.id === 'msd')!.warning).toBeNull();
+  });
+
+  it('when the MSD is bounded, then D is a dash and the detail names the plateau', () => {
+    const bounded: ReportSummary = { msd: { dimensions: 3, groups: [{ ...liquid.msd!.groups[0]!, regime: 'bounded', d: null, dStdError: null, plateauA2: 0.412 }] } };
+    const [card] = headlineCards(bounded, 'a2PerPs');
+    expect(card!.value).toBe('—');
+    expect(card!.detail).toContain('0.412 Å²');
+  });
+
+  it('when the temperature card is built, then it names the degrees of freedom and shows density with its error', () => {
+    const card = headlineCards(liquid, 'a2PerPs').find((c) => c.id === 'thermo')!;
+    expect(card.value).toBe('86.5 ± 1.2');
+    expect(card.detail).toContain('321 degrees of freedom');
+    expect(card.detail).toContain('1.41230 ± 0.00040 g/cm³');
+  });
+});

@@ -1,0 +1,101 @@
+import type { DiffusionValue, MsdGroupSummary, ReportSummary } from '../../../shared/report-summary';
+import { formatNumber, formatWithError } from './number-format';
+import { diffusionLabel, type DiffusionUnit } from './report-units';
+
+/** One headline number as the cards show it. */
+export interface HeadlineCard {
+  id: 'msd' | 'vacf' | 'thermo' | 'vdos-peaks' | 'cv' | 'coordination' | 'lindemann';
+  title: string;
+  value: string;
+  unit: string;
+  /** What the number rests on, in one line. */
+  detail: string;
+  /** A warning a reader must not miss (not converged, melted, drifting). */
+  warning: string | null;
+}
+
+const REGIME_WORDS: Record<MsdGroupSummary['regime'], string> = {
+  diffusive: 'diffusive', subdiffusive: 'subdiffusive', superdiffusive: 'superdiffusive', bounded: 'bounded (no long-time diffusion)', 'too-short': 'run too short to reach diffusion',
+};
+
+const span = (w: { start: number; end: number }) => `${formatNumber(w.start, 3)}–${formatNumber(w.end, 3)} ps`;
+
+function withError(d: DiffusionValue | null, err: DiffusionValue | null, unit: DiffusionUnit): string {
+  return d ? formatWithError(d[unit], err?.[unit]) : '—';
+}
+
+function msdCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): HeadlineCard {
+  const g = s.groups[0]!;
+  const detail = g.d
+    ? `Einstein fit over ${span(g.fitWindowPs)}, log–log slope ${formatNumber(g.slopeExponent, 2)}, ${REGIME_WORDS[g.regime]}`
+    : g.plateauA2 !== null ? `MSD levels off near ${formatNumber(g.plateauA2, 3)} Å²: ${REGIME_WORDS[g.regime]}` : REGIME_WORDS[g.regime];
+  const warning = g.d && g.regime !== 'diffusive' ? `The MSD is ${g.regime} over the fit window; D may not be a long-time value.` : null;
+  return { id: 'msd', title: 'D from MSD (Einstein)', value: withError(g.d, g.dStdError, unit), unit: g.d ? diffusionLabel(unit) : '', detail, warning };
+}
+
+function vacfCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): HeadlineCard {
+  const g = s.groups[0]!;
+  return {
+    id: 'vacf', title: 'D from VACF (Green–Kubo)', value: withError(g.dGreenKubo, g.spread, unit), unit: diffusionLabel(unit),
+    detail: `Running integral read over ${span(g.plateauWindowPs)}; ± is its spread there`,
+    warning: g.converged ? null : 'The running integral has not settled to a plateau.',
+  };
+}
+
+function thermoCard(s: NonNullable<ReportSummary['thermo']>): HeadlineCard {
+  const density = s.densityGPerCm3 ? ` · density ${formatWithError(s.densityGPerCm3.mean, s.densityGPerCm3.stdError)} g/cm³` : '';
+  return {
+    id: 'thermo', title: 'Mean temperature', value: formatWithError(s.temperatureK.mean, s.temperatureK.stdError), unit: 'K',
+    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${density}`,
+    warning: s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.',
+  };
+}
+
+function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
+  const peaks = s.peaks.slice(0, 3);
+  const T = formatNumber(s.temperatureK, 4);
+  return [
+    {
+      id: 'vdos-peaks', title: 'VDOS peaks', value: peaks.length ? peaks.map((p) => formatNumber(p.cm1, 4)).join(', ') : '—', unit: peaks.length ? 'cm⁻¹' : '',
+      detail: peaks.length ? `${peaks.map((p) => formatNumber(p.thz, 3)).join(', ')} THz · ${peaks.map((p) => formatNumber(p.meV, 3)).join(', ')} meV` : 'No peak stands out of the spectrum',
+      warning: null,
+    },
+    {
+      id: 'cv', title: `Heat capacity Cv at ${T} K`, value: formatNumber(s.cv.quantum.perAtomKB, 4), unit: 'k_B per atom',
+      detail: `Quantum harmonic; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom`,
+      warning: null,
+    },
+  ];
+}
+
+function coordinationCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
+  const p = s.pairs[0]!;
+  const shell = p.firstMinimum;
+  return {
+    id: 'coordination', title: 'First-shell coordination', value: shell ? formatNumber(shell.coordination, 3) : '—', unit: shell ? 'neighbours' : '',
+    detail: shell && p.firstPeak
+      ? `g(r) peaks at ${formatNumber(p.firstPeak.rA, 3)} Å; shell ends at the first minimum, ${formatNumber(shell.rA, 3)} Å`
+      : 'No first minimum inside r_max',
+    warning: null,
+  };
+}
+
+function lindemannCard(s: NonNullable<ReportSummary['lindemann']>): HeadlineCard {
+  return {
+    id: 'lindemann', title: 'Lindemann index', value: formatNumber(s.index, 3), unit: '',
+    detail: `${s.melted ? 'Above' : 'Below'} the melting threshold ${formatNumber(s.threshold, 2)}: ${s.melted ? 'liquid-like' : 'solid-like'}`,
+    warning: s.melted ? 'Melted: atoms wander beyond the Lindemann threshold.' : null,
+  };
+}
+
+/** The report's headline numbers in reading order, D shown in `unit`; analyses that did not run have no card. */
+export function headlineCards(summary: ReportSummary, unit: DiffusionUnit): HeadlineCard[] {
+  return [
+    ...(summary.msd?.groups.length ? [msdCard(summary.msd, unit)] : []),
+    ...(summary.vacf?.groups.length ? [vacfCard(summary.vacf, unit)] : []),
+    ...(summary.thermo ? [thermoCard(summary.thermo)] : []),
+    ...(summary.vdos ? vdosCards(summary.vdos) : []),
+    ...(summary.rdf?.pairs.length ? [coordinationCard(summary.rdf)] : []),
+    ...(summary.lindemann ? [lindemannCard(summary.lindemann)] : []),
+  ];
+}

@@ -1,0 +1,57 @@
+import { describe, expect, it } from 'vitest';
+import type { ReportDto } from '../../../shared/report';
+import { methodsParagraphs, methodsPlainText } from './methods-text';
+
+const D = (a2PerPs: number) => ({ a2PerPs, e9M2PerS: a2PerPs * 10, cm2PerS: a2PerPs * 1e-4 });
+
+function report(overrides: Partial<ReportDto> = {}): ReportDto {
+  return {
+    id: 7, projectId: 1, trajectoryId: 2, trajectoryName: 'argon-liquid.extxyz', runId: 3, title: 'argon', analyses: ['thermo', 'msd'],
+    params: { components: 'xyz', window: 'hann', zeroPadFactor: 1 },
+    summary: {
+      thermo: { temperatureK: { mean: 86.5, stdError: 1.2 }, densityGPerCm3: null, degreesOfFreedom: 321, equilibrated: true },
+      msd: { dimensions: 3, groups: [{ label: 'all', atoms: 108, regime: 'diffusive', d: D(0.16), dStdError: D(0.01), uncertaintyMethod: 'atom-blocks', slopeExponent: 1, fitWindowPs: { start: 0.9, end: 1.7, source: 'auto' }, plateauA2: null }] },
+    },
+    methods: {
+      input: { file: 'argon-liquid.extxyz', sha256: 'ab'.repeat(32), atoms: 108, frames: 201, timeStep: 0.02, timeUnit: 'ps', ensemble: 'NVE' },
+      thermo: { velocitySource: 'stored-velocities', blockingPlateauLevel: 3 },
+      msd: { unwrapped: true, comDriftRemoved: true },
+    },
+    engineVersion: '0.1.0', inputSha256: 'ab'.repeat(32), createdAt: '2026-03-04T10:00:00.000Z', curves: {},
+    ...overrides,
+  };
+}
+
+describe('methods text', () => {
+  it('when a report is described, then the input names file, checksum, size and time step, and the software names engine version and date', () => {
+    const paragraphs = methodsParagraphs(report());
+    const input = paragraphs[0]!.body;
+    expect(input).toContain('argon-liquid.extxyz');
+    expect(input).toContain(`SHA-256 ${'ab'.repeat(32)}`);
+    expect(input).toContain('108 atoms, 201 frames');
+    expect(input).toContain('time step between frames 0.02 ps');
+    expect(input).toContain('ensemble NVE');
+    expect(paragraphs.at(-1)!.body).toContain('engine 0.1.0 on 2026-03-04');
+  });
+
+  it('when thermo and MSD ran, then their paragraphs state the DOF, the blocking method, the FFT MSD, the Einstein relation and the fit window used', () => {
+    const [, thermo, msd] = methodsParagraphs(report());
+    expect(thermo!.body).toContain('f = 321 degrees of freedom');
+    expect(thermo!.body).toContain('Flyvbjerg–Petersen blocking');
+    expect(msd!.body).toContain('FFT (Wiener–Khinchin)');
+    expect(msd!.body).toContain('MSD(t) = 2·3·D·t');
+    expect(msd!.body).toContain('0.9–1.7 ps (chosen automatically)');
+    expect(msd!.body).toContain('independent blocks of atoms');
+  });
+
+  it('when an analysis did not run, then it has no paragraph', () => {
+    const headings = methodsParagraphs(report()).map((p) => p.heading);
+    expect(headings).toEqual(['Input', 'Temperature', 'Mean-square displacement and diffusion', 'Software']);
+  });
+
+  it('when the text is copied, then it ends with the caution', () => {
+    const text = methodsPlainText(methodsParagraphs(report()), 'A simulation is a model.');
+    expect(text.startsWith('Input. Trajectory argon-liquid.extxyz')).toBe(true);
+    expect(text.endsWith('\n\nA simulation is a model.')).toBe(true);
+  });
+});

@@ -1,0 +1,127 @@
+import type { ReportDto } from '../../../shared/report';
+import type { ReportSummary } from '../../../shared/report-summary';
+import { formatNumber } from './number-format';
+import { flag, num, record, text, type Json } from './record-read';
+
+/** One paragraph of the methods section, headed by the analysis it describes. */
+export interface MethodsParagraph {
+  heading: string;
+  body: string;
+}
+
+const f = (x: number | null, digits = 4) => (x === null ? '?' : formatNumber(x, digits));
+const span = (w: { start: number; end: number; source: string }) => `${f(w.start, 3)}–${f(w.end, 3)} ps (${w.source === 'auto' ? 'chosen automatically' : 'set by hand'})`;
+
+function inputParagraph(report: ReportDto, input: Json): MethodsParagraph {
+  const parts = [
+    `${text(input, 'file') ?? report.trajectoryName}`,
+    `SHA-256 ${text(input, 'sha256') ?? report.inputSha256 ?? 'not recorded'}`,
+    `${f(num(input, 'atoms'), 12)} atoms, ${f(num(input, 'frames'), 12)} frames`,
+  ];
+  const step = num(input, 'timeStep');
+  if (step !== null) parts.push(`time step between frames ${f(step)} ${text(input, 'timeUnit') ?? ''}`.trim());
+  for (const [key, label] of [['ensemble', 'ensemble'], ['potential', 'potential'], ['engine', 'simulation engine']] as const) {
+    const v = text(input, key);
+    if (v) parts.push(`${label} ${v}`);
+  }
+  const lengthUnit = text(input, 'lengthUnit');
+  if (lengthUnit) parts.push(`lengths read in ${lengthUnit}`);
+  return { heading: 'Input', body: `Trajectory ${parts.join('; ')}.` };
+}
+
+function thermoParagraph(s: NonNullable<ReportSummary['thermo']>, m: Json): MethodsParagraph {
+  const source = text(m, 'velocitySource') === 'stored-velocities' ? 'stored velocities' : 'finite differences of positions';
+  return {
+    heading: 'Temperature',
+    body: `Instantaneous temperature from the kinetic energy by equipartition, T = 2K/(f·k_B), with f = ${s.degreesOfFreedom} degrees of freedom, from ${source}. ` +
+      `Errors of ensemble averages by Flyvbjerg–Petersen blocking (plateau at blocking level ${f(num(m, 'blockingPlateauLevel'), 3)}). ` +
+      `Equilibration judged by comparing the first and last thirds of the run: ${s.equilibrated ? 'no significant drift' : 'a significant drift was found'}.`,
+  };
+}
+
+function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Json): MethodsParagraph {
+  const fits = s.groups.map((g) => `${g.label}: ${span(g.fitWindowPs)}, uncertainty from ${g.uncertaintyMethod === 'atom-blocks' ? 'independent blocks of atoms' : g.uncertaintyMethod === 'fit-residuals' ? 'the fit residuals' : 'nothing (none available)'}`);
+  return {
+    heading: 'Mean-square displacement and diffusion',
+    body: `MSD by the FFT (Wiener–Khinchin) algorithm averaged over all time origins, on positions ${flag(m, 'unwrapped') === false ? 'as stored' : 'unwrapped across periodic boundaries'}` +
+      `${flag(m, 'comDriftRemoved') ? ', centre-of-mass drift removed' : ''}, in ${s.dimensions} dimension${s.dimensions === 1 ? '' : 's'} (${text(params, 'components') ?? 'xyz'}). ` +
+      `Self-diffusion coefficient from the Einstein relation, MSD(t) = 2·${s.dimensions}·D·t, by a least-squares line over the window where the log–log slope is near 1 — ${fits.join('; ')}.`,
+  };
+}
+
+function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsParagraph {
+  const source = s.velocitySource === 'stored-velocities' ? 'stored velocities' : 'central differences of unwrapped positions';
+  const windows = s.groups.map((g) => `${g.label}: ${span(g.plateauWindowPs)}`).join('; ');
+  return {
+    heading: 'Velocity autocorrelation and Green–Kubo diffusion',
+    body: `VACF ⟨v(0)·v(t)⟩ by FFT over all time origins from ${source}${flag(m, 'comDriftRemoved') ? ', centre-of-mass motion removed' : ''}. ` +
+      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau (${windows}); the quoted ± is the spread of the running integral there.`,
+  };
+}
+
+function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: Json): MethodsParagraph {
+  return {
+    heading: 'Vibrational density of states',
+    body: `VDOS as the windowed FFT of the mass-weighted VACF (${text(m, 'window') ?? text(params, 'window') ?? 'hann'} window, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
+      `zero padding ×${f(num(params, 'zeroPadFactor'), 3)}, bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${s.modes} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
+      `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K, beside the classical (Dulong–Petit) limit.` +
+      `${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}`,
+  };
+}
+
+function rdfParagraph(m: Json): MethodsParagraph {
+  const how = text(m, 'method') === 'cell-list' ? 'cell lists' : 'all pairs';
+  return {
+    heading: 'Radial distribution function',
+    body: `g(r) with the minimum-image convention and ${how}, out to r_max = ${f(num(m, 'rMaxA'))} Å in bins of ${f(num(m, 'binWidthA'))} Å over ${f(num(m, 'framesUsed'), 12)} frames, ` +
+      `normalised by the ideal-gas shell count (${text(m, 'normalisation') ?? 'per-frame volume'}). Coordination numbers by integrating 4πρr²g(r) to the first minimum.`,
+  };
+}
+
+function sqParagraph(m: Json): MethodsParagraph {
+  return {
+    heading: 'Structure factor',
+    body: `S(q) = 1 + 4πρ∫r²[g(r) − 1]·sin(qr)/(qr)·W(r)dr out to r_max = ${f(num(m, 'rMaxA'))} Å (${text(m, 'window') ?? 'lorch'} window); reliable above q = ${f(num(m, 'qReliableFromInvA'), 3)} Å⁻¹.`,
+  };
+}
+
+function lindemannParagraph(s: NonNullable<ReportSummary['lindemann']>, m: Json): MethodsParagraph {
+  const pairs = text(m, 'pairSet') === 'all-pairs' ? 'all pairs of atoms' : 'neighbour pairs of the first frame';
+  return {
+    heading: 'Lindemann index',
+    body: `Relative fluctuation of interatomic distances over ${f(num(m, 'pairs'), 12)} ${pairs}, every ${f(num(m, 'frameStride'), 6)} frame(s) of ${f(num(m, 'framesUsed'), 12)}; melted above ${f(s.threshold, 2)}.`,
+  };
+}
+
+function ngpParagraph(m: Json): MethodsParagraph {
+  return {
+    heading: 'Non-Gaussian parameter',
+    body: `α₂(t) = d·⟨Δr⁴⟩/((d+2)·⟨Δr²⟩²) − 1 (3⟨Δr⁴⟩/(5⟨Δr²⟩²) − 1 in 3-D) from unwrapped displacements, time origins every ${f(num(m, 'originStride'), 6)} frame(s).`,
+  };
+}
+
+/** The methods section, written from the parameters and methods the engine recorded for this report. */
+export function methodsParagraphs(report: ReportDto): MethodsParagraph[] {
+  const s = report.summary;
+  const m = report.methods;
+  const params = report.params;
+  const out = [inputParagraph(report, record(m, 'input'))];
+  if (s.thermo) out.push(thermoParagraph(s.thermo, record(m, 'thermo')));
+  if (s.msd) out.push(msdParagraph(s.msd, record(m, 'msd'), params));
+  if (s.vacf) out.push(vacfParagraph(s.vacf, record(m, 'vacf')));
+  if (s.vdos) out.push(vdosParagraph(s.vdos, record(m, 'vdos'), params));
+  if (s.rdf) out.push(rdfParagraph(record(m, 'rdf')));
+  if (s.sq) out.push(sqParagraph(record(m, 'sq')));
+  if (s.lindemann) out.push(lindemannParagraph(s.lindemann, record(m, 'lindemann')));
+  if (s.ngp) out.push(ngpParagraph(record(m, 'ngp')));
+  out.push({
+    heading: 'Software',
+    body: `Computed with the Ergodic analysis engine ${report.engineVersion} on ${report.createdAt.slice(0, 10)}. Units: lengths in Å, times in ps, D in Å²/ps (1 Å²/ps = 10⁻⁸ m²/s = 10⁻⁴ cm²/s); physical constants from CODATA.`,
+  });
+  return out;
+}
+
+/** Paste-able plain text: headings and paragraphs, then the caution. */
+export function methodsPlainText(paragraphs: readonly MethodsParagraph[], caution: string): string {
+  return [...paragraphs.map((p) => `${p.heading}. ${p.body}`), caution].join('\n\n');
+}
