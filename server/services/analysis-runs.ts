@@ -1,7 +1,7 @@
 import { Job } from 'bullmq';
 import { desc, eq } from 'drizzle-orm';
 import type { AnalysisRunDto } from '../../shared/analysis-run.ts';
-import type { AnalysisKey, AnalysisParams } from '../../shared/analysis-params.ts';
+import { analysisParamsSchema, type AnalysisKey, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import type { AppContext } from '../context.ts';
 import { analysisRuns, users } from '../db/schema/index.ts';
 import { conflict, notFound } from '../errors.ts';
@@ -21,8 +21,10 @@ function toDto(row: RunRow, requesterName: string): AnalysisRunDto {
 export const queueJobId = (runId: number) => `run-${runId}`;
 
 export async function startRun(
-  ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], params: AnalysisParams,
+  ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput,
 ): Promise<AnalysisRunDto> {
+  // Stored with every default filled in, so the run records exactly what the engine will use.
+  const params = analysisParamsSchema.parse(paramsInput);
   const trajectory = await getTrajectoryRow(ctx, trajectoryId);
   if (trajectory.status !== 'ready') {
     throw conflict(`The trajectory is ${trajectory.status}; analyses can start once it is ready.`);
