@@ -29,6 +29,10 @@ const configSchema = z.object({
   /** Run a BullMQ worker inside the web process (off for a web-only node). */
   RUN_WORKER: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** How often workers look for jobs whose worker died; such jobs go back on the queue. */
+  WORKER_STALLED_INTERVAL_MS: z.coerce.number().int().min(500).default(30_000),
+  /** A job's lock lapses this long after its worker last renewed it (a dead worker cannot). */
+  WORKER_LOCK_MS: z.coerce.number().int().min(1000).default(30_000),
   STATIC_DIR: z.string().default('dist/ergodic/browser'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   TRUST_PROXY: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),

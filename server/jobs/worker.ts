@@ -23,7 +23,8 @@ export async function startWorker(config: Config, log: Logger): Promise<RunningW
     connection,
     concurrency: config.WORKER_CONCURRENCY,
     useWorkerThreads: true,
-    stalledInterval: 30_000,
+    stalledInterval: config.WORKER_STALLED_INTERVAL_MS,
+    lockDuration: config.WORKER_LOCK_MS,
     maxStalledCount: 2,
   });
   worker.on('failed', (job, err) => log.warn({ jobId: job?.id, name: job?.name, err: err.message }, 'job failed'));

@@ -1,5 +1,5 @@
 import { UnrecoverableError, type SandboxedJob } from 'bullmq';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { analysisParamsSchema, type AnalysisKey } from '../../../shared/analysis-params.ts';
 import { runAnalyses, type AnalysisRun } from '../../analysis/index.ts';
 import type { AppContext } from '../../context.ts';
@@ -76,7 +76,9 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<un
       methods: { ...result.methods, caution: result.caution, input: inputDescription(trajectory) } as Record<string, unknown>,
       curvesKey, engineVersion: result.engineVersion, inputSha256: trajectory.sha256,
     }).$returningId();
-    await ctx.db.update(analysisRuns).set({ status: 'done', progress: 100, reportId, finishedAt: new Date() }).where(eq(analysisRuns.id, runId));
+    // Only a run still marked running becomes done: a cancel that landed meanwhile wins.
+    await ctx.db.update(analysisRuns).set({ status: 'done', progress: 100, reportId, finishedAt: new Date() })
+      .where(and(eq(analysisRuns.id, runId), eq(analysisRuns.status, 'running')));
     return { reportId };
   } catch (err) {
     if (err instanceof Cancelled) return { cancelled: true };
