@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureDebianPackages } from './debian-package.ts';
 import { isAlive, readPid, stopPid, type ServiceHandle } from './process-handle.ts';
-import { waitForPort } from './wait-for-port.ts';
+import { assertPortFree, waitForPort } from './wait-for-port.ts';
 
 const MARIADBD = '/usr/sbin/mariadbd';
 
@@ -63,6 +63,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<ServiceHand
     '--max-allowed-packet=64M',
   ];
   if (options.small) args.push('--innodb-log-file-size=8M', '--innodb-buffer-pool-size=32M');
+  await assertPortFree(port, 'MariaDB', 'ERGODIC_DB_PORT');
   const out = openSync(join(dataDir, 'mysqld.out'), 'a');
   const child = spawn(MARIADBD, args, { stdio: ['ignore', out, out] });
   await waitForPort(port, 60_000, 'MariaDB');

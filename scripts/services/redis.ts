@@ -3,7 +3,7 @@ import { mkdirSync, openSync } from 'node:fs';
 import { join } from 'node:path';
 import { ensureDebianPackages } from './debian-package.ts';
 import { isAlive, readPid, stopPid, type ServiceHandle } from './process-handle.ts';
-import { waitForPort } from './wait-for-port.ts';
+import { assertPortFree, waitForPort } from './wait-for-port.ts';
 
 export interface RedisOptions {
   dataDir: string;
@@ -29,6 +29,7 @@ export async function startRedis(options: RedisOptions): Promise<ServiceHandle> 
     // BullMQ requires that Redis never evicts its keys.
     '--maxmemory-policy', 'noeviction',
   ];
+  await assertPortFree(options.port, 'Redis', 'ERGODIC_REDIS_PORT');
   const out = openSync(join(options.dataDir, 'redis.log'), 'a');
   const child = spawn('/usr/bin/redis-server', args, { stdio: ['ignore', out, out] });
   await waitForPort(options.port, 30_000, 'Redis');

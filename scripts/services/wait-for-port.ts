@@ -15,6 +15,16 @@ export async function waitForPort(port: number, timeoutMs = 30_000, what = 'serv
   throw new Error(`${what} did not open 127.0.0.1:${port} within ${timeoutMs} ms`);
 }
 
+/** Refuses to start a service on a port something else already answers on. */
+export async function assertPortFree(port: number, what: string, variable: string): Promise<void> {
+  const taken = await new Promise<boolean>((resolve) => {
+    const socket = createConnection({ host: '127.0.0.1', port });
+    socket.once('connect', () => { socket.destroy(); resolve(true); });
+    socket.once('error', () => resolve(false));
+  });
+  if (taken) throw new Error(`${what} cannot start: 127.0.0.1:${port} is already in use (another Ergodic still running?). Stop it, or choose another port with ${variable}.`);
+}
+
 /** Asks the kernel for a free loopback port. */
 export async function freePort(): Promise<number> {
   const { createServer } = await import('node:net');
