@@ -34,4 +34,8 @@ describe('formatWithError', () => {
     expect(formatWithError(0.15, null)).toBe('0.15');
     expect(formatWithError(0.15, 0)).toBe('0.15');
   });
+
+  it('when the error is at round-off level, as for density at constant volume, then the value alone is shown', () => {
+    expect(formatWithError(1.41859975395252325, 2.3e-16)).toBe('1.419');
+  });
 });

@@ -32,7 +32,8 @@ export function formatNumber(x: number | null | undefined, significant = 4): str
  */
 export function formatWithError(value: number | null | undefined, error: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  if (error === null || error === undefined || !Number.isFinite(error) || error <= 0) return formatNumber(value);
+  // An error at round-off level (a quantity fixed by the ensemble, such as density at constant volume) says nothing.
+  if (error === null || error === undefined || !Number.isFinite(error) || error <= Math.abs(value) * 1e-9) return formatNumber(value);
   const reference = value !== 0 ? decade(value) : decade(error);
   const scale = needsExponent(reference) ? reference : 0;
   const v = value / 10 ** scale;

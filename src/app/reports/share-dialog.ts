@@ -1,0 +1,155 @@
+import { Clipboard } from '@angular/cdk/clipboard';
+import { TitleCasePipe } from '@angular/common';
+import { httpResource } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { firstValueFrom } from 'rxjs';
+import { ACCESS_LINK_MAX_DAYS } from '../../../shared/account-rules';
+import { apiErrorMessage } from '../core/api-error';
+import type { Member } from '../projects/project-types';
+import { AccessLinksList } from './access-links-list';
+import { ReportsApi } from './reports-api';
+import type { AccessLinkView, NewAccessLink } from './sharing-types';
+
+export interface ShareDialogData {
+  reportId: number;
+  projectId: number;
+  title: string;
+}
+
+/** Who can read this report already, and read-only links for anyone else. */
+@Component({
+  selector: 'erg-share-dialog',
+  imports: [TitleCasePipe, ReactiveFormsModule, AccessLinksList, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <h2 mat-dialog-title>Share “{{ data.title }}”</h2>
+    <mat-dialog-content>
+      <section aria-labelledby="share-members">
+        <h3 id="share-members">Project members</h3>
+        <p class="muted">Everyone in the project can read this report and comment on it.</p>
+        @if (members.isLoading() && !members.hasValue()) {
+          <mat-spinner diameter="22" aria-label="Loading members" />
+        } @else if (members.error()) {
+          <p class="form-error" role="alert">{{ error(members.error(), 'The members could not be loaded.') }}</p>
+        } @else {
+          <ul class="members" aria-label="Project members">
+            @for (m of memberList(); track m.userId) {
+              <li><span>{{ m.displayName }}</span> <span class="muted">{{ m.email }} · {{ m.role | titlecase }}</span></li>
+            }
+          </ul>
+        }
+      </section>
+
+      <section aria-labelledby="share-links">
+        <h3 id="share-links">Access links</h3>
+        <p class="muted">Anyone with a link can read this report without signing in — read only, until it expires or you revoke it. They cannot see comments or anything else in the project.</p>
+        <form class="new-link" (submit)="$event.preventDefault(); createLink()">
+          <mat-form-field appearance="outline" class="days">
+            <mat-label>Expires after (days)</mat-label>
+            <input matInput type="number" min="1" [max]="maxDays" [formControl]="days" required />
+            <mat-hint>1 to {{ maxDays }} days</mat-hint>
+          </mat-form-field>
+          <button mat-flat-button type="submit" [disabled]="days.invalid || creating()">Create link</button>
+        </form>
+        @if (createError()) {
+          <p class="form-error" role="alert">{{ createError() }}</p>
+        }
+        @if (created(); as link) {
+          <div class="created" role="status">
+            <mat-form-field appearance="outline" class="url">
+              <mat-label>New access link</mat-label>
+              <input matInput readonly [value]="link.url" (focus)="selectAll($event)" />
+              <mat-hint>Copy it now: it is shown only this once.</mat-hint>
+            </mat-form-field>
+            <button mat-stroked-button type="button" (click)="copy(link.url)"><mat-icon aria-hidden="true">content_copy</mat-icon> {{ copied() ? 'Copied' : 'Copy link' }}</button>
+          </div>
+        }
+        @if (links.error()) {
+          <p class="form-error" role="alert">{{ error(links.error(), 'The access links could not be loaded.') }}</p>
+        } @else if (links.hasValue()) {
+          <erg-access-links-list [links]="linkList()" [busyId]="revoking()" (revoke)="revoke($event)" />
+        }
+        @if (revokeError()) {
+          <p class="form-error" role="alert">{{ revokeError() }}</p>
+        }
+      </section>
+    </mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" mat-dialog-close>Done</button>
+    </mat-dialog-actions>
+  `,
+  styles: `
+    section + section { margin-top: 20px; }
+    h3 { margin: 0 0 4px; font: var(--mat-sys-title-medium); }
+    .muted { margin: 0 0 8px; }
+    .members { list-style: none; margin: 0; padding: 0; display: flex; flex-direction: column; gap: 4px; }
+    .new-link, .created { display: flex; gap: 12px; align-items: baseline; flex-wrap: wrap; }
+    .days { width: 200px; }
+    .url { flex: 1; min-width: 280px; }
+  `,
+})
+export class ShareDialog {
+  protected readonly data = inject<ShareDialogData>(MAT_DIALOG_DATA);
+  private readonly api = inject(ReportsApi);
+  private readonly clipboard = inject(Clipboard);
+
+  protected readonly maxDays = ACCESS_LINK_MAX_DAYS;
+  protected readonly members = httpResource<{ members: Member[] }>(() => `/api/projects/${this.data.projectId}/members`);
+  protected readonly links = httpResource<{ links: AccessLinkView[] }>(() => `/api/reports/${this.data.reportId}/access-links`);
+  protected readonly memberList = computed(() => this.members.value()?.members ?? []);
+  protected readonly linkList = computed(() => this.links.value()?.links ?? []);
+  protected readonly days = new FormControl(7, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(ACCESS_LINK_MAX_DAYS)] });
+  protected readonly creating = signal(false);
+  protected readonly created = signal<NewAccessLink | null>(null);
+  protected readonly copied = signal(false);
+  protected readonly createError = signal<string | null>(null);
+  protected readonly revoking = signal<number | null>(null);
+  protected readonly revokeError = signal<string | null>(null);
+
+  protected error(err: unknown, fallback: string): string {
+    return apiErrorMessage(err, fallback);
+  }
+
+  protected async createLink(): Promise<void> {
+    if (this.days.invalid) return;
+    this.creating.set(true);
+    this.createError.set(null);
+    this.copied.set(false);
+    try {
+      this.created.set(await firstValueFrom(this.api.createLink(this.data.reportId, Math.round(this.days.value))));
+      this.links.reload();
+    } catch (err) {
+      this.createError.set(apiErrorMessage(err, 'The link could not be created.'));
+    } finally {
+      this.creating.set(false);
+    }
+  }
+
+  protected selectAll(event: FocusEvent): void {
+    if (event.target instanceof HTMLInputElement) event.target.select();
+  }
+
+  protected copy(url: string): void {
+    this.copied.set(this.clipboard.copy(url));
+  }
+
+  protected async revoke(link: AccessLinkView): Promise<void> {
+    this.revoking.set(link.id);
+    this.revokeError.set(null);
+    try {
+      await firstValueFrom(this.api.revokeLink(this.data.reportId, link.id));
+      this.links.reload();
+    } catch (err) {
+      this.revokeError.set(apiErrorMessage(err, 'The link could not be revoked.'));
+    } finally {
+      this.revoking.set(null);
+    }
+  }
+}

@@ -1,0 +1,17 @@
+import { describe, expect, it } from 'vitest';
+import { linkState, type AccessLinkView } from './sharing-types';
+
+const link = (changes: Partial<AccessLinkView>): AccessLinkView => ({
+  id: 1, reportId: 1, createdBy: 'A', createdAt: '2026-01-01T00:00:00Z', expiresAt: '2026-01-08T00:00:00Z', revokedAt: null, lastUsedAt: null, ...changes,
+});
+
+describe('access link state', () => {
+  const now = Date.parse('2026-01-05T00:00:00Z');
+  it('when a link is neither revoked nor past its expiry, then it is active', () => {
+    expect(linkState(link({}), now)).toBe('active');
+  });
+  it('when its expiry has passed, then it is expired; when revoked, revoked wins', () => {
+    expect(linkState(link({ expiresAt: '2026-01-04T00:00:00Z' }), now)).toBe('expired');
+    expect(linkState(link({ expiresAt: '2026-01-04T00:00:00Z', revokedAt: '2026-01-02T00:00:00Z' }), now)).toBe('revoked');
+  });
+});
