@@ -49,6 +49,15 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       },
     },
     {
+      method: 'get', path: '/links/:token/export.json', access: { kind: 'public' },
+      handler: async (req, res) => {
+        const { token } = params(req, { token: tokenField });
+        const link = await resolveAccessLink(ctx.db, token);
+        res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${link.reportId}.json"`);
+        res.json(await getReport(ctx, link.reportId));
+      },
+    },
+    {
       method: 'get', path: '/links/:token/curves/:curve.csv', access: { kind: 'public' },
       handler: async (req, res) => {
         const { token, curve } = params(req, { token: tokenField, curve: curveField });

@@ -38,6 +38,9 @@ describe('a report read through an access link', () => {
     expect(holder.body.report.summary).toEqual(FIXTURE_SUMMARY);
     expect(holder.body.report.curves.msd.data[1]).toEqual(Array.from(FIXTURE_MSD_CURVE.data[1]!));
     expect(new Date(holder.body.expiresAt).getTime()).toBeGreaterThan(Date.now() + 2 * 86_400_000);
+    const exported = await new ApiClient(app).get(`/api/links/${token}/export.json`);
+    expect(exported.headers['content-disposition']).toContain(`ergodic-report-${reportId}.json`);
+    expect(exported.body).toEqual(member.body);
   });
 
   it('when a link holder asks for a curve as CSV, then it is the member\'s CSV; an unknown curve is a 404 naming the ones there are', async () => {
@@ -72,6 +75,7 @@ describe('a report read through an access link', () => {
     for (const { token } of [revoked, expired]) {
       expect((await holder.get(`/api/links/${token}`)).status).toBe(404);
       expect((await holder.get(`/api/links/${token}/curves/msd.csv`)).status).toBe(404);
+      expect((await holder.get(`/api/links/${token}/export.json`)).status).toBe(404);
     }
     expect((await holder.get('/api/links/not-a-token/curves/msd.csv')).status).toBe(404);
   });
