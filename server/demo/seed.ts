@@ -4,7 +4,7 @@ import type { AppContext } from '../context.ts';
 import { projectMembers, projects, trajectories, users } from '../db/schema/index.ts';
 import { startRun } from '../services/analysis-runs.ts';
 import { hashPassword } from '../services/passwords.ts';
-import { registerUpload } from '../services/trajectories.ts';
+import { registerStoredFile } from '../services/trajectories.ts';
 import { objectKeyFor } from '../services/upload-to-store.ts';
 import { DEMO_TRAJECTORIES, toExtxyzBytes } from './demo-trajectories.ts';
 import { DEMO_ACCOUNTS, DEMO_PROJECTS } from './scenario.ts';
@@ -57,7 +57,7 @@ async function seedRuns(ctx: AppContext, userId: number, projectIds: Map<string,
     const objectKey = objectKeyFor(projectId, demo.fileName);
     await ctx.store.putBytes(objectKey, bytes, 'text/plain');
     const stored = { objectKey, sizeBytes: bytes.length, sha256: createHash('sha256').update(bytes).digest('hex') };
-    const trajectory = await registerUpload(ctx, projectId, userId, demo.fileName, stored, { ...demo.metadata, timeUnit: 'ps' });
+    const trajectory = await registerStoredFile(ctx, projectId, userId, demo.fileName, stored, { ...demo.metadata, timeUnit: 'ps' });
     const status = await waitUntilInspected(ctx, trajectory.id);
     if (status !== 'ready') {
       log(`demo trajectory ${demo.fileName} is ${status}; skipping its analyses`);

@@ -3,7 +3,7 @@ import { trajectoryMetadataSchema } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { badRequest } from '../errors.ts';
 import {
-  deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, registerUpload, updateMetadata,
+  abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata,
 } from '../services/trajectories.ts';
 import { extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
 import { idParams } from './params.ts';
@@ -37,20 +37,22 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'editor', via: 'project' },
+      // Streams while multer reads the body; `before` runs after the access check, so nothing is stored for a caller without rights.
       before: [trajectoryUpload(ctx)],
       handler: async (req, res) => {
         const { id } = idParams.parse(req.params);
         const file = req.file;
-        if (!file?.objectKey || file.sizeBytes === undefined || !file.sha256) {
+        if (!file?.trajectoryId || !file.objectKey || file.sizeBytes === undefined || !file.sha256) {
           throw badRequest('No file received: send the trajectory as multipart/form-data in a field named "file".');
         }
         const metadata = metadataFromFields(req.body as Record<string, unknown>);
         if (!metadata.success) {
+          await abandonUpload(ctx, file.trajectoryId);
           await ctx.store.delete(file.objectKey);
           throw metadata.error;
         }
-        const stored = { objectKey: file.objectKey, sizeBytes: file.sizeBytes, sha256: file.sha256 };
-        res.status(201).json(await registerUpload(ctx, id, req.user!.id, file.originalname, stored, metadata.data));
+        const stored = { trajectoryId: file.trajectoryId, objectKey: file.objectKey, sizeBytes: file.sizeBytes, sha256: file.sha256 };
+        res.status(201).json(await completeUpload(ctx, stored, metadata.data));
       },
     },
     {

@@ -2,11 +2,15 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { AppError, badRequest } from '../errors.ts';
 import type { AppContext } from '../context.ts';
+import { abandonUpload, beginUpload } from '../services/trajectories.ts';
 import { objectKeyFor, objectStoreStorage } from '../services/upload-to-store.ts';
 
 /** Multipart upload of one `file` part, streamed to the object store. */
 export function trajectoryUpload(ctx: AppContext): RequestHandler {
-  const storage = objectStoreStorage(ctx.store, (req, file) => objectKeyFor(Number(req.params['id']), file.originalname));
+  const storage = objectStoreStorage(ctx.store, (req, file) => objectKeyFor(Number(req.params['id']), file.originalname), {
+    begin: (req, file, objectKey) => beginUpload(ctx, Number(req.params['id']), req.user!.id, file.originalname, objectKey),
+    abandon: (id) => abandonUpload(ctx, id),
+  });
   const parse = multer({
     storage,
     limits: { fileSize: ctx.config.UPLOAD_MAX_BYTES, files: 1, fields: 30, fieldSize: 64 * 1024, parts: 40 },

@@ -1,4 +1,4 @@
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { TrajectoryDto, TrajectoryMetadata } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { projects, trajectories, users, type TrajectoryRow } from '../db/schema/index.ts';
@@ -43,18 +43,37 @@ export async function getTrajectory(ctx: AppContext, id: number): Promise<Trajec
   return toTrajectoryDto(row.t, row.uploaderName);
 }
 
-/** Records a stored upload and queues its inspection. */
-export async function registerUpload(
-  ctx: AppContext, projectId: number, userId: number, fileName: string, stored: StoredUpload, metadata: TrajectoryMetadata,
-): Promise<TrajectoryDto> {
+/** A row for an upload that has begun; other members see it as `uploading`. */
+export async function beginUpload(ctx: AppContext, projectId: number, userId: number, fileName: string, objectKey: string): Promise<number> {
   const [{ id }] = await ctx.db.insert(trajectories).values({
-    projectId, uploadedBy: userId, name: metadata.name ?? fileName.slice(0, 255), objectKey: stored.objectKey,
-    sizeBytes: stored.sizeBytes, sha256: stored.sha256, status: 'inspecting', updatedAt: new Date(),
-    ...metadataColumns(metadata),
+    projectId, uploadedBy: userId, name: fileName.slice(0, 255) || 'trajectory', objectKey, status: 'uploading', updatedAt: new Date(),
   }).$returningId();
-  await touchProject(ctx, projectId);
+  return id;
+}
+
+/** An upload that never completed leaves nothing: no row, and its object is aborted by the caller. */
+export async function abandonUpload(ctx: AppContext, id: number): Promise<void> {
+  await ctx.db.delete(trajectories).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
+}
+
+/** Records the stored bytes and the uploader's metadata, and queues the inspection. */
+export async function completeUpload(ctx: AppContext, stored: StoredUpload, metadata: TrajectoryMetadata): Promise<TrajectoryDto> {
+  const id = stored.trajectoryId;
+  await ctx.db.update(trajectories).set({
+    sizeBytes: stored.sizeBytes, sha256: stored.sha256, status: 'inspecting', updatedAt: new Date(), ...metadataColumns(metadata),
+  }).where(eq(trajectories.id, id));
+  const row = await getTrajectoryRow(ctx, id);
+  await touchProject(ctx, row.projectId);
   await ctx.queue.add('inspect', { trajectoryId: id }, `inspect-${id}`);
   return getTrajectory(ctx, id);
+}
+
+/** A file already in the store (demo seed, imports) registered in one step. */
+export async function registerStoredFile(
+  ctx: AppContext, projectId: number, userId: number, fileName: string, stored: Omit<StoredUpload, 'trajectoryId'>, metadata: TrajectoryMetadata,
+): Promise<TrajectoryDto> {
+  const trajectoryId = await beginUpload(ctx, projectId, userId, fileName, stored.objectKey);
+  return completeUpload(ctx, { ...stored, trajectoryId }, metadata);
 }
 
 function metadataColumns(m: TrajectoryMetadata): Partial<typeof trajectories.$inferInsert> {

@@ -89,13 +89,14 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
   });
 
-  it('when the connection drops mid-upload, then no trajectory row and no object remain', async () => {
+  it('when the connection drops mid-upload, then the row seen as uploading meanwhile is gone, and no object remains', async () => {
     const server = app.listen(0, '127.0.0.1');
     await new Promise((r) => server.once('listening', r));
     const port = (server.address() as AddressInfo).port;
     const token = (await owner.client.post('/api/tokens', { name: 'flaky' })).body.token.token as string;
     const before = await objectKeysUnder(`projects/${projectId}/`);
     const rowsBefore = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
+    let seenUploading = false;
     await new Promise<void>((resolve) => {
       const boundary = 'ergodic-test-boundary';
       const req = httpRequest({
@@ -104,10 +105,16 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
       });
       req.on('error', () => resolve());
       req.write(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="cut-off.xyz"\r\nContent-Type: text/plain\r\n\r\n`);
-      req.write(Buffer.alloc(1024 * 1024, 65), () => setTimeout(() => { req.destroy(); resolve(); }, 200));
+      req.write(Buffer.alloc(1024 * 1024, 65), () => setTimeout(async () => {
+        const rows = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
+        seenUploading = rows.some((r) => r.name === 'cut-off.xyz' && r.status === 'uploading');
+        req.destroy();
+        resolve();
+      }, 300));
     });
     await new Promise((r) => setTimeout(r, 1500));
     server.close();
+    expect(seenUploading).toBe(true);
     expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
     expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
   });
