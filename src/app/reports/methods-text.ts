@@ -12,6 +12,14 @@ export interface MethodsParagraph {
 const f = (x: number | null, digits = 4) => (x === null ? '?' : formatNumber(x, digits));
 const span = (w: { start: number; end: number; source: string }) => `${f(w.start, 3)}–${f(w.end, 3)} ps (${w.source === 'auto' ? 'chosen automatically' : 'set by hand'})`;
 
+const WINDOW_NAMES: Partial<Record<string, string>> = {
+  hann: 'Hann window', blackman: 'Blackman window', gaussian: 'Gaussian window', lorch: 'Lorch window', none: 'no window',
+};
+
+function windowName(key: string | null): string {
+  return key ? (WINDOW_NAMES[key] ?? `${key} window`) : 'default window';
+}
+
 function inputParagraph(report: ReportDto, input: Json): MethodsParagraph {
   const parts = [
     `${text(input, 'file') ?? report.trajectoryName}`,
@@ -55,15 +63,15 @@ function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsP
   return {
     heading: 'Velocity autocorrelation and Green–Kubo diffusion',
     body: `VACF ⟨v(0)·v(t)⟩ by FFT over all time origins from ${source}${flag(m, 'comDriftRemoved') ? ', centre-of-mass motion removed' : ''}. ` +
-      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau (${windows}); the quoted ± is the spread of the running integral there.`,
+      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau — ${windows}; the quoted ± is the spread of the running integral there.`,
   };
 }
 
 function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: Json): MethodsParagraph {
   return {
     heading: 'Vibrational density of states',
-    body: `VDOS as the windowed FFT of the mass-weighted VACF (${text(m, 'window') ?? text(params, 'window') ?? 'hann'} window, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
-      `zero padding ×${f(num(params, 'zeroPadFactor'), 3)}, bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${s.modes} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
+    body: `VDOS as the windowed FFT of the mass-weighted VACF (${windowName(text(m, 'window') ?? text(params, 'window'))}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
+      `zero padding ×${f(num(params, 'zeroPadFactor'), 3)}, bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
       `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K, beside the classical (Dulong–Petit) limit.` +
       `${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}`,
   };
@@ -81,15 +89,15 @@ function rdfParagraph(m: Json): MethodsParagraph {
 function sqParagraph(m: Json): MethodsParagraph {
   return {
     heading: 'Structure factor',
-    body: `S(q) = 1 + 4πρ∫r²[g(r) − 1]·sin(qr)/(qr)·W(r)dr out to r_max = ${f(num(m, 'rMaxA'))} Å (${text(m, 'window') ?? 'lorch'} window); reliable above q = ${f(num(m, 'qReliableFromInvA'), 3)} Å⁻¹.`,
+    body: `S(q) = 1 + 4πρ∫r²[g(r) − 1]·sin(qr)/(qr)·W(r)dr out to r_max = ${f(num(m, 'rMaxA'))} Å (${windowName(text(m, 'window'))}); reliable above q = ${f(num(m, 'qReliableFromInvA'), 3)} Å⁻¹.`,
   };
 }
 
 function lindemannParagraph(s: NonNullable<ReportSummary['lindemann']>, m: Json): MethodsParagraph {
-  const pairs = text(m, 'pairSet') === 'all-pairs' ? 'all pairs of atoms' : 'neighbour pairs of the first frame';
+  const pairs = text(m, 'pairSet') === 'all-pairs' ? 'every pair of atoms' : 'neighbours in the first frame';
   return {
     heading: 'Lindemann index',
-    body: `Relative fluctuation of interatomic distances over ${f(num(m, 'pairs'), 12)} ${pairs}, every ${f(num(m, 'frameStride'), 6)} frame(s) of ${f(num(m, 'framesUsed'), 12)}; melted above ${f(s.threshold, 2)}.`,
+    body: `Relative fluctuation of interatomic distances over ${f(num(m, 'pairs'), 12)} pairs (${pairs}), every ${f(num(m, 'frameStride'), 6)} frame(s) of ${f(num(m, 'framesUsed'), 12)}; melted above ${f(s.threshold, 2)}.`,
   };
 }
 

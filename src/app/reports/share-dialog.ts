@@ -41,7 +41,7 @@ export interface ShareDialogData {
         } @else {
           <ul class="members" aria-label="Project members">
             @for (m of memberList(); track m.userId) {
-              <li><span>{{ m.displayName }}</span> <span class="muted">{{ m.email }} · {{ m.role | titlecase }}</span></li>
+              <li><span>{{ m.displayName }}</span><span class="muted">{{ m.email }} · {{ m.role | titlecase }}</span></li>
             }
           </ul>
         }
@@ -90,7 +90,10 @@ export interface ShareDialogData {
     h3 { margin: 0 0 4px; font: var(--mat-sys-title-medium); }
     .muted { margin: 0 0 8px; }
     .members { list-style: none; margin: 0; padding: 0; display: flex; flex-direction: column; gap: 4px; }
+    .members li { display: flex; gap: 8px; flex-wrap: wrap; }
+    .members .muted { margin: 0; }
     .new-link, .created { display: flex; gap: 12px; align-items: baseline; flex-wrap: wrap; }
+    .created { margin: 16px 0 8px; }
     .days { width: 200px; }
     .url { flex: 1; min-width: 280px; }
   `,

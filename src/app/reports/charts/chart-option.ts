@@ -21,6 +21,8 @@ export const GRID_LINE = '#dee3e4';
 export const GUIDE = '#576061';
 /** Fit windows and error bands: primary tone 90, see-through. */
 export const BAND = 'rgba(112, 214, 221, 0.28)';
+/** Behind labels drawn over data. */
+export const LABEL_BACKGROUND = 'rgba(255, 255, 255, 0.85)';
 export const SHADE = 'rgba(164, 173, 174, 0.22)';
 
 export function baseOption(): ChartOption {

@@ -19,7 +19,7 @@ export function lindemannChart(curve: ReportCurve, summary: LindemannSummary | u
     data: points(column(curve, 'atom') ?? [], column(curve, 'Lindemann index') ?? []),
   };
   if (summary) {
-    series.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' }, label: { formatter: `threshold ${summary.threshold}`, color: GUIDE }, data: [{ yAxis: summary.threshold }] };
+    series.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' }, label: { formatter: `melting threshold ${summary.threshold}`, position: 'insideEndTop', color: GUIDE }, data: [{ yAxis: summary.threshold }] };
   }
   return { ...baseOption(), tooltip: { trigger: 'item' }, xAxis: xAxis('atom index', 'value', { scale: false, min: 0 }), yAxis: yAxis('Lindemann index', 'value', { scale: false, min: 0 }), series: [series] };
 }

@@ -3,11 +3,16 @@ import type { RdfSummary } from '../../../../shared/report-summary';
 import { xAxis, yAxis, baseOption, GUIDE, line, type ChartOption } from './chart-option';
 import { column, groupColumns, points } from './curve-columns';
 
+/** With one species the single pair repeats "all" line for line; drawing it twice only hides the first. */
+function shown<T extends { group: string }>(groups: T[]): T[] {
+  return groups.length === 2 && groups[0]!.group === 'all' ? [groups[0]!] : groups;
+}
+
 /** g(r) per pair on the left axis, the running coordination number on the right, the first minimum marked. */
 export function rdfChart(curve: ReportCurve, summary: RdfSummary | undefined): ChartOption {
   const r = column(curve, 'r') ?? [];
-  const g = groupColumns(curve, 'g').map(({ group, values }) => line(`g(r) ${group}`, points(r, values)));
-  const n = groupColumns(curve, 'N').map(({ group, values }) => line(`N(r) ${group}`, points(r, values), { yAxisIndex: 1, lineStyle: { type: 'dashed', width: 1.4 } }));
+  const g = shown(groupColumns(curve, 'g')).map(({ group, values }) => line(`g(r) ${group}`, points(r, values)));
+  const n = shown(groupColumns(curve, 'N')).map(({ group, values }) => line(`N(r) ${group}`, points(r, values), { yAxisIndex: 1, lineStyle: { type: 'dashed', width: 1.4 } }));
   const shell = summary?.pairs[0]?.firstMinimum;
   const first = g[0];
   if (first && shell) {
@@ -18,7 +23,7 @@ export function rdfChart(curve: ReportCurve, summary: RdfSummary | undefined): C
     };
   }
   // N(r) grows as r³; past a few shells it would flatten g(r) into the floor.
-  const nMax = shell ? Math.ceil(shell.coordination * 4) : undefined;
+  const nMax = shell ? Math.ceil((shell.coordination * 4) / 10) * 10 : undefined;
   return {
     ...baseOption(),
     xAxis: xAxis('r (Å)', 'value', { scale: false, min: 0 }),

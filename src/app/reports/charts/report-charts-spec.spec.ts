@@ -65,3 +65,19 @@ describe('report chart specs', () => {
     expect((inCm[1]!.data as [number, number][])[0]).toEqual([66.71, cmLine[2]![1]]);
   });
 });
+
+describe('g(r) chart', () => {
+  const r = [0, 1, 2, 3];
+  const withRdf = (columns: [string, string, (number | null)[]][]): ReportDto => ({ ...report, summary: {}, curves: { rdf: curve([['r', 'Å', r], ...columns]) } });
+  const names = (dto: ReportDto) => seriesOf(reportChartSpecs(dto, { diffusion: 'a2PerPs', frequency: 'thz' })[0]!).map((s) => s.name);
+
+  it('when there is one species, then its pair is not drawn again on top of "all"', () => {
+    expect(names(withRdf([['g all', '1', [0, 0, 2, 1]], ['N all', 'atoms', [0, 0, 4, 12]], ['g Ar-Ar', '1', [0, 0, 2, 1]], ['N Ar-Ar', 'atoms', [0, 0, 4, 12]]])))
+      .toEqual(['g(r) all', 'N(r) all']);
+  });
+
+  it('when there are several species, then every pair is drawn beside "all"', () => {
+    const cols = ['all', 'Na-Na', 'Na-Cl', 'Cl-Cl'].flatMap((p): [string, string, number[]][] => [[`g ${p}`, '1', [0, 1, 2, 1]], [`N ${p}`, 'atoms', [0, 1, 2, 3]]]);
+    expect(names(withRdf(cols))).toEqual(['g(r) all', 'g(r) Na-Na', 'g(r) Na-Cl', 'g(r) Cl-Cl', 'N(r) all', 'N(r) Na-Na', 'N(r) Na-Cl', 'N(r) Cl-Cl']);
+  });
+});

@@ -1,7 +1,7 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { MeanWithError } from '../../../../shared/report-summary';
 import { formatWithError } from '../number-format';
-import { xAxis, yAxis, BAND, baseOption, GUIDE, line, type ChartOption } from './chart-option';
+import { xAxis, yAxis, BAND, LABEL_BACKGROUND, baseOption, GUIDE, line, type ChartOption } from './chart-option';
 import { column, points } from './curve-columns';
 
 /** One quantity against time with its block-averaged mean drawn as a line and ± one standard error as a band. */
@@ -11,7 +11,7 @@ export function timeSeriesChart(curve: ReportCurve, columnName: 'temperature' | 
   if (mean) {
     series.markLine = {
       silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' },
-      label: { formatter: `mean ${formatWithError(mean.mean, mean.stdError)} ${unit}`, position: 'insideEndTop', color: GUIDE },
+      label: { formatter: `mean ${formatWithError(mean.mean, mean.stdError)} ${unit}`, position: 'insideEndTop', color: GUIDE, backgroundColor: LABEL_BACKGROUND, padding: [2, 4] },
       data: [{ yAxis: mean.mean }],
     };
     series.markArea = { silent: true, itemStyle: { color: BAND }, data: [[{ yAxis: mean.mean - mean.stdError }, { yAxis: mean.mean + mean.stdError }]] };
