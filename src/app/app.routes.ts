@@ -18,6 +18,10 @@ export const routes: Routes = [
     path: 'projects/:id/settings', title: 'Project settings · Ergodic', canActivate: [signedInGuard],
     loadComponent: () => import('./projects/project-settings-page'),
   },
+  {
+    path: 'trajectories/:id/view', title: 'Frame viewer · Ergodic', canActivate: [signedInGuard],
+    loadComponent: () => import('./viewer/viewer-page'),
+  },
   { path: 'account/tokens', title: 'API tokens · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./auth/tokens-page') },
   { path: 'admin/users', title: 'Users · Ergodic', canActivate: [adminGuard], loadComponent: () => import('./admin/users-page') },
   { path: 'admin/mail', title: 'Sent mail · Ergodic', canActivate: [adminGuard], loadComponent: () => import('./admin/dev-mail-page') },

@@ -54,12 +54,20 @@ describe('decodeFramesPayload', () => {
     expect(() => decodeFramesPayload(cut)).toThrow(/expected \d+ bytes for 1 frames of 2 atoms/);
   });
 
-  it('when the header is not the frames layout, then decoding refuses it', () => {
-    const json = new TextEncoder().encode('{"error":{"message":"nope"}}');
-    const bytes = new Uint8Array(4 + json.length);
-    new DataView(bytes.buffer).setUint32(0, json.length, true);
-    bytes.set(json, 4);
-    expect(() => decodeFramesPayload(bytes.buffer)).toThrow(/unexpected shape/);
+  it('when the header is not the frames layout, then decoding refuses it and says what is wrong', () => {
+    const withHeader = (text: string) => {
+      const json = new TextEncoder().encode(text);
+      const bytes = new Uint8Array(4 + json.length);
+      new DataView(bytes.buffer).setUint32(0, json.length, true);
+      bytes.set(json, 4);
+      return bytes.buffer;
+    };
+    const good = { atoms: 0, speciesNames: [], speciesIndex: [], lengthUnit: 'angstrom', frames: [{ index: 0, time: null, cell: null }] };
+    expect(decodeFramesPayload(withHeader(JSON.stringify(good))).frames).toHaveLength(1);
+    expect(() => decodeFramesPayload(withHeader('{"error":{"message":"nope"}}'))).toThrow(/unexpected shape \(atoms is not a count\)/);
+    expect(() => decodeFramesPayload(withHeader(JSON.stringify({ ...good, lengthUnit: 'nm' })))).toThrow(/lengthUnit/);
+    expect(() => decodeFramesPayload(withHeader(JSON.stringify({ ...good, frames: [{ index: 0, time: null, cell: [1, 2] }] })))).toThrow(/9-number cell/);
+    expect(() => decodeFramesPayload(withHeader('not json'))).toThrow(/not JSON/);
     expect(() => decodeFramesPayload(new ArrayBuffer(2))).toThrow(/length prefix/);
   });
 });

@@ -1,5 +1,3 @@
-import { z } from 'zod';
-
 /** One frame as the viewer keeps it: its own copy of the positions, so cache accounting is exact. */
 export interface ViewerFrame {
   /** 0-based frame index in the trajectory. */
@@ -28,21 +26,35 @@ export class FramesPayloadError extends Error {
   }
 }
 
-const headerSchema = z.object({
-  atoms: z.number().int().min(0),
-  speciesNames: z.array(z.string()),
-  speciesIndex: z.array(z.number().int().min(0)),
-  frames: z.array(z.object({
-    index: z.number().int().min(0),
-    time: z.number().nullable(),
-    cell: z.array(z.number()).length(9).nullable(),
-  })),
-  lengthUnit: z.literal('angstrom'),
-});
+interface FramesHeader {
+  atoms: number;
+  speciesNames: string[];
+  speciesIndex: number[];
+  frames: { index: number; time: number | null; cell: number[] | null }[];
+}
+
+const isCount = (v: unknown): v is number => Number.isInteger(v) && (v as number) >= 0;
+const isNumberOrNull = (v: unknown): v is number | null => v === null || typeof v === 'number';
+const isCell = (v: unknown): v is number[] | null => v === null || (Array.isArray(v) && v.length === 9 && v.every((x) => typeof x === 'number'));
+
+/** The reason the header is not the frames layout, or null when it is. */
+function headerProblem(h: Record<string, unknown>): string | null {
+  if (!isCount(h['atoms'])) return 'atoms is not a count';
+  if (h['lengthUnit'] !== 'angstrom') return 'lengthUnit is not angstrom';
+  if (!Array.isArray(h['speciesNames']) || !h['speciesNames'].every((n) => typeof n === 'string')) return 'speciesNames is not a list of labels';
+  if (!Array.isArray(h['speciesIndex']) || !h['speciesIndex'].every(isCount)) return 'speciesIndex is not a list of indices';
+  if (!Array.isArray(h['frames'])) return 'frames is not a list';
+  for (const f of h['frames'] as unknown[]) {
+    if (typeof f !== 'object' || f === null) return 'a frame is not an object';
+    const frame = f as Record<string, unknown>;
+    if (!isCount(frame['index']) || !isNumberOrNull(frame['time']) || !isCell(frame['cell'])) return 'a frame lacks index, time or a 9-number cell';
+  }
+  return null;
+}
 
 const HOST_IS_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
-function readHeader(buffer: ArrayBuffer): { header: z.infer<typeof headerSchema>; dataOffset: number } {
+function readHeader(buffer: ArrayBuffer): { header: FramesHeader; dataOffset: number } {
   if (buffer.byteLength < 4) throw new FramesPayloadError('it is shorter than its 4-byte length prefix.');
   const headerBytes = new DataView(buffer).getUint32(0, true);
   if (4 + headerBytes > buffer.byteLength) throw new FramesPayloadError('the header runs past the end of the response.');
@@ -52,9 +64,10 @@ function readHeader(buffer: ArrayBuffer): { header: z.infer<typeof headerSchema>
   } catch {
     throw new FramesPayloadError('the header is not JSON.');
   }
-  const parsed = headerSchema.safeParse(json);
-  if (!parsed.success) throw new FramesPayloadError(`the header has an unexpected shape (${parsed.error.issues[0]?.message ?? 'unknown'}).`);
-  return { header: parsed.data, dataOffset: 4 + headerBytes };
+  if (typeof json !== 'object' || json === null) throw new FramesPayloadError('the header has an unexpected shape (not an object).');
+  const problem = headerProblem(json as Record<string, unknown>);
+  if (problem) throw new FramesPayloadError(`the header has an unexpected shape (${problem}).`);
+  return { header: json as FramesHeader, dataOffset: 4 + headerBytes };
 }
 
 function copyPositions(buffer: ArrayBuffer, offset: number, values: number): Float32Array {
