@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
+import { ProjectReports } from '../reports/project-reports';
 import { ProjectTrajectories } from '../trajectories/project-trajectories';
 import type { ProjectSummary } from './project-types';
 
@@ -15,7 +16,7 @@ import type { ProjectSummary } from './project-types';
  */
 @Component({
   selector: 'erg-project-page',
-  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule, ProjectTrajectories],
+  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule, ProjectTrajectories, ProjectReports],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page">
@@ -41,6 +42,7 @@ import type { ProjectSummary } from './project-types';
           <h2 id="trajectories-heading">Trajectories</h2>
           <erg-project-trajectories [projectId]="p.id" [canEdit]="canEditSettings()" />
         </section>
+        <erg-project-reports [projectId]="p.id" />
       }
     </section>
   `,
