@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder.ts';
 import { lennardJonesExtxyz } from '../support/fixtures.ts';
+import { syntheticSystemExtxyz } from '../support/synthetic-system.ts';
 import { canvasPixels } from './helpers/canvas-pixels.ts';
 import { readyTrajectory, settledTrajectory } from './helpers/viewer-data.ts';
 
@@ -77,6 +78,29 @@ test.describe('frame viewer', () => {
     await expect(page.getByRole('button', { name: 'Pause', exact: true })).toBeVisible();
     await page.keyboard.press('Space');
     await expect(page.getByRole('button', { name: 'Play', exact: true })).toBeVisible();
+  });
+
+  test('when a large system is opened, then its atoms are drawn as sprites and can still be picked', async ({ page, context }) => {
+    // Above 10 000 atoms the viewer switches from meshes to sprites.
+    const trajectory = await readyTrajectory(context, 'argon-12k.extxyz', syntheticSystemExtxyz(12_000, 3));
+    await page.goto(`/trajectories/${trajectory.id}/view`);
+    const canvas = page.getByRole('img', { name: /3D view of frame 1 of 3, 12000 atoms/ });
+    let pixels = await canvasPixels(page, canvas, BACKGROUND);
+    await expect.poll(async () => (pixels = await canvasPixels(page, canvas, BACKGROUND)).drawn / (pixels.width * pixels.height)).toBeGreaterThan(0.1);
+
+    // Zoomed in, single atoms are large enough to aim at.
+    await canvas.hover();
+    for (let k = 0; k < 4; k++) await page.mouse.wheel(0, -400);
+    await expect.poll(async () => (pixels = await canvasPixels(page, canvas, BACKGROUND)).solidPoint).not.toBeNull();
+    await canvas.click({ position: pixels.solidPoint! });
+
+    const selected = page.getByRole('region', { name: 'Selected atom' });
+    await expect(selected).toContainText('Ar');
+    const index = Number(/Index\s*(\d+)/.exec((await selected.textContent()) ?? '')?.[1]);
+    const body = await (await context.request.get(`/api/trajectories/${trajectory.id}/frames?from=0&to=1`)).body();
+    const payload = decodeFramesPayload(body.buffer.slice(body.byteOffset, body.byteOffset + body.byteLength) as ArrayBuffer);
+    await expect(selected).toContainText(new RegExp(`z\\s*${payload.frames[0]!.positions[index * 3 + 2]!.toFixed(3).replace('.', '\\.')} Å`));
+    await screen(page, 'viewer-large-system');
   });
 
   test('when a species is switched off, then its spheres disappear from the view', async ({ page, context }) => {

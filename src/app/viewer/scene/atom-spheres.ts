@@ -2,12 +2,11 @@ import { DynamicDrawUsage, Group, IcosahedronGeometry, InstancedMesh, MeshPhongM
 import { mergeVertices } from 'three/examples/jsm/utils/BufferGeometryUtils.js';
 import { atomsBySpecies, initialiseScaledMatrices, writeTranslations } from '../instance-matrices';
 import { SPHERE_SCALE, speciesStyle } from '../species-style';
+import type { AtomLayer } from './atom-layer';
 
-/** Fewer facets per sphere as systems grow, so 50 000 atoms stay interactive. */
+/** Fewer facets per sphere as systems grow. */
 export function sphereDetail(atoms: number): number {
-  if (atoms > 20_000) return 1;
-  if (atoms > 2_000) return 2;
-  return 3;
+  return atoms > 2_000 ? 1 : 2;
 }
 
 function sphereGeometry(atoms: number): BufferGeometry {
@@ -18,7 +17,7 @@ function sphereGeometry(atoms: number): BufferGeometry {
 }
 
 /** One instanced mesh of spheres per species; species visibility is then one flag per mesh. */
-export class AtomSpheres {
+export class AtomSpheres implements AtomLayer {
   readonly group = new Group();
   private readonly geometry: BufferGeometry;
   private readonly meshes: InstancedMesh[];

@@ -2,14 +2,7 @@ import {
   Color, DirectionalLight, HemisphereLight, PerspectiveCamera, Raycaster, Scene, Vector2, Vector3, WebGLRenderer, type Object3D,
 } from 'three';
 import { OrbitControls } from 'three/examples/jsm/controls/OrbitControls.js';
-
-/** Colours chosen for Ergodic's light theme. */
-export const STAGE_COLOURS = {
-  background: '#eef2f3',
-  cell: '#40646b',
-  selection: '#a16c2d',
-  path: '#663d07',
-} as const;
+import { STAGE_COLOURS, STAGE_LIGHTS } from './stage-style';
 
 /** Pointer travel, in CSS pixels, under which a press-and-release counts as a click rather than a drag. */
 const CLICK_SLOP_PX = 4;
@@ -34,16 +27,17 @@ export class AtomStage {
   /** Called with a ray through the point clicked (pressed and released without dragging). */
   onClick: (ray: Raycaster) => void = () => {};
 
-  constructor(private readonly canvas: HTMLCanvasElement, atoms: number) {
-    // Multisampling is the first thing to give up when a software renderer has 50 000 spheres to draw.
-    this.renderer = new WebGLRenderer({ canvas, antialias: atoms <= 20_000, powerPreference: 'high-performance' });
+  constructor(private readonly canvas: HTMLCanvasElement, antialias: boolean) {
+    this.renderer = new WebGLRenderer({ canvas, antialias, powerPreference: 'high-performance' });
     this.renderer.setPixelRatio(Math.min(globalThis.devicePixelRatio || 1, 2));
     this.scene.background = new Color(STAGE_COLOURS.background);
     // Sky and ground tints keep shadowed sides readable on a pale background; the key light follows the camera.
-    this.scene.add(new HemisphereLight(0xffffff, 0x8a9799, 1.6));
+    this.scene.add(new HemisphereLight(STAGE_LIGHTS.sky, STAGE_LIGHTS.ground, 1.6));
     const key = new DirectionalLight(0xffffff, 1.8);
     key.position.set(0.4, 0.6, 1);
-    this.camera.add(key);
+    // With its target on the camera too, the key light keeps one direction in view space (KEY_LIGHT_IN_VIEW).
+    key.target.position.set(0, 0, -1);
+    this.camera.add(key, key.target);
     this.scene.add(this.camera);
 
     this.controls = new OrbitControls(this.camera, canvas);

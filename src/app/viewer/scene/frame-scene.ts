@@ -1,9 +1,10 @@
 import { cellCentre } from '../cell-geometry';
 import type { ViewerFrame } from '../frames-payload-decoder';
-import { AtomSpheres } from './atom-spheres';
-import { AtomStage, STAGE_COLOURS } from './atom-stage';
+import { createAtomLayer, SPRITE_ATOMS, type AtomLayer } from './atom-layer';
+import { AtomStage } from './atom-stage';
 import { CellOutline } from './cell-outline';
 import { SelectionMarker } from './selection-marker';
+import { STAGE_COLOURS } from './stage-style';
 
 /** Species of the system, as the frames API lists them. */
 export interface SystemSpecies {
@@ -33,7 +34,7 @@ function extentOf(frame: ViewerFrame): { centre: number[]; radius: number } {
 /** Everything drawn for one frame: spheres, cell, selection; the page drives it. */
 export class FrameScene {
   private readonly stage: AtomStage;
-  private readonly spheres: AtomSpheres;
+  private readonly spheres: AtomLayer;
   private readonly cell = new CellOutline(STAGE_COLOURS.cell);
   private readonly marker = new SelectionMarker(STAGE_COLOURS.selection, STAGE_COLOURS.path);
   private positions: Float32Array | null = null;
@@ -45,8 +46,9 @@ export class FrameScene {
   onPick: (atom: number | null) => void = () => {};
 
   constructor(canvas: HTMLCanvasElement, system: SystemSpecies) {
-    this.stage = new AtomStage(canvas, system.speciesIndex.length);
-    this.spheres = new AtomSpheres(system.speciesNames, system.speciesIndex);
+    // Multisampling cannot smooth the sprites' edges anyway, and costs software renderers dearly.
+    this.stage = new AtomStage(canvas, system.speciesIndex.length <= SPRITE_ATOMS);
+    this.spheres = createAtomLayer(system.speciesNames, system.speciesIndex);
     this.stage.add(this.spheres.group, this.cell.lines, this.marker.group);
     this.stage.onClick = (ray) => this.onPick(this.spheres.pick(ray));
   }
