@@ -1,6 +1,7 @@
 /**
  * Peaks of a sampled non-negative spectrum: local maxima above a fraction of
- * the largest value, centred by a parabola through the logarithm of the three
+ * the largest value that also stand out from their surroundings (topographic
+ * prominence, so ripples on a broad band are not listed as lines), centred by a parabola through the logarithm of the three
  * top samples (exact for a Gaussian line), widths at half maximum by linear
  * interpolation between samples.
  */
@@ -11,15 +12,19 @@ export interface Peak {
   fwhm: number;
 }
 
-export function findPeaks(x: ArrayLike<number>, y: ArrayLike<number>, options: { minRelativeHeight?: number; maxPeaks?: number } = {}): Peak[] {
+export function findPeaks(
+  x: ArrayLike<number>, y: ArrayLike<number>, options: { minRelativeHeight?: number; minRelativeProminence?: number; maxPeaks?: number } = {},
+): Peak[] {
   const n = y.length;
   const minRel = options.minRelativeHeight ?? 0.05;
+  const minProminence = options.minRelativeProminence ?? 0.1;
   let top = 0;
   for (let i = 0; i < n; i++) top = Math.max(top, y[i]);
   if (!(top > 0)) return [];
   const peaks: Peak[] = [];
   for (let k = 1; k < n - 1; k++) {
     if (!(y[k] > y[k - 1] && y[k] >= y[k + 1] && y[k] >= minRel * top)) continue;
+    if (prominence(y, k) < minProminence * top) continue;
     const dx = x[k + 1] - x[k];
     let offset = 0;
     let height = y[k];
@@ -38,6 +43,19 @@ export function findPeaks(x: ArrayLike<number>, y: ArrayLike<number>, options: {
   }
   peaks.sort((p, q) => q.height - p.height);
   return peaks.slice(0, options.maxPeaks ?? 20);
+}
+
+/** How far a peak rises above the higher of the lowest points separating it from higher ground on each side. */
+function prominence(y: ArrayLike<number>, k: number): number {
+  const base = (dir: -1 | 1): number => {
+    let low = y[k];
+    for (let i = k + dir; i >= 0 && i < y.length; i += dir) {
+      if (y[i] > y[k]) return low;
+      low = Math.min(low, y[i]);
+    }
+    return low;
+  };
+  return y[k] - Math.max(base(-1), base(1));
 }
 
 function crossing(x: ArrayLike<number>, y: ArrayLike<number>, k: number, dir: -1 | 1, level: number): number {
