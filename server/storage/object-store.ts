@@ -14,6 +14,9 @@ export class ObjectStore {
   }
 
   static fromConfig(config: Config): ObjectStore {
+    // The SDK version is pinned by the lock file to one that supports Node 20;
+    // its notice about future releases would only repeat in every log.
+    process.env['AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED'] ??= 'true';
     const client = new S3Client({
       endpoint: config.S3_ENDPOINT,
       region: config.S3_REGION,
