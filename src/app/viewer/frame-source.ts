@@ -94,7 +94,16 @@ export class FrameSource {
     if (this.halted) return;
     const isWanted = (f: number) => !this.cache.has(f) && ![...this.pending].some((p) => f >= p.range.from && f < p.range.to);
     const plan = this.interest.flatMap((range) => planRequests(range, isWanted, this.perRequest));
-    for (const range of plan.slice(0, Math.max(0, this.maxConcurrent - this.pending.size))) this.start(range);
+    // Nothing on screen yet: one frame alone arrives soonest, the rest of its chunk follows beside it.
+    const first = plan[0];
+    if (first && this.cache.size === 0 && this.pending.size === 0 && first.to - first.from > 1) {
+      plan.splice(0, 1, { from: first.from, to: first.from + 1 }, { from: first.from + 1, to: first.to });
+    }
+    for (const range of plan.slice(0, Math.max(0, this.maxConcurrent - this.pending.size))) {
+      // A request can fail as soon as it starts; the rest of the plan then waits for a retry too.
+      if (this.halted) break;
+      this.start(range);
+    }
   }
 
   private start(range: FrameRange): void {
