@@ -21,7 +21,7 @@ test('when an owner invites a colleague by e-mail, then the colleague signs up f
     await dialog.getByLabel('Description').fill('Three temperatures of a Lennard-Jones liquid.');
     await dialog.getByRole('button', { name: 'Create project' }).click();
     await expect(page.getByRole('heading', { name: projectName, level: 1 })).toBeVisible();
-    await expect(page.getByText('Trajectories arrive here.')).toBeVisible();
+    await expect(page.getByText('No trajectories yet. Drop files above to upload the first.')).toBeVisible();
   });
 
   await test.step('the owner invites the colleague as a viewer', async () => {
@@ -52,6 +52,7 @@ test('when an owner invites a colleague by e-mail, then the colleague signs up f
       await expect(guest.getByRole('heading', { name: projectName, level: 1 })).toBeVisible();
       await expect(guest.getByText('You are a Viewer')).toBeVisible();
       await expect(guest.getByRole('link', { name: 'Settings' })).toHaveCount(0);
+      await expect(guest.getByTestId('drop-zone')).toHaveCount(0);
       await expect(guest.getByRole('button', { name: 'New project' })).toHaveCount(0);
 
       await guest.getByRole('link', { name: 'Projects', exact: true }).click();
