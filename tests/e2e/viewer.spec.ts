@@ -137,6 +137,24 @@ test.describe('frame viewer', () => {
     await expect(page.getByRole('img', { name: /3D view of frame 1 of/ })).toBeVisible();
   });
 
+  test('when the trajectory is still being inspected, then the page waits and opens the viewer by itself once it is ready', async ({ page, context }) => {
+    const { bytes } = await lennardJonesExtxyz({ productionSteps: 200 });
+    const trajectory = await readyTrajectory(context, 'argon-late.extxyz', bytes);
+    let stillInspecting = 2;
+    await page.route(new RegExp(`/api/trajectories/${trajectory.id}$`), async (route) => {
+      if (stillInspecting-- <= 0) return route.continue();
+      const response = await route.fetch();
+      return route.fulfill({ response, json: { ...((await response.json()) as object), status: 'inspecting' } });
+    });
+
+    await page.goto(`/trajectories/${trajectory.id}/view`);
+
+    await expect(page.getByRole('status').filter({ hasText: 'still being inspected' })).toBeVisible();
+    await screen(page, 'viewer-inspecting');
+    await expect(page.getByRole('img', { name: /3D view of frame 1 of/ })).toBeVisible({ timeout: 30_000 });
+    expect(stillInspecting).toBeLessThan(0);
+  });
+
   test('when the trajectory could not be read, then the page says why instead of drawing', async ({ page, context }) => {
     const broken = await settledTrajectory(context, 'broken.xyz', Buffer.from('2\nfirst\nAr 0 0 0\nAr 1 1 1\n2\nsecond\nAr 0 0 0\nAr 1 x 1\n'));
     expect(broken.status).toBe('failed');
