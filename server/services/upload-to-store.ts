@@ -24,7 +24,8 @@ declare global {
 
 /** Object keys never contain user text beyond a sanitised name. */
 export function objectKeyFor(projectId: number, fileName: string): string {
-  const safe = fileName.normalize('NFKC').replace(/[^\w.+-]+/g, '_').replace(/^\.+/, '').slice(-120) || 'trajectory';
+  const base = fileName.split(/[\\/]/).pop() ?? '';
+  const safe = base.normalize('NFKC').replace(/[^\w.+-]+/g, '_').replace(/^\.+/, '').slice(-120) || 'trajectory';
   return `projects/${projectId}/trajectories/${randomUUID()}/${safe}`;
 }
 
