@@ -48,6 +48,11 @@ export class FramePlayer {
 
   open(trajectoryId: string, frames: number, atoms: number): void {
     this.source?.dispose();
+    this.system.set(null);
+    this.current.set(null);
+    this.playhead.set(0);
+    this.playing.set(false);
+    this.error.set(null);
     this.total.set(frames);
     this.ahead = prefetchAhead(atoms, FRAME_CACHE_BYTES);
     const source = new FrameSource((range) => this.api.frames(trajectoryId, range), { total: frames, atoms, cacheBytes: FRAME_CACHE_BYTES });

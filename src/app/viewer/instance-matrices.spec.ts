@@ -1,6 +1,6 @@
 import { Matrix4, Vector3 } from 'three';
 import { describe, expect, it } from 'vitest';
-import { atomsBySpecies, initialiseScaledMatrices, writeTranslations } from './instance-matrices';
+import { initialiseScaledMatrices, writeTranslations } from './instance-matrices';
 
 describe('instance matrices', () => {
   it('when initialised and translated, then each matrix equals three.js compose(position, identity, scale)', () => {
@@ -27,10 +27,5 @@ describe('instance matrices', () => {
     writeTranslations(target, Uint32Array.from([0]), Float32Array.from([5, 6, 7]));
     const changed = Array.from(target).flatMap((v, k) => (v !== before[k] ? [k] : []));
     expect(changed).toEqual([12, 13, 14]);
-  });
-
-  it('when atoms are grouped by species, then each list holds its atoms in order', () => {
-    const lists = atomsBySpecies(Uint16Array.from([1, 0, 1, 2, 1]), 3);
-    expect(lists.map((l) => Array.from(l))).toEqual([[1], [0, 2, 4], [3]]);
   });
 });

@@ -25,15 +25,3 @@ export function writeTranslations(target: Float32Array, atoms: Uint32Array, posi
     target[o + 2] = positions[p + 2]!;
   }
 }
-
-/** For each species, the atoms that belong to it, in atom order. */
-export function atomsBySpecies(speciesIndex: Uint16Array, speciesCount: number): Uint32Array[] {
-  const counts = new Uint32Array(speciesCount);
-  for (const s of speciesIndex) counts[s]!++;
-  const lists = Array.from(counts, (n) => new Uint32Array(n));
-  const filled = new Uint32Array(speciesCount);
-  speciesIndex.forEach((s, atom) => {
-    lists[s]![filled[s]!++] = atom;
-  });
-  return lists;
-}

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { nearestSphereHit, type PickRay } from './ray-pick';
-import { gatherPositions } from './species-positions';
 
 const along = (x: number, y: number, z: number): PickRay => ({ origin: { x: 0, y: 0, z: -10 }, direction: { x, y, z } });
 const positions = Float32Array.from([
@@ -27,13 +26,5 @@ describe('nearestSphereHit', () => {
 
   it('when a sphere is behind the origin, then it is not picked', () => {
     expect(nearestSphereHit(along(0, 0, 1), positions, Uint32Array.from([3]), 0.5)).toBeNull();
-  });
-});
-
-describe('gatherPositions', () => {
-  it('when a species is gathered, then its atoms come out in list order', () => {
-    const target = new Float32Array(6);
-    gatherPositions(target, Uint32Array.from([3, 1]), positions);
-    expect(Array.from(target)).toEqual([0, 0, -20, 0, 0, 5]);
   });
 });

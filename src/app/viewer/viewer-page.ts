@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
-import { switchMap } from 'rxjs';
+import { catchError, EMPTY, switchMap, tap } from 'rxjs';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { atomPath } from './atom-path';
 import { cellLengths } from './cell-geometry';
@@ -17,7 +17,7 @@ import { PlaybackBar } from './playback-bar';
 import { requestErrorMessage } from './request-error-message';
 import { FrameScene, type SystemSpecies } from './scene/frame-scene';
 import { SelectedAtomPanel, type SelectedAtom } from './selected-atom-panel';
-import { speciesStyle } from './species-style';
+import { speciesEntries } from './species-entries';
 import { watchTrajectory } from './trajectory-watch';
 import { ViewerApi } from './viewer-api';
 import { viewerCommand } from './viewer-keys';
@@ -92,12 +92,14 @@ export default class ViewerPage {
 
   constructor() {
     toObservable(this.id).pipe(
-      switchMap((id) => watchTrajectory(() => this.api.trajectory(id))),
+      // The router reuses this page when only the id changes, so the previous trajectory is cleared first.
+      tap(() => this.clear()),
+      switchMap((id) => watchTrajectory(() => this.api.trajectory(id)).pipe(catchError((err: unknown) => {
+        this.loadError.set(requestErrorMessage(err, 'This trajectory could not be loaded'));
+        return EMPTY;
+      }))),
       takeUntilDestroyed(),
-    ).subscribe({
-      next: (t) => this.receive(t),
-      error: (err: unknown) => this.loadError.set(requestErrorMessage(err, 'This trajectory could not be loaded')),
-    });
+    ).subscribe((t) => this.receive(t));
     inject(DestroyRef).onDestroy(() => this.scene()?.dispose());
     effect(() => {
       const canvas = this.canvas()?.nativeElement;
@@ -138,6 +140,15 @@ export default class ViewerPage {
     this.hiddenSpecies.set(new Set(all.filter((s) => !visible.has(s))));
   }
 
+  private clear(): void {
+    this.scene()?.dispose();
+    this.scene.set(null);
+    this.trajectory.set(null);
+    this.loadError.set(null);
+    this.selectedIndex.set(null);
+    this.hiddenSpecies.set(new Set());
+  }
+
   private receive(t: TrajectoryDto): void {
     const opening = t.status === 'ready' && this.trajectory()?.status !== 'ready';
     this.trajectory.set(t);
@@ -171,11 +182,4 @@ export default class ViewerPage {
     const back = untracked(() => Array.from({ length }, (_, k) => (k === 0 ? frame : this.player.cached(frame.index - k))?.positions));
     scene.setPath(atomPath(back, atom, frame.cell));
   }
-}
-
-function speciesEntries(system: SystemSpecies | null, hidden: ReadonlySet<number>): SpeciesEntry[] {
-  if (!system) return [];
-  const counts = new Array<number>(system.speciesNames.length).fill(0);
-  for (const s of system.speciesIndex) counts[s]!++;
-  return system.speciesNames.map((name, index) => ({ index, name, count: counts[index]!, colour: speciesStyle(name).colour, visible: !hidden.has(index) }));
 }

@@ -1,6 +1,7 @@
 import { DynamicDrawUsage, Group, IcosahedronGeometry, InstancedMesh, MeshPhongMaterial, type BufferGeometry, type Raycaster } from 'three';
 import { mergeVertices } from 'three/examples/jsm/utils/BufferGeometryUtils.js';
-import { atomsBySpecies, initialiseScaledMatrices, writeTranslations } from '../instance-matrices';
+import { initialiseScaledMatrices, writeTranslations } from '../instance-matrices';
+import { atomsBySpecies } from '../species-positions';
 import { SPHERE_SCALE, speciesStyle } from '../species-style';
 import type { AtomLayer } from './atom-layer';
 

@@ -1,7 +1,6 @@
 import { BufferAttribute, BufferGeometry, DynamicDrawUsage, Group, Points, type Raycaster, type ShaderMaterial } from 'three';
-import { atomsBySpecies } from '../instance-matrices';
 import { nearestSphereHit, type SphereHit } from '../ray-pick';
-import { gatherPositions } from '../species-positions';
+import { atomsBySpecies, gatherPositions } from '../species-positions';
 import { SPHERE_SCALE, speciesStyle } from '../species-style';
 import type { AtomLayer } from './atom-layer';
 import { STAGE_LIGHTS } from './stage-style';

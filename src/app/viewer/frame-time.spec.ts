@@ -1,7 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ELEMENTS } from '../../../shared/elements';
 import { frameTimePs } from './frame-time';
-import { speciesStyle } from './species-style';
 
 describe('frameTimePs', () => {
   it('when the file states a time, then it is converted to ps', () => {
@@ -13,16 +11,5 @@ describe('frameTimePs', () => {
     expect(frameTimePs({ index: 4, time: null }, 0.5, 'ps')).toBe(2);
     expect(frameTimePs({ index: 4, time: null }, null, 'ps')).toBeNull();
     expect(frameTimePs({ index: 4, time: 1 }, null, 'fortnights')).toBeNull();
-  });
-});
-
-describe('speciesStyle', () => {
-  it('when a label names an element, then its colour and covalent radius come from the shared table', () => {
-    expect(speciesStyle('OW')).toEqual({ colour: ELEMENTS.get('O')!.colour, radiusA: ELEMENTS.get('O')!.covalentRadiusA, known: true });
-    expect(speciesStyle('Ar1').radiusA).toBe(ELEMENTS.get('Ar')!.covalentRadiusA);
-  });
-
-  it('when a label names no element, then a neutral stand-in is used', () => {
-    expect(speciesStyle('Q7')).toMatchObject({ radiusA: 1, known: false });
   });
 });
