@@ -6,11 +6,13 @@ import type { BenchRow } from './bench-row.ts';
 import { benchEngine } from './engine.ts';
 import { benchPipeline } from './pipeline.ts';
 import { benchReaders } from './readers.ts';
+import { benchViewer } from './viewer.ts';
 
 const suites: [string, () => Promise<BenchRow[]>][] = [
   ['readers', benchReaders],
   ['engine', benchEngine],
   ['pipeline', benchPipeline],
+  ['viewer', benchViewer],
 ];
 const only = process.argv[2];
 for (const [name, bench] of suites) {
