@@ -26,9 +26,6 @@ const REFERENCE_MSD_ATOMS = 5;
 
 export async function benchEngine(): Promise<BenchRow[]> {
   const traj = synthesise();
-  const float32Bytes = traj.positions.byteLength + (traj.velocities?.byteLength ?? 0);
-  (globalThis as { gc?: () => void }).gc?.();
-  const rssBefore = process.memoryUsage().rss;
   const rows: BenchRow[] = [];
   const time = <R>(f: () => R): [R, number] => {
     const t0 = performance.now();
@@ -41,7 +38,6 @@ export async function benchEngine(): Promise<BenchRow[]> {
   const [, tVdos] = time(() => vdosFromVacf(v, traj));
   const [, tRdf] = time(() => rdf(traj, { rMaxA: R_MAX, binWidthA: BIN }));
   const [, tThermo] = time(() => thermo(traj));
-  const peakRss = process.resourceUsage().maxRSS * 1024;
 
   const tMsdNaive = naiveMsdSeconds(traj) * (N / REFERENCE_MSD_ATOMS);
   const tRdfNaive = bruteRdfSeconds(traj) * (T / REFERENCE_RDF_FRAMES);
@@ -65,20 +61,9 @@ export async function benchEngine(): Promise<BenchRow[]> {
     ratio: npTotal ? total / npTotal : undefined,
     note: numpy ? `numpy ${npTotal?.toFixed(2)} s (its rdf timed on ${REFERENCE_RDF_FRAMES} frames, scaled)` : 'numpy not available: no comparison',
   });
-  rows.push({
-    name: 'peak RSS',
-    seconds: 0,
-    reference: 'Float32 size of positions + velocities (target ≤ 2)',
-    ratio: peakRss / float32Bytes,
-    note: `peak ${(peakRss / 2 ** 20).toFixed(0)} MiB, before analyses ${(rssBefore / 2 ** 20).toFixed(0)} MiB (runtime + trajectory), trajectory ${(float32Bytes / 2 ** 20).toFixed(0)} MiB`,
-  });
-  rows.push({
-    name: 'engine working memory',
-    seconds: 0,
-    reference: 'Float32 size of positions + velocities',
-    ratio: Math.max(0, peakRss - rssBefore) / float32Bytes,
-    note: 'peak RSS growth during the analyses, excluding the runtime and the trajectory itself',
-  });
+  // Memory is measured by the pipeline suite, in a process of its own, so
+  // earlier suites in this run cannot inflate it.
+
   return rows;
 }
 
