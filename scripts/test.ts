@@ -65,6 +65,14 @@ if (suites.includes('e2e')) buildAppIfNeeded(root, log);
 const needsStack = suites.some((s) => s !== 'unit');
 const stack = needsStack ? await startTestStack(log) : null;
 try {
+  // Vitest strips types without checking them, so the compiler checks them here, once per configuration.
+  if (suites.includes('unit') && extraFiles.length === 0) {
+    for (const project of ['tsconfig.server.json', 'tsconfig.spec.json']) {
+      const ok = (await run('npx', ['tsc', '-p', project, '--noEmit'], {})) === 0;
+      log(`type check of ${project}: ${ok ? 'passed' : 'FAILED'}`);
+      add({ passed: ok ? 1 : 0, failed: ok ? 0 : 1, skipped: 0 }, `tsc ${project}`);
+    }
+  }
   const vitestProjects = suites.filter((s) => s !== 'e2e');
   if (vitestProjects.length) {
     const out = join(results, 'vitest.json');

@@ -3,6 +3,7 @@ import { createApp } from './app.ts';
 import { createContext, type RunningContext } from './bootstrap.ts';
 import { loadConfig, type Config } from './config.ts';
 import { runMigrations } from './db/migrate.ts';
+import { dropStaleUploads } from './services/trajectories.ts';
 import { startWorker, type RunningWorker } from './jobs/worker.ts';
 
 export interface RunningServer {
@@ -15,6 +16,8 @@ export interface RunningServer {
 export async function startServer(config: Config = loadConfig()): Promise<RunningServer> {
   const ctx = createContext(config);
   await runMigrations(ctx.db);
+  const dropped = await dropStaleUploads(ctx);
+  if (dropped) ctx.log.info({ dropped }, 'dropped uploads that never finished');
   const app = createApp(ctx);
   const worker: RunningWorker | null = config.RUN_WORKER ? await startWorker(config, ctx.log) : null;
   const server: Server = await new Promise((resolve) => {

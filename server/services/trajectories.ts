@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, lt } from 'drizzle-orm';
 import type { TrajectoryDto, TrajectoryMetadata } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { projects, trajectories, users, type TrajectoryRow } from '../db/schema/index.ts';
@@ -54,6 +54,19 @@ export async function beginUpload(ctx: AppContext, projectId: number, userId: nu
 /** An upload that never completed leaves nothing: no row, and its object is aborted by the caller. */
 export async function abandonUpload(ctx: AppContext, id: number): Promise<void> {
   await ctx.db.delete(trajectories).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
+}
+
+/**
+ * Uploads whose web process went away mid-stream never finish: after a
+ * while their rows are dropped (the object store aborts incomplete
+ * multipart uploads on its own schedule). Returns how many were dropped.
+ */
+export async function dropStaleUploads(ctx: AppContext, olderThanMs = 6 * 3600_000): Promise<number> {
+  const cutoff = new Date(Date.now() - olderThanMs);
+  const stale = await ctx.db.select({ id: trajectories.id }).from(trajectories)
+    .where(and(eq(trajectories.status, 'uploading'), lt(trajectories.createdAt, cutoff)));
+  for (const { id } of stale) await abandonUpload(ctx, id);
+  return stale.length;
 }
 
 /** Records the stored bytes and the uploader's metadata, and queues the inspection. */

@@ -6,6 +6,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { trajectories } from '../../server/db/schema/index.ts';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
+import { dropStaleUploads } from '../../server/services/trajectories.ts';
 import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder.ts';
 import { ApiClient } from '../support/api-client.ts';
 import { signUp, type TestAccount } from '../support/accounts.ts';
@@ -117,6 +118,19 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     expect(seenUploading).toBe(true);
     expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
     expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
+  });
+
+  it('when an upload was left half-done hours ago by a process that went away, then it is dropped, and a recent one is kept', async () => {
+    const [old] = await ctx.db.insert(trajectories).values({
+      projectId, uploadedBy: owner.id, name: 'abandoned.xyz', objectKey: 'projects/x/abandoned', status: 'uploading', createdAt: new Date(Date.now() - 7 * 3600_000),
+    }).$returningId();
+    const [recent] = await ctx.db.insert(trajectories).values({
+      projectId, uploadedBy: owner.id, name: 'in-flight.xyz', objectKey: 'projects/x/in-flight', status: 'uploading',
+    }).$returningId();
+    await dropStaleUploads(ctx);
+    expect(await ctx.db.select().from(trajectories).where(eq(trajectories.id, old.id))).toHaveLength(0);
+    expect(await ctx.db.select().from(trajectories).where(eq(trajectories.id, recent.id))).toHaveLength(1);
+    await ctx.db.delete(trajectories).where(eq(trajectories.id, recent.id));
   });
 
   it('when there is no file part, then it says to send the trajectory in a field named "file"', async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { ReportCurve, ReportDto } from '../../../../shared/report';
 import type { LineSeries, ScatterSeries } from './chart-option';
-import { reportChartSpecs, type ChartSpec } from './report-charts-spec';
+import { reportChartSpecs, type ChartSpec, type ChartUnits } from './report-charts-spec';
 
 const D = (a2PerPs: number) => ({ a2PerPs, e9M2PerS: a2PerPs * 10, cm2PerS: a2PerPs * 1e-4 });
 const lags = [0, 0.1, 0.2, 0.4, 0.8, 1.6];
@@ -27,7 +27,7 @@ const report: ReportDto = {
   },
 };
 
-const spec = (id: string, units = { diffusion: 'a2PerPs' as const, frequency: 'thz' as const }): ChartSpec =>
+const spec = (id: string, units: ChartUnits = { diffusion: 'a2PerPs', frequency: 'thz' }): ChartSpec =>
   reportChartSpecs(report, units).find((s) => s.id === id)!;
 const seriesOf = (s: ChartSpec) => s.option.series as (LineSeries | ScatterSeries)[];
 const area = (data: [number, number][]) => data.slice(1).reduce((sum, [x, y], i) => sum + ((y + data[i]![1]) / 2) * (x - data[i]![0]), 0);
