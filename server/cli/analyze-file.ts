@@ -46,6 +46,7 @@ export async function analyzeFile(path: string, options: AnalyzeFileOptions): Pr
   const [info, inputSha256] = await Promise.all([inspectTrajectory(path, name), sha256Of(path)]);
   const opened = await openTrajectory(path, name);
   const timeStep = options.timeStep ?? info.timeStep;
+  if (timeStep === undefined) throw new Error(`${name} states no time between frames: give it with --dt-ps`);
   const traj = await assembleTrajectory(opened.frames, {
     length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit,
     timeStepPs: timeStep ? timeStep * TIME_TO_PS[options.timeUnit] : undefined, boundary: options.boundary,

@@ -29,6 +29,9 @@ export async function startRun(
   if (trajectory.status !== 'ready') {
     throw conflict(`The trajectory is ${trajectory.status}; analyses can start once it is ready.`);
   }
+  if (!trajectory.timeStep) {
+    throw conflict(`${trajectory.name} states no time between frames: set "Time between frames" in its metadata first.`);
+  }
   const [{ id }] = await ctx.db.insert(analysisRuns).values({
     projectId: trajectory.projectId, trajectoryId, requestedBy: userId, analyses: [...new Set(analyses)], params, status: 'queued',
   }).$returningId();

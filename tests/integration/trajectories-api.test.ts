@@ -133,6 +133,20 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     await ctx.db.delete(trajectories).where(eq(trajectories.id, recent.id));
   });
 
+  it('when a file states no times, then analyses are refused until the time between frames is given, and then accepted', async () => {
+    const res = await upload(null, Buffer.from('2\nno times here\nAr 0 0 0\nAr 1 1 1\n2\n\nAr 0.1 0 0\nAr 1 1.1 1\n2\n\nAr 0.2 0 0\nAr 1 1.2 1\n'), 'untimed.xyz');
+    const ready = await waitUntilSettled(res.body.id);
+    expect(ready.status).toBe('ready');
+    expect(ready.timeStep).toBeNull();
+    const refused = await script.post(`/api/trajectories/${ready.id}/analyses`, { analyses: ['msd'] });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/untimed\.xyz states no time between frames/);
+    await script.patch(`/api/trajectories/${ready.id}`, { timeStep: 2, timeUnit: 'fs' });
+    const accepted = await script.post(`/api/trajectories/${ready.id}/analyses`, { analyses: ['msd'] });
+    expect(accepted.status).toBe(202);
+    expect(['queued', 'running']).toContain(accepted.body.status);
+  });
+
   it('when there is no file part, then it says to send the trajectory in a field named "file"', async () => {
     const res = await script.raw('post', `/api/projects/${projectId}/trajectories`).field('name', 'x');
     expect(res.status).toBe(400);

@@ -49,6 +49,10 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<un
   let inEngine = false;
   try {
     const trajectory = await getTrajectoryRow(ctx, run.trajectoryId);
+    // Inspection fills the time step in whenever the file states times, so a gap here means nobody has said it yet.
+    if (!trajectory.timeStep) {
+      throw new UnrecoverableError(`${trajectory.name} states no time between frames: set "Time between frames" in the trajectory's metadata, then start the analysis again.`);
+    }
     const traj = await loadTrajectory(ctx, trajectory, (f) => report(LOAD_SHARE * f));
     const params = analysisParamsSchema.parse(run.params);
     const stages = STAGES.map((s) => s.filter((k) => run.analyses.includes(k))).filter((s) => s.length > 0);
