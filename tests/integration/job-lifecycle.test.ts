@@ -5,6 +5,7 @@ import { analysisRuns, projects, trajectories, users } from '../../server/db/sch
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
 import { cancelRun, getRun, startRun } from '../../server/services/analysis-runs.ts';
 import { jitteredCrystalExtxyz } from '../support/slow-trajectory.ts';
+import { pollUntil } from '../support/poll.ts';
 import { createTestApp } from '../support/test-app.ts';
 
 // Workers here notice a dead peer's job within seconds instead of half a minute.
@@ -14,14 +15,6 @@ let userId: number;
 let trajectoryId: number;
 const SLOW = ['msd', 'vacf', 'rdf', 'lindemann', 'ngp'] as const;
 
-async function until<T>(read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 90_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await read();
-    if (ok(v) || Date.now() > deadline) return v;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-}
 const runRow = async (id: number) => (await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.id, id)))[0]!;
 
 function workerProcess(): ChildProcess {
@@ -44,7 +37,7 @@ beforeAll(async () => {
   trajectoryId = t.id;
   const worker = await startWorker(testApp.config, ctx.log);
   await ctx.queue.add('inspect', { trajectoryId }, `inspect-${trajectoryId}`);
-  await until(async () => (await ctx.db.select().from(trajectories).where(eq(trajectories.id, trajectoryId)))[0]!.status, (s) => s === 'ready');
+  await pollUntil(async () => (await ctx.db.select().from(trajectories).where(eq(trajectories.id, trajectoryId)))[0]!.status, (s) => s === 'ready');
   await worker.close();
 }, 120_000);
 afterAll(() => testApp.close());
@@ -70,7 +63,7 @@ describe('an analysis job from queue to report', () => {
     const worker = await startWorker(testApp.config, ctx.log);
     try {
       const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
-      await until(() => runRow(run.id), (r) => r.status === 'running');
+      await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
       await cancelRun(ctx, run.id);
       await new Promise((r) => setTimeout(r, 8000));
       const row = await runRow(run.id);
@@ -85,13 +78,13 @@ describe('an analysis job from queue to report', () => {
   it('when the worker process dies mid-job, then another worker picks the job up and finishes it', async () => {
     const doomed = workerProcess();
     const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
-    const running = await until(() => runRow(run.id), (r) => r.status === 'running');
+    const running = await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
     expect(running.status).toBe('running');
     doomed.kill('SIGKILL');
     await new Promise((r) => doomed.once('exit', r));
     const rescuer = await startWorker(testApp.config, ctx.log);
     try {
-      const finished = await until(() => getRun(ctx, run.id), (r) => r.status === 'done' || r.status === 'failed', 120_000);
+      const finished = await pollUntil(() => getRun(ctx, run.id), (r) => r.status === 'done' || r.status === 'failed', 120_000);
       expect(finished.error).toBeNull();
       expect(finished.status).toBe('done');
       expect(finished.attempts).toBeGreaterThanOrEqual(1);

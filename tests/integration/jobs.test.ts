@@ -5,6 +5,7 @@ import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
 import { decodeCurves } from '../../server/services/report-curves.ts';
 import { startRun } from '../../server/services/analysis-runs.ts';
 import { lennardJonesExtxyz } from '../support/fixtures.ts';
+import { pollUntil } from '../support/poll.ts';
 import { createTestApp } from '../support/test-app.ts';
 
 const testApp = createTestApp();
@@ -12,15 +13,6 @@ const { ctx } = testApp;
 let worker: RunningWorker;
 let userId: number;
 let projectId: number;
-
-async function waitFor<T>(read: () => Promise<T>, done: (v: T) => boolean, timeoutMs = 60_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await read();
-    if (done(value) || Date.now() > deadline) return value;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 async function storedTrajectory(name: string, bytes: Buffer): Promise<number> {
   const objectKey = `test/${Date.now()}-${Math.random().toString(36).slice(2)}/${name}`;
@@ -51,7 +43,7 @@ describe('the job worker (BullMQ in worker threads)', () => {
   it('when a valid extended XYZ is stored, then inspection fills in atoms, frames, species, cell, velocities and time step', async () => {
     const { run, bytes } = await lennardJonesExtxyz();
     const id = await storedTrajectory('argon.extxyz', bytes);
-    const row = await waitFor(() => rowOf(id), (r) => r.status !== 'inspecting');
+    const row = await pollUntil(() => rowOf(id), (r) => r.status !== 'inspecting');
     expect(row.error).toBeNull();
     expect(row.status).toBe('ready');
     expect(row.atoms).toBe(run.trajectory.nAtoms);
@@ -66,8 +58,8 @@ describe('the job worker (BullMQ in worker threads)', () => {
   it('when a file is malformed, then only that trajectory fails, with a message naming file, frame and line', async () => {
     const good = await storedTrajectory('fine.xyz', Buffer.from('2\nok\nAr 0 0 0\nAr 1 1 1\n'));
     const bad = await storedTrajectory('broken.xyz', Buffer.from('2\nfirst\nAr 0 0 0\nAr 1 1 1\n2\nsecond\nAr 0 0 0\nAr 1 x 1\n'));
-    const badRow = await waitFor(() => rowOf(bad), (r) => r.status !== 'inspecting');
-    const goodRow = await waitFor(() => rowOf(good), (r) => r.status !== 'inspecting');
+    const badRow = await pollUntil(() => rowOf(bad), (r) => r.status !== 'inspecting');
+    const goodRow = await pollUntil(() => rowOf(good), (r) => r.status !== 'inspecting');
     expect(badRow.status).toBe('failed');
     expect(badRow.error).toMatch(/broken\.xyz/);
     expect(badRow.error).toMatch(/frame 2/);
@@ -78,10 +70,10 @@ describe('the job worker (BullMQ in worker threads)', () => {
   it('when an analysis run is queued, then it runs, mirrors progress to its row and stores a report with curves', async () => {
     const { bytes } = await lennardJonesExtxyz();
     const id = await storedTrajectory('liquid.extxyz', bytes);
-    await waitFor(() => rowOf(id), (r) => r.status !== 'inspecting');
+    await pollUntil(() => rowOf(id), (r) => r.status !== 'inspecting');
     const run = await startRun(ctx, id, userId, ['thermo', 'msd', 'vacf', 'rdf'], {});
     const readRun = async () => (await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.id, run.id)))[0]!;
-    const done = await waitFor(readRun, (r) => r.status === 'done' || r.status === 'failed', 120_000);
+    const done = await pollUntil(readRun, (r) => r.status === 'done' || r.status === 'failed', 120_000);
     expect(done.error).toBeNull();
     expect(done.status).toBe('done');
     expect(done.progress).toBe(100);

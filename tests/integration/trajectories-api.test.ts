@@ -11,6 +11,7 @@ import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder
 import { ApiClient } from '../support/api-client.ts';
 import { signUp, type TestAccount } from '../support/accounts.ts';
 import { lennardJonesExtxyz } from '../support/fixtures.ts';
+import { pollUntil } from '../support/poll.ts';
 import { createTestApp } from '../support/test-app.ts';
 
 const testApp = createTestApp({ UPLOAD_MAX_BYTES: String(4 * 1024 * 1024) });
@@ -27,12 +28,8 @@ async function objectKeysUnder(prefix: string): Promise<string[]> {
 }
 
 async function waitUntilSettled(id: number) {
-  const deadline = Date.now() + 60_000;
-  for (;;) {
-    const res = await script.get(`/api/trajectories/${id}`);
-    if (!['uploading', 'inspecting'].includes(res.body.status) || Date.now() > deadline) return res.body;
-    await new Promise((r) => setTimeout(r, 200));
-  }
+  const res = await pollUntil(() => script.get(`/api/trajectories/${id}`), (r) => !['uploading', 'inspecting'].includes(r.body.status));
+  return res.body;
 }
 
 function upload(client: ApiClient | null, bytes: Buffer, name: string, fields: Record<string, string> = {}) {
