@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { Logger } from './logger.ts';
+import { isOutage, serviceUnavailable } from './outage.ts';
 
 /** An expected failure with a status and a message fit to show the user. */
 export class AppError extends Error {
@@ -27,21 +28,29 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
 
 /** The one place errors become JSON responses: `{ error: { code, message, details? } }`. */
 export function errorHandler(log: Logger): ErrorRequestHandler {
-  return (err, _req, res, _next) => {
+  return (error, _req, res, _next) => {
+    let err: unknown = error;
     if (err instanceof ZodError) {
       const details = err.issues.map((i) => ({ field: i.path.join('.'), message: i.message }));
       const message = details.map((d) => (d.field ? `${d.field}: ${d.message}` : d.message)).join('; ');
       res.status(400).json({ error: { code: 'invalid_input', message, details } });
       return;
     }
+    if (!(err instanceof AppError) && isOutage(err)) {
+      log.warn({ err: err instanceof Error ? err.message : String(err) }, 'backing service unreachable');
+      err = serviceUnavailable();
+    }
     if (err instanceof AppError) {
-      if (err.status >= 500) log.error({ err }, err.message);
+      if (err.status >= 500 && err.status !== 503) log.error({ err }, err.message);
+      const wait = (err.details as { retryAfterSeconds?: unknown } | undefined)?.retryAfterSeconds;
+      if ((err.status === 429 || err.status === 503) && typeof wait === 'number') res.setHeader('Retry-After', String(Math.ceil(wait)));
       res.status(err.status).json({ error: { code: err.code, message: err.message, details: err.details } });
       return;
     }
-    const status = typeof err?.status === 'number' && err.status >= 400 && err.status < 600 ? err.status : 500;
+    const plain = (err ?? {}) as { status?: unknown; message?: unknown };
+    const status = typeof plain.status === 'number' && plain.status >= 400 && plain.status < 600 ? plain.status : 500;
     if (status >= 500) log.error({ err }, 'unhandled error');
-    const message = status >= 500 ? 'Something went wrong on the server.' : String(err?.message ?? 'Bad request.');
+    const message = status >= 500 ? 'Something went wrong on the server.' : String(plain.message ?? 'Bad request.');
     res.status(status).json({ error: { code: status >= 500 ? 'internal' : 'bad_request', message } });
   };
 }

@@ -16,8 +16,13 @@ export interface RunningServer {
 export async function startServer(config: Config = loadConfig()): Promise<RunningServer> {
   const ctx = createContext(config);
   await runMigrations(ctx.db);
-  const dropped = await dropStaleUploads(ctx);
-  if (dropped) ctx.log.info({ dropped }, 'dropped uploads that never finished');
+  const sweepUploads = async () => {
+    const dropped = await dropStaleUploads(ctx).catch((err: Error) => ctx.log.warn({ err: err.message }, 'could not sweep stale uploads'));
+    if (dropped) ctx.log.info({ dropped }, 'dropped uploads that never finished');
+  };
+  await sweepUploads();
+  const sweeper = setInterval(() => void sweepUploads(), 60_000);
+  sweeper.unref();
   const app = createApp(ctx);
   const worker: RunningWorker | null = config.RUN_WORKER ? await startWorker(config, ctx.log) : null;
   const server: Server = await new Promise((resolve) => {
@@ -31,6 +36,7 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
     url,
     ctx,
     async stop() {
+      clearInterval(sweeper);
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await worker?.close();

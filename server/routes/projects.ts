@@ -46,7 +46,7 @@ export function projectRoutes(ctx: AppContext): RouteDef[] {
       method: 'delete', path: '/projects/:id', access: { kind: 'project', role: 'owner', via: 'project' },
       handler: async (req, res) => {
         const { confirm } = body(req, deleteBody);
-        await deleteProject(ctx.db, authorizedProject(res).projectId, currentUser(req).id, confirm);
+        await deleteProject(ctx, authorizedProject(res).projectId, currentUser(req).id, confirm);
         res.status(204).end();
       },
     },

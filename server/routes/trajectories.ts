@@ -45,14 +45,23 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
         if (!file?.trajectoryId || !file.objectKey || file.sizeBytes === undefined || !file.sha256) {
           throw badRequest('No file received: send the trajectory as multipart/form-data in a field named "file".');
         }
+        if (file.sizeBytes === 0) {
+          await abandonUpload(ctx, file.trajectoryId, file.objectKey);
+          throw badRequest(`The file "${file.originalname}" is empty: there is nothing to inspect.`);
+        }
         const metadata = metadataFromFields(req.body as Record<string, unknown>);
         if (!metadata.success) {
-          await abandonUpload(ctx, file.trajectoryId);
-          await ctx.store.delete(file.objectKey);
+          await abandonUpload(ctx, file.trajectoryId, file.objectKey);
           throw metadata.error;
         }
         const stored = { trajectoryId: file.trajectoryId, objectKey: file.objectKey, sizeBytes: file.sizeBytes, sha256: file.sha256 };
-        res.status(201).json(await completeUpload(ctx, stored, metadata.data));
+        try {
+          res.status(201).json(await completeUpload(ctx, stored, metadata.data));
+        } catch (err) {
+          // Whatever failed after the bytes were stored, the upload is undone rather than left `uploading`.
+          await abandonUpload(ctx, stored.trajectoryId, stored.objectKey).catch(() => {});
+          throw err;
+        }
       },
     },
     {
@@ -91,9 +100,10 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
         const range = rangeQuery.parse(req.query);
         const chunks = extxyzCut(ctx, row, range);
         const first = await chunks.next();
-        const base = row.name.replace(/\.(gz|zip)$/i, '').replace(/\.[^.]*$/, '').replace(/[^\w.-]+/g, '_') || 'trajectory';
+        const base = row.name.replace(/\.(gz|zip)$/i, '').replace(/\.[^.]*$/, '') || 'trajectory';
+        // The name as uploaded, in filename* (RFC 6266/8187), with an ASCII fallback for old clients.
+        res.attachment(`${base}-frames-${range.from}.extxyz`);
         res.type('text/plain; charset=utf-8');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}-frames-${range.from}.extxyz"`);
         if (!first.done) res.write(first.value);
         for await (const chunk of chunks) {
           if (!res.write(chunk)) await new Promise((resolve) => res.once('drain', resolve));

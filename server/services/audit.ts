@@ -1,5 +1,5 @@
 import { desc, eq } from 'drizzle-orm';
-import type { Database } from '../db/client.ts';
+import type { Database, Executor } from '../db/client.ts';
 import { auditLog, users } from '../db/schema/index.ts';
 
 export type AuditAction =
@@ -17,7 +17,7 @@ export interface AuditEntry {
   details: Record<string, unknown>;
 }
 
-export async function recordAudit(db: Database, entry: AuditEntry): Promise<void> {
+export async function recordAudit(db: Executor, entry: AuditEntry): Promise<void> {
   await db.insert(auditLog).values(entry);
 }
 

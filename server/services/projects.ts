@@ -1,5 +1,7 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
+import type { AppContext } from '../context.ts';
 import type { Database } from '../db/client.ts';
+import { projectPrefix } from '../storage/object-keys.ts';
 import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
 import { AppError, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
@@ -56,16 +58,27 @@ export async function updateProject(db: Database, projectId: number, actorId: nu
   return getProject(db, projectId, actorId);
 }
 
-/** Deletes a project and everything in it, once the caller has typed its exact name. */
-export async function deleteProject(db: Database, projectId: number, actorId: number, confirmName: string): Promise<void> {
+/**
+ * Deletes a project and everything in it, once the caller has typed its
+ * exact name. The rows and the audit entry go in one transaction; the
+ * project's folder in the object store is emptied before (so a store that
+ * is down stops the delete before anything is lost) and after (for objects
+ * a job wrote meanwhile).
+ */
+export async function deleteProject(ctx: AppContext, projectId: number, actorId: number, confirmName: string): Promise<void> {
+  const { db } = ctx;
   const [project] = await db.select({ name: projects.name }).from(projects).where(eq(projects.id, projectId));
   if (!project) throw notFound('Project');
   if (confirmName !== project.name) {
     throw new AppError(400, 'confirmation_mismatch', `confirm: type the project's name exactly ("${project.name}") to delete it.`,
       [{ field: 'confirm', message: 'does not match the project name' }]);
   }
-  await db.delete(projects).where(eq(projects.id, projectId));
-  await recordAudit(db, { projectId, actorId, action: 'project.deleted', details: { name: project.name } });
+  await ctx.store.deletePrefix(projectPrefix(projectId));
+  await db.transaction(async (tx) => {
+    await tx.delete(projects).where(eq(projects.id, projectId));
+    await recordAudit(tx, { projectId, actorId, action: 'project.deleted', details: { name: project.name } });
+  });
+  await ctx.store.deletePrefix(projectPrefix(projectId));
 }
 
 /** Marks the project as just used, for the "last activity" column. */

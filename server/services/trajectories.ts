@@ -1,8 +1,10 @@
-import { and, desc, eq, lt } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import type { TrajectoryDto, TrajectoryMetadata } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { projects, trajectories, users, type TrajectoryRow } from '../db/schema/index.ts';
-import { notFound } from '../errors.ts';
+import { badRequest, notFound } from '../errors.ts';
+import { trajectoryPrefix } from '../storage/object-keys.ts';
+import { describeForbiddenCharacter } from '../../shared/plain-text.ts';
 import type { StoredUpload } from './upload-to-store.ts';
 
 const withUploader = {
@@ -43,41 +45,76 @@ export async function getTrajectory(ctx: AppContext, id: number): Promise<Trajec
   return toTrajectoryDto(row.t, row.uploaderName);
 }
 
+/** A file name as the user sent it, checked: no control or direction-override characters, at most 255 characters. */
+export function checkedFileName(fileName: string): string {
+  const problem = describeForbiddenCharacter(fileName);
+  if (problem) throw badRequest(`The file name contains ${problem}: rename the file and upload it again.`);
+  const name = fileName.split(/[\\/]/).pop()?.trim() ?? '';
+  if (!name) throw badRequest('The file part has no file name: send it with a name such as run.extxyz.');
+  if ([...name].length > 255) throw badRequest('The file name is longer than 255 characters: rename the file and upload it again.');
+  return name;
+}
+
 /** A row for an upload that has begun; other members see it as `uploading`. */
 export async function beginUpload(ctx: AppContext, projectId: number, userId: number, fileName: string, objectKey: string): Promise<number> {
   const [{ id }] = await ctx.db.insert(trajectories).values({
-    projectId, uploadedBy: userId, name: fileName.slice(0, 255) || 'trajectory', objectKey, status: 'uploading', updatedAt: new Date(),
+    projectId, uploadedBy: userId, name: checkedFileName(fileName), objectKey, status: 'uploading', updatedAt: new Date(),
   }).$returningId();
   return id;
 }
 
-/** An upload that never completed leaves nothing: no row, and its object is aborted by the caller. */
-export async function abandonUpload(ctx: AppContext, id: number): Promise<void> {
-  await ctx.db.delete(trajectories).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
+/** Bytes are still arriving: the sweep leaves this upload alone. */
+export async function touchUpload(ctx: AppContext, id: number): Promise<void> {
+  await ctx.db.update(trajectories).set({ updatedAt: new Date() }).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
 }
 
+/** An upload that never completed leaves nothing: no row, no object under its folder. */
+export async function abandonUpload(ctx: AppContext, id: number, objectKey?: string): Promise<void> {
+  const [gone] = await ctx.db.delete(trajectories).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
+  if (objectKey && gone.affectedRows === 1) {
+    await ctx.store.deletePrefix(trajectoryPrefix(objectKey))
+      .catch((err: Error) => ctx.log.warn({ objectKey, err: err.message }, 'could not delete an abandoned upload\'s objects'));
+  }
+}
+
+/** An upload that has not received a byte for this long has lost its process. */
+export const STALE_UPLOAD_MS = 2 * 60_000;
+
 /**
- * Uploads whose web process went away mid-stream never finish: after a
- * while their rows are dropped (the object store aborts incomplete
- * multipart uploads on its own schedule). Returns how many were dropped.
+ * Uploads whose web process went away mid-stream never finish, and a live
+ * upload renews its row every few seconds: rows quiet for longer than
+ * `STALE_UPLOAD_MS` are dropped with their objects. Runs at start and then
+ * periodically on every web node. Returns how many were dropped.
  */
-export async function dropStaleUploads(ctx: AppContext, olderThanMs = 6 * 3600_000): Promise<number> {
-  const cutoff = new Date(Date.now() - olderThanMs);
-  const stale = await ctx.db.select({ id: trajectories.id }).from(trajectories)
-    .where(and(eq(trajectories.status, 'uploading'), lt(trajectories.createdAt, cutoff)));
-  for (const { id } of stale) await abandonUpload(ctx, id);
+export async function dropStaleUploads(ctx: AppContext, quietForMs = STALE_UPLOAD_MS): Promise<number> {
+  const cutoff = new Date(Date.now() - quietForMs);
+  const stale = await ctx.db.select({ id: trajectories.id, objectKey: trajectories.objectKey }).from(trajectories)
+    .where(and(eq(trajectories.status, 'uploading'), sql`COALESCE(${trajectories.updatedAt}, ${trajectories.createdAt}) < ${cutoff}`));
+  for (const { id, objectKey } of stale) await abandonUpload(ctx, id, objectKey);
   return stale.length;
 }
 
-/** Records the stored bytes and the uploader's metadata, and queues the inspection. */
+/**
+ * Records the stored bytes and the uploader's metadata, and queues the
+ * inspection. If the queue cannot take the job, the upload is undone (row
+ * and object) and the error goes to the caller: no row is left waiting for
+ * an inspection that was never queued.
+ */
 export async function completeUpload(ctx: AppContext, stored: StoredUpload, metadata: TrajectoryMetadata): Promise<TrajectoryDto> {
   const id = stored.trajectoryId;
-  await ctx.db.update(trajectories).set({
+  const [claimed] = await ctx.db.update(trajectories).set({
     sizeBytes: stored.sizeBytes, sha256: stored.sha256, status: 'inspecting', updatedAt: new Date(), ...metadataColumns(metadata),
-  }).where(eq(trajectories.id, id));
+  }).where(and(eq(trajectories.id, id), eq(trajectories.status, 'uploading')));
+  if (claimed.affectedRows !== 1) throw notFound('Upload (it was removed while it finished)');
+  try {
+    await ctx.queue.add('inspect', { trajectoryId: id }, `inspect-${id}`);
+  } catch (err) {
+    await ctx.db.delete(trajectories).where(eq(trajectories.id, id)).catch(() => {});
+    await ctx.store.deletePrefix(trajectoryPrefix(stored.objectKey)).catch(() => {});
+    throw err;
+  }
   const row = await getTrajectoryRow(ctx, id);
   await touchProject(ctx, row.projectId);
-  await ctx.queue.add('inspect', { trajectoryId: id }, `inspect-${id}`);
   return getTrajectory(ctx, id);
 }
 
@@ -107,13 +144,31 @@ export async function updateMetadata(ctx: AppContext, id: number, metadata: Traj
   return getTrajectory(ctx, id);
 }
 
+/**
+ * Deletes a trajectory with everything derived from it (runs, reports and
+ * their curves, indexes). The folder is emptied before and after the row
+ * goes, so objects a job wrote in between go too; a job that finishes later
+ * finds its row gone and removes what it wrote (see `discardIfDeleted`).
+ */
 export async function deleteTrajectory(ctx: AppContext, id: number): Promise<void> {
   const row = await getTrajectoryRow(ctx, id);
+  const prefix = trajectoryPrefix(row.objectKey);
+  await ctx.store.deletePrefix(prefix);
   await ctx.db.delete(trajectories).where(eq(trajectories.id, id));
-  for (const key of [row.objectKey, row.frameIndexKey]) {
-    if (key) await ctx.store.delete(key).catch((err: Error) => ctx.log.warn({ key, err: err.message }, 'could not delete object'));
-  }
+  await ctx.store.deletePrefix(prefix);
   await touchProject(ctx, row.projectId);
+}
+
+/**
+ * For a job that has just written under a trajectory's folder: if the
+ * trajectory was deleted meanwhile, its folder is emptied again and true
+ * is returned.
+ */
+export async function discardIfDeleted(ctx: AppContext, trajectoryId: number, objectKey: string): Promise<boolean> {
+  const [row] = await ctx.db.select({ id: trajectories.id }).from(trajectories).where(eq(trajectories.id, trajectoryId));
+  if (row) return false;
+  await ctx.store.deletePrefix(trajectoryPrefix(objectKey));
+  return true;
 }
 
 export async function touchProject(ctx: AppContext, projectId: number): Promise<void> {

@@ -1,5 +1,5 @@
 import {
-  DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client,
+  DeleteObjectCommand, DeleteObjectsCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, PutObjectCommand, S3Client,
 } from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
 import type { Readable } from 'node:stream';
@@ -65,6 +65,32 @@ export class ObjectStore {
 
   async delete(key: string): Promise<void> {
     await this.client.send(new DeleteObjectCommand({ Bucket: this.bucket, Key: key }));
+  }
+
+  /** Every key under a prefix, in pages of up to 1000. */
+  async listKeys(prefix: string): Promise<string[]> {
+    const keys: string[] = [];
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(new ListObjectsV2Command({ Bucket: this.bucket, Prefix: prefix, ContinuationToken: token }));
+      for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key);
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
+    return keys;
+  }
+
+  /** Deletes everything under a prefix; returns how many objects went. */
+  async deletePrefix(prefix: string): Promise<number> {
+    if (!prefix) throw new Error('refusing to delete the whole bucket');
+    const keys = await this.listKeys(prefix);
+    for (let i = 0; i < keys.length; i += 1000) {
+      const batch = keys.slice(i, i + 1000);
+      const out = await this.client.send(new DeleteObjectsCommand({
+        Bucket: this.bucket, Delete: { Objects: batch.map((Key) => ({ Key })), Quiet: true },
+      }));
+      if (out.Errors?.length) throw new Error(`could not delete ${out.Errors.length} objects under ${prefix}: ${out.Errors[0]?.Message ?? 'unknown error'}`);
+    }
+    return keys.length;
   }
 
   close(): void {

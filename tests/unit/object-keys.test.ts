@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { objectKeyFor } from '../../server/services/upload-to-store.ts';
+import { objectKeyFor } from '../../server/storage/object-keys.ts';
 
 describe('object keys for uploads', () => {
   it.each([

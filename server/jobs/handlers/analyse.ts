@@ -11,7 +11,8 @@ import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '.
 import { getRunRow } from '../../services/analysis-runs.ts';
 import { readerLimits } from '../../services/reader-limits.ts';
 import { encodeCurves } from '../../services/report-curves.ts';
-import { getTrajectoryRow } from '../../services/trajectories.ts';
+import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.ts';
+import { curvesKeyFor } from '../../storage/object-keys.ts';
 import type { AnalyseJobData } from '../queue.ts';
 
 /** Analyses that share an intermediate run together: VDOS needs the VACF, S(q) needs g(r). */
@@ -70,8 +71,10 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<un
     }
     if (!result) throw new UnrecoverableError('No analysis was selected.');
     await report(96, true);
-    const curvesKey = `reports/run-${runId}/curves.json.gz`;
+    const curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
+    // The trajectory may have been deleted while the engine ran: then its folder, curves included, goes.
+    if (await discardIfDeleted(ctx, run.trajectoryId, trajectory.objectKey)) return { skipped: 'trajectory deleted' };
     const [{ id: reportId }] = await ctx.db.insert(reports).values({
       runId, projectId: run.projectId, trajectoryId: run.trajectoryId,
       title: `${trajectory.name}: ${stages.flat().map(labelOf).join(', ')}`,

@@ -5,7 +5,7 @@ import { trajectories } from '../../db/schema/index.ts';
 import { TrajectoryFormatError } from '../../formats/frame.ts';
 import { inspectTrajectory } from '../../formats/inspect.ts';
 import { readerLimits } from '../../services/reader-limits.ts';
-import { getTrajectoryRow } from '../../services/trajectories.ts';
+import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.ts';
 import type { InspectJobData } from '../queue.ts';
 
 /**
@@ -51,8 +51,11 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
     }
     update.fromFile = [...new Set([...(row.fromFile ?? []), ...fromFile])];
     await ctx.db.update(trajectories).set(update).where(eq(trajectories.id, row.id));
+    // Deleted while it was being read: what this job wrote under its folder goes too.
+    if (await discardIfDeleted(ctx, row.id, row.objectKey)) return { skipped: 'trajectory deleted' };
     return { atoms: result.atoms, frames: result.frames };
   } catch (err) {
+    if (await discardIfDeleted(ctx, row.id, row.objectKey).catch(() => false)) return { skipped: 'trajectory deleted' };
     const readerError = err instanceof TrajectoryFormatError || err instanceof RangeError;
     const message = err instanceof Error ? err.message : String(err);
     if (readerError || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) {
