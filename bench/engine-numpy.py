@@ -49,14 +49,12 @@ mw = mass * vacf.sum(axis=0)
 out['vacf'] = time.perf_counter() - t0
 
 t0 = time.perf_counter()
-M = n_lags
-w = 0.5 * (1 + np.cos(np.pi * np.arange(M) / M))
-b = 2 * w * mw
-b[0] = mw[0]
-b[-1] = w[-1] * mw[-1]
-L = 1 << (2 * M - 1).bit_length()
-spec = np.fft.rfft(b, n=L).real * dt
-dos = 2 * (3 * n_atoms - 3) / mw[0] * spec
+# Power spectrum of Hann-windowed velocities over the whole run, mass-weighted.
+w = np.hanning(n_frames)
+L = 1 << (n_frames - 1).bit_length()
+p = np.abs(np.fft.rfft(xv * w, n=L, axis=1)) ** 2
+spec = mass * p.sum(axis=0) * dt / (w * w).sum()
+dos = 2 * (3 * n_atoms - 3) / (mass * (xv * xv).mean(axis=1).sum()) * spec
 out['vdos'] = time.perf_counter() - t0
 
 t0 = time.perf_counter()

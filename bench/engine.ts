@@ -15,7 +15,7 @@ import { rdf } from '../server/analysis/rdf.ts';
 import { thermo } from '../server/analysis/thermo.ts';
 import type { Trajectory } from '../server/analysis/trajectory.ts';
 import { vacf } from '../server/analysis/vacf.ts';
-import { vdosFromVacf } from '../server/analysis/vdos.ts';
+import { vdos } from '../server/analysis/vdos.ts';
 import { SeededRandom } from '../server/simulate/random.ts';
 import type { BenchRow } from './bench-row.ts';
 
@@ -34,8 +34,8 @@ export async function benchEngine(): Promise<BenchRow[]> {
   };
 
   const [, tMsd] = time(() => msd(traj));
-  const [v, tVacf] = time(() => vacf(traj));
-  const [, tVdos] = time(() => vdosFromVacf(v, traj));
+  const [, tVacf] = time(() => vacf(traj));
+  const [, tVdos] = time(() => vdos(traj));
   const [, tRdf] = time(() => rdf(traj, { rMaxA: R_MAX, binWidthA: BIN }));
   const [, tThermo] = time(() => thermo(traj));
 

@@ -68,10 +68,10 @@ export class Autocorrelator {
 }
 
 /**
- * Real part of the discrete Fourier transform of a real sequence of length
- * L (power of two): out[k] = Σ_m b_m·cos(2πkm/L) for k = 0..L/2.
+ * |X_k|² of a real sequence zero-padded to L (power of two), k = 0..L/2,
+ * where X_k = Σ_t x_t·e^{−2πikt/L}.
  */
-export class CosineSpectrum {
+export class PowerSpectrum {
   readonly fftLength: number;
   private readonly fft: FFT;
   private readonly input: Float64Array;
@@ -85,14 +85,16 @@ export class CosineSpectrum {
     this.spectrum = new Float64Array(2 * fftLength);
   }
 
-  transform(b: ArrayLike<number>, out: Float64Array): Float64Array {
-    const L = this.fftLength;
-    const n = Math.min(b.length, L);
-    for (let i = 0; i < n; i++) this.input[i] = b[i];
-    this.input.fill(0, n);
+  /** The input buffer to fill (its tail beyond the data must be zero; `transform` leaves it as filled). */
+  get buffer(): Float64Array {
+    return this.input;
+  }
+
+  /** Adds weight·|X_k|² of the current buffer into out[0..L/2]. */
+  addPower(out: Float64Array, weight: number): void {
     this.fft.realTransform(this.spectrum, this.input);
-    const half = L >>> 1;
-    for (let k = 0; k <= half && k < out.length; k++) out[k] = this.spectrum[2 * k];
-    return out;
+    const s = this.spectrum;
+    const half = this.fftLength >>> 1;
+    for (let k = 0; k <= half; k++) out[k] += weight * (s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1]);
   }
 }

@@ -13,8 +13,8 @@ import { rdf, type RdfResult } from './rdf.ts';
 import { sqFromRdf, type SqResult } from './sq.ts';
 import { thermo } from './thermo.ts';
 import type { Trajectory } from './trajectory.ts';
-import { vacf, type VacfResult } from './vacf.ts';
-import { vdosFromVacf } from './vdos.ts';
+import { vacf } from './vacf.ts';
+import { vdos } from './vdos.ts';
 
 export { ANALYSIS_KEYS, type AnalysisKey };
 
@@ -41,7 +41,6 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
   const run: AnalysisRun = { summary: {}, curves: {}, methods: { params }, caution: SIMULATION_CAUTION, engineVersion: ENGINE_VERSION };
   const species = params.species.length > 0 ? params.species : undefined;
   const masses = params.masses;
-  let vacfCache: VacfResult | null = null;
   let rdfCache: RdfResult | null = null;
   const manual = (w: AnalysisParams['fitWindow']): { startPs: number; endPs: number } | undefined =>
     w.mode === 'manual' ? { startPs: w.startPs, endPs: w.endPs } : undefined;
@@ -82,49 +81,50 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod })) };
         break;
       }
-      case 'vacf':
+      case 'vacf': {
+        const v = vacf(traj, vacfOptions, progress);
+        run.summary.vacf = {
+          velocitySource: v.velocitySource,
+          groups: v.groups.map(({ label, nAtoms, greenKubo: gk }) => ({
+            label, atoms: nAtoms, dGreenKubo: gk.d, spread: gk.dSpread, converged: gk.converged,
+            plateauWindowPs: { start: gk.window.startPs, end: gk.window.endPs, source: gk.window.source },
+          })),
+        };
+        run.curves.vacf = curve([
+          ['lag', 'ps', v.lagPs],
+          ...v.groups.flatMap((g): [string, string, Float64Array][] => [
+            [`VACF ${g.label}`, 'Å²/ps²', g.vacfA2PerPs2],
+            [`normalised VACF ${g.label}`, '1', g.normalised],
+            [`running D ${g.label}`, 'Å²/ps', g.runningDA2PerPs],
+          ]),
+        ]);
+        run.methods.vacf = { velocitySource: v.velocitySource, comDriftRemoved: v.comDriftRemoved, plateaus: v.groups.map((g) => ({ group: g.label, window: g.greenKubo.window })) };
+        break;
+      }
       case 'vdos': {
-        vacfCache ??= vacf(traj, vacfOptions, progress);
-        const v = vacfCache;
-        if (key === 'vacf') {
-          run.summary.vacf = {
-            velocitySource: v.velocitySource,
-            groups: v.groups.map(({ label, nAtoms, greenKubo: gk }) => ({
-              label, atoms: nAtoms, dGreenKubo: gk.d, spread: gk.dSpread, converged: gk.converged,
-              plateauWindowPs: { start: gk.window.startPs, end: gk.window.endPs, source: gk.window.source },
-            })),
-          };
-          run.curves.vacf = curve([
-            ['lag', 'ps', v.lagPs],
-            ...v.groups.flatMap((g): [string, string, Float64Array][] => [
-              [`VACF ${g.label}`, 'Å²/ps²', g.vacfA2PerPs2],
-              [`normalised VACF ${g.label}`, '1', g.normalised],
-              [`running D ${g.label}`, 'Å²/ps', g.runningDA2PerPs],
-            ]),
-          ]);
-          run.methods.vacf = { velocitySource: v.velocitySource, comDriftRemoved: v.comDriftRemoved, plateaus: v.groups.map((g) => ({ group: g.label, window: g.greenKubo.window })) };
-        } else {
-          const r = vdosFromVacf(v, traj, { window: params.window, zeroPadFactor: params.zeroPadFactor, degreesOfFreedom: params.degreesOfFreedom, thermoTemperatureK: params.temperatureK });
-          const all = r.groups[0];
-          const { quantum, classical } = r.thermo;
-          const cv = (h: typeof quantum) => ({ perAtomKB: h.cvPerAtomKB, jPerMolK: h.cvJPerMolK, jPerGK: h.cvJPerGK });
-          const entropy = (h: typeof quantum) => ({ perAtomKB: h.entropyPerAtomKB, jPerMolK: h.entropyJPerMolK });
-          run.summary.vdos = {
-            temperatureK: r.thermo.temperatureK,
-            peaks: all.peaks.slice(0, 5).map((p) => ({ thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1 })),
-            cv: { quantum: cv(quantum), classical: cv(classical) },
-            entropy: { quantum: entropy(quantum), classical: entropy(classical) },
-            zeroPoint: { evPerAtom: quantum.zeroPointPerAtomEV, kJPerMol: quantum.zeroPointKJPerMol },
-            modes: r.thermo.modes,
-          };
-          run.curves.vdos = curve([
-            ['frequency', 'THz', r.freqTHz],
-            ['wavenumber', 'cm⁻¹', r.freqCm1],
-            ['energy', 'meV', r.freqMeV],
-            ...r.groups.map((g): [string, string, Float64Array] => [`VDOS ${g.label}`, 'modes/THz', g.dosPerThz]),
-          ]);
-          run.methods.vdos = { window: r.window, fftLength: r.fftLength, binWidthThz: r.binWidthThz, degreesOfFreedom: all.degreesOfFreedom, velocitySource: r.velocitySource, thermoNote: r.thermoNote };
-        }
+        const r = vdos(traj, { ...vacfOptions, window: params.window, zeroPadFactor: params.zeroPadFactor, degreesOfFreedom: params.degreesOfFreedom, thermoTemperatureK: params.temperatureK }, progress);
+        const all = r.groups[0];
+        const { quantum, classical } = r.thermo;
+        const cv = (h: typeof quantum) => ({ perAtomKB: h.cvPerAtomKB, jPerMolK: h.cvJPerMolK, jPerGK: h.cvJPerGK });
+        const entropy = (h: typeof quantum) => ({ perAtomKB: h.entropyPerAtomKB, jPerMolK: h.entropyJPerMolK });
+        run.summary.vdos = {
+          temperatureK: r.thermo.temperatureK,
+          peaks: all.peaks.slice(0, 5).map((p) => ({ thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1 })),
+          cv: { quantum: cv(quantum), classical: cv(classical) },
+          entropy: { quantum: entropy(quantum), classical: entropy(classical) },
+          zeroPoint: { evPerAtom: quantum.zeroPointPerAtomEV, kJPerMol: quantum.zeroPointKJPerMol },
+          modes: r.thermo.modes,
+        };
+        run.curves.vdos = curve([
+          ['frequency', 'THz', r.freqTHz],
+          ['wavenumber', 'cm⁻¹', r.freqCm1],
+          ['energy', 'meV', r.freqMeV],
+          ...r.groups.map((g): [string, string, Float64Array] => [`VDOS ${g.label}`, 'modes/THz', g.dosPerThz]),
+        ]);
+        run.methods.vdos = {
+          method: r.method, window: r.window, fftLength: r.fftLength, segmentFrames: r.segmentFrames, segments: r.segments, binWidthThz: r.binWidthThz,
+          degreesOfFreedom: all.degreesOfFreedom, velocitySource: r.velocitySource, thermoNote: r.thermoNote,
+        };
         break;
       }
       case 'rdf':

@@ -1,25 +1,39 @@
 /**
- * Vibrational density of states from the mass-weighted VACF,
- * S(ν) = (2/k_BT)·Σ_j m_j·∫ C_j(t)·e^{−2πiνt} dt (two-sided transform), so that
- * ∫₀^∞ S dν = degrees of freedom and S(0) = 12·m·N·D/(k_BT) in 3-D
- * (Lin, Blanco & Goddard, J. Chem. Phys. 119, 11792 (2003)).
+ * Vibrational density of states as the mass-weighted power spectrum of the
+ * atoms' windowed velocities (SCIENCE item 25),
+ *   S(ν) = (2/k_BT)·Σ_j m_j·P_j(ν),  P_j the two-sided spectral density of v_j,
+ * which is the Fourier transform of the windowed velocity autocorrelation
+ * (Wiener–Khinchin) and therefore ≥ 0 at every ν: heat capacity, entropy
+ * and zero-point energy integrated over it keep their physical sign. With
+ * this normalisation ∫₀^∞ S dν = degrees of freedom and S(0) = 12·m·N·D/(k_BT)
+ * in 3-D (Lin, Blanco & Goddard, J. Chem. Phys. 119, 11792 (2003)).
  *
- * T defaults to the kinetic temperature of the same velocities with the same
- * degrees of freedom, which makes ∫S = N_dof exactly. The last lag gets the
- * trapezoid half weight so S(0)/2 reproduces the Green–Kubo integral.
+ * The window weights the middle of each segment more than its ends, so the
+ * raw spectrum integrates to a window-weighted ⟨v²⟩; it is rescaled to the
+ * plain time average, which makes ∫S = N_dof·T_kin/T exactly (discrete
+ * Parseval). T defaults to that kinetic temperature.
  */
+import { AtomSeriesReader } from './atom-series.ts';
+import { componentIndices, selectAtoms, type Components } from './atom-groups.ts';
 import { BOLTZMANN_ENGINE, MEV_PER_THZ, WAVENUMBER_PER_THZ } from './constants.ts';
-import { CosineSpectrum, nextPowerOfTwo } from './fft.ts';
+import { frameIntervalPs, lagCount } from './frame-timing.ts';
 import { harmonicThermo, type HarmonicThermo } from './harmonic-thermo.ts';
 import { findPeaks } from './peaks.ts';
-import { correlationSpectrum } from './correlation-spectrum.ts';
 import type { WindowFunction } from './spectral-windows.ts';
 import type { Trajectory } from './trajectory.ts';
-import { vacf, type VacfOptions, type VacfResult } from './vacf.ts';
+import { planSegments, VelocityPowerSpectrum } from './velocity-spectrum.ts';
 
-export interface VdosOptions extends VacfOptions {
+export interface VdosOptions {
+  species?: readonly string[];
+  components?: Components;
+  /** Longest correlation time resolved, ps: segments are twice this long (default: the whole run, one segment). */
+  maxLagPs?: number;
+  removeComDrift?: boolean;
+  masses?: Readonly<Record<string, number>>;
+  /** Use central differences of positions even when velocities are stored. */
+  forceFromPositions?: boolean;
   window?: WindowFunction;
-  /** Transform length is the next power of two ≥ 2·lags·zeroPadFactor. */
+  /** Transform length is the next power of two ≥ segment·zeroPadFactor. */
   zeroPadFactor?: number;
   /** Degrees of freedom of the whole selection; default d·N − d when COM drift is removed. */
   degreesOfFreedom?: number;
@@ -59,7 +73,11 @@ export interface VdosResult {
   binWidthThz: number;
   window: WindowFunction;
   fftLength: number;
-  velocitySource: VacfResult['velocitySource'];
+  /** Samples per segment and how many half-overlapping segments were averaged. */
+  segmentFrames: number;
+  segments: number;
+  method: 'power spectrum of windowed velocities';
+  velocitySource: 'stored-velocities' | 'central-differences';
   groups: VdosGroupResult[];
   /** Harmonic thermodynamics of the "all" group. */
   thermo: HarmonicThermo;
@@ -67,65 +85,90 @@ export interface VdosResult {
 }
 
 export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (fraction: number) => void): VdosResult {
-  return vdosFromVacf(vacf(traj, options, onProgress), traj, options);
-}
+  const dt = frameIntervalPs(traj);
+  const dims = componentIndices(options.components ?? 'xyz');
+  const sel = selectAtoms(traj, options.species, options.masses);
+  const removeCom = options.removeComDrift ?? true;
+  const useStored = traj.velocities !== undefined && !options.forceFromPositions;
+  const reader = new AtomSeriesReader(useStored ? traj : { ...traj, velocities: undefined }, sel.masses, removeCom);
+  const L = reader.velocityLength;
+  if (L < 2) throw new Error('The VDOS needs at least two velocity frames (four frames without stored velocities).');
+  const maxSegment = options.maxLagPs === undefined ? L : 2 * (lagCount(L, dt, options.maxLagPs, 0.5) - 1);
+  const spectrum = new VelocityPowerSpectrum(planSegments(L, maxSegment, options.zeroPadFactor), options.window ?? 'hann', dt);
+  const nFreq = spectrum.nFreq;
 
-export function vdosFromVacf(v: VacfResult, traj: Trajectory, options: VdosOptions = {}): VdosResult {
-  const kind = options.window ?? 'hann';
-  const M = v.lagPs.length;
-  if (M < 2) throw new Error('The VDOS needs at least two lags.');
-  const L = nextPowerOfTwo(2 * M * Math.max(1, options.zeroPadFactor ?? 1));
-  const dt = v.dtPs;
-  const transformer = new CosineSpectrum(L);
-  const nFreq = L / 2 + 1;
-  const freqTHz = Float64Array.from({ length: nFreq }, (_, k) => k / (L * dt));
+  const power = sel.groups.map(() => new Float64Array(nFreq));
+  const plain = new Float64Array(sel.groups.length);
+  const windowed = new Float64Array(sel.groups.length);
+  const memberOf = sel.groups.map((g) => new Set(g.atoms));
+  const atomPower = new Float64Array(nFreq);
+  const velocities = new Float64Array(3 * L);
+  const scratch = new Float64Array(3 * traj.nFrames);
+  sel.atoms.forEach((atom, k) => {
+    reader.velocities(atom, velocities, dt, scratch);
+    atomPower.fill(0);
+    let p = 0, w = 0;
+    for (const c of dims) {
+      const m = spectrum.add(velocities, c * L, atomPower);
+      p += m.meanSquare;
+      w += m.windowedMeanSquare;
+    }
+    const mass = sel.masses[atom];
+    sel.groups.forEach((_, gi) => {
+      if (!memberOf[gi].has(atom)) return;
+      const out = power[gi];
+      for (let f = 0; f < nFreq; f++) out[f] += mass * atomPower[f];
+      plain[gi] += mass * p;
+      windowed[gi] += mass * w;
+    });
+    onProgress?.((k + 1) / sel.atoms.length);
+  });
 
-  const groups = v.groups.map((g): VdosGroupResult => {
-    const W = g.massWeightedSum;
-    const spectrum = correlationSpectrum(W, dt, kind, 1, transformer).values;
-    const d = v.dimensions;
-    const removesCom = v.comDriftRemoved && g.nAtoms === traj.nAtoms;
-    const dof = g.label === 'all' && options.degreesOfFreedom !== undefined ? options.degreesOfFreedom : d * g.nAtoms - (removesCom ? d : 0);
-    const kTkin = W[0] / dof;
+  const freqTHz = spectrum.frequencies();
+  const d = dims.length;
+  const groups = sel.groups.map((g, gi): VdosGroupResult => {
+    const removesCom = removeCom && g.atoms.length === traj.nAtoms;
+    const dof = g.label === 'all' && options.degreesOfFreedom !== undefined ? options.degreesOfFreedom : d * g.atoms.length - (removesCom ? d : 0);
+    const kTkin = plain[gi] / dof;
     const kT = options.normalisationTemperatureK !== undefined ? BOLTZMANN_ENGINE * options.normalisationTemperatureK : kTkin;
-    const dos = new Float64Array(nFreq);
-    for (let k = 0; k < nFreq; k++) dos[k] = (2 / kT) * spectrum[k];
+    const scale = windowed[gi] > 0 ? (2 / kT) * (plain[gi] / windowed[gi]) : 0;
+    const dos = power[gi].map((v) => v * scale);
     let integral = 0;
     for (let k = 0; k < nFreq; k++) integral += (k === 0 || k === nFreq - 1 ? 0.5 : 1) * dos[k];
-    integral /= L * dt;
-    const peaks = findPeaks(freqTHz, dos).map((p) => ({
-      thz: p.position,
-      cm1: p.position * WAVENUMBER_PER_THZ,
-      meV: p.position * MEV_PER_THZ,
-      fwhmThz: p.fwhm,
-      fwhmCm1: p.fwhm * WAVENUMBER_PER_THZ,
-      height: p.height,
-    }));
+    integral *= spectrum.binWidth;
+    let totalMass = 0;
+    for (const a of g.atoms) totalMass += sel.masses[a];
     return {
       label: g.label,
-      nAtoms: g.nAtoms,
+      nAtoms: g.atoms.length,
       degreesOfFreedom: dof,
       dosPerThz: dos,
       integral,
       kineticTemperatureK: kTkin / BOLTZMANN_ENGINE,
-      peaks,
-      zeroFrequencyDA2PerPs: (dos[0] * kT) / (4 * d * g.totalMassU),
+      peaks: findPeaks(freqTHz, dos).map((p) => ({
+        thz: p.position, cm1: p.position * WAVENUMBER_PER_THZ, meV: p.position * MEV_PER_THZ,
+        fwhmThz: p.fwhm, fwhmCm1: p.fwhm * WAVENUMBER_PER_THZ, height: p.height,
+      })),
+      zeroFrequencyDA2PerPs: (dos[0] * kT) / (4 * d * totalMass),
     };
   });
   const all = groups[0];
-  const totalMass = v.groups[0].totalMassU;
-  const thermoT = options.thermoTemperatureK ?? all.kineticTemperatureK;
+  let totalMass = 0;
+  for (const a of sel.groups[0].atoms) totalMass += sel.masses[a];
   return {
     units: { frequency: 'THz', dos: 'modes/THz' },
     freqTHz,
     freqCm1: freqTHz.map((f) => f * WAVENUMBER_PER_THZ),
     freqMeV: freqTHz.map((f) => f * MEV_PER_THZ),
-    binWidthThz: 1 / (L * dt),
-    window: kind,
-    fftLength: L,
-    velocitySource: v.velocitySource,
+    binWidthThz: spectrum.binWidth,
+    window: spectrum.windowKind,
+    fftLength: spectrum.plan.fftLength,
+    segmentFrames: spectrum.plan.segment,
+    segments: spectrum.plan.starts.length,
+    method: 'power spectrum of windowed velocities',
+    velocitySource: useStored ? 'stored-velocities' : 'central-differences',
     groups,
-    thermo: harmonicThermo(freqTHz, all.dosPerThz, thermoT, all.nAtoms, totalMass),
+    thermo: harmonicThermo(freqTHz, all.dosPerThz, options.thermoTemperatureK ?? all.kineticTemperatureK, all.nAtoms, totalMass),
     thermoNote:
       'Harmonic weights treat every mode as an oscillator; for liquids the ν→0 (diffusive) part makes the entropy approximate.',
   };

@@ -35,6 +35,8 @@ export interface HarmonicDiatomicsOptions {
   boxA: number;
   seed: number;
   rotate?: boolean;
+  /** Give each molecule a thermal centre-of-mass velocity (default true); false leaves only the stretch. */
+  translate?: boolean;
 }
 
 export interface HarmonicDiatomicsRun {
@@ -70,7 +72,8 @@ export function simulateHarmonicDiatomics(o: HarmonicDiatomicsOptions): Harmonic
     axes.set(n, 3 * m);
     for (let c = 0; c < 3; c++) {
       com[3 * m + c] = rng.uniform() * o.boxA;
-      vcom[3 * m + c] = Math.sqrt(kT / M) * rng.normal();
+      const u = rng.normal();
+      vcom[3 * m + c] = o.translate === false ? 0 : Math.sqrt(kT / M) * u;
     }
     xi0[m] = Math.sqrt(kT / k) * rng.normal();
     vi0[m] = Math.sqrt(kT / mu) * rng.normal();

@@ -68,10 +68,13 @@ function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsP
 }
 
 function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: Json): MethodsParagraph {
+  const segments = num(m, 'segments');
+  const averaged = segments !== null && segments > 1 ? `averaged over ${f(segments, 6)} half-overlapping segments of ${f(num(m, 'segmentFrames'), 12)} frames` : `over ${f(num(m, 'segmentFrames'), 12)} frames`;
   return {
     heading: 'Vibrational density of states',
-    body: `VDOS as the windowed FFT of the mass-weighted VACF (${windowName(text(m, 'window') ?? text(params, 'window'))}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
-      `zero padding ×${f(num(params, 'zeroPadFactor'), 3)}, bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
+    body: `VDOS as the mass-weighted power spectrum of the atoms' windowed velocities, S(ν) = (2/k_BT)·Σ m·|Σ_t w(t)·v(t)·e^{−2πiνt}|²·Δt/Σw², ` +
+      `non-negative at every frequency (${windowName(text(m, 'window') ?? text(params, 'window'))}, ${averaged}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
+      `bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
       `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K, beside the classical (Dulong–Petit) limit.` +
       `${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}`,
   };

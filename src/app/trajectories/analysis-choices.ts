@@ -12,7 +12,7 @@ export const ANALYSIS_CHOICES: AnalysisChoice[] = [
   { key: 'thermo', title: 'Temperature and density', description: 'Kinetic temperature by equipartition, density, block-averaged errors, equilibration check.' },
   { key: 'msd', title: 'MSD and diffusion', description: 'Mean-square displacement over all time origins; D from the Einstein relation with an uncertainty.' },
   { key: 'vacf', title: 'Velocity autocorrelation', description: 'VACF and the running Green–Kubo integral for D.' },
-  { key: 'vdos', title: 'Vibrational density of states', description: 'Spectrum of the mass-weighted VACF, peaks, heat capacity, entropy and zero-point energy.' },
+  { key: 'vdos', title: 'Vibrational density of states', description: 'Mass-weighted power spectrum of the velocities, peaks, heat capacity, entropy and zero-point energy.' },
   { key: 'rdf', title: 'Radial distribution g(r)', description: 'Per species pair and total, with the running coordination number.' },
   { key: 'sq', title: 'Structure factor S(q)', description: 'Fourier transform of g(r) with a stated window.' },
   { key: 'lindemann', title: 'Lindemann index', description: 'Relative fluctuation of pair distances; a melting signature.' },

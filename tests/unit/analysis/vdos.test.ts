@@ -1,12 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { BOLTZMANN_ENGINE } from '../../../server/analysis/constants.ts';
-import { correlationSpectrum } from '../../../server/analysis/correlation-spectrum.ts';
 import { vacf } from '../../../server/analysis/vacf.ts';
 import { vdos } from '../../../server/analysis/vdos.ts';
 import { simulateHarmonicDiatomics } from '../../../server/simulate/harmonic-diatomics.ts';
 import { SeededRandom } from '../../../server/simulate/random.ts';
 import { WINDOW_FUNCTIONS } from '../../../server/analysis/spectral-windows.ts';
-import { makeTrajectory, ornsteinUhlenbeck } from './synthetic.ts';
+import { simulateLennardJones } from '../../../server/simulate/lennard-jones.ts';
+import { diatomicBox } from './known-answer-systems.ts';
+import { makeTrajectory, ornsteinUhlenbeck, randomWalk } from './synthetic.ts';
 
 const MASS_AR = 39.95;
 
@@ -29,30 +30,30 @@ describe('VDOS normalisation (SCIENCE item 4; Lin, Blanco & Goddard, J. Chem. Ph
     expect(r.groups[0].integral).toBeCloseTo(897, 8);
   });
 
-  it('when C(t) = e^{−t} is sampled at Δt = 0.01 over 2^16 points, then Ĉ(0) = 2 and Ĉ(ω = 1) = 1 within 1e-4 (Lorentzian [COMMON PRACTICE])', () => {
-    const c = Float64Array.from({ length: 2 ** 16 }, (_, m) => Math.exp(-m * 0.01));
-    const s = correlationSpectrum(c, 0.01, 'none');
-    expect(Math.abs(s.values[0] - 2)).toBeLessThan(1e-4);
-    const nu = 1 / (2 * Math.PI);
-    const k = Math.floor(nu / s.binWidth);
-    const f = nu / s.binWidth - k;
-    const atOmega1 = s.values[k] * (1 - f) + s.values[k + 1] * f;
-    expect(Math.abs(atOmega1 - 1)).toBeLessThan(1e-4);
+  it('when one cosine of exactly bin frequency ν₀ is transformed without a window, then all its power sits in bin ν₀ and integrates to ⟨v²⟩ (discrete Fourier convention, Hz not rad/s [COMMON PRACTICE])', () => {
+    const dt = 0.01, n = 1024, k0 = 37, amp = 2;
+    const nu0 = k0 / (n * dt);
+    const traj = makeTrajectory(1, n, dt, () => undefined);
+    traj.velocities = Float32Array.from({ length: 3 * n }, (_, p) => (p % 3 === 0 ? amp * Math.cos(2 * Math.PI * nu0 * Math.floor(p / 3) * dt) : 0));
+    const r = vdos(traj, { window: 'none', removeComDrift: false, normalisationTemperatureK: 100 });
+    const s = r.groups[0].dosPerThz;
+    expect(r.freqTHz[k0]).toBeCloseTo(nu0, 12);
+    const kT = BOLTZMANN_ENGINE * 100;
+    // One-sided density of a cosine: all of m·⟨v²⟩/(k_BT) = m·A²/(2k_BT) in one bin of width 1/(nΔt).
+    expect(s[k0] * r.binWidthThz / ((MASS_AR * amp * amp) / (2 * kT)) - 1).toBeCloseTo(0, 8);
+    for (let k = 0; k < s.length; k++) if (k !== k0) expect(s[k]).toBeLessThan(1e-9 * s[k0]);
   });
 
-  it('when the OU VACF is truncated at 10/γ without a window, then the HWHM is γ/2π within 8 % and S(0) = 12mND/k_BT with the Green–Kubo D to 1e-10', () => {
-    const r = vdos(traj, { window: 'none', maxLagPs: 10, removeComDrift: false });
+  it('when the OU spectrum is averaged over segments of 100/γ without a window, then the HWHM is γ/2π within 8 % and S(0) = 12mND/k_BT gives D = k_BT/(mγ) within 8 % (SCIENCE items 3, 4)', () => {
+    const r = vdos(traj, { window: 'none', maxLagPs: 50, removeComDrift: false });
     const g = r.groups[0];
     const s = g.dosPerThz;
     let k = 0;
     while (s[k] > s[0] / 2) k++;
     const hwhm = r.freqTHz[k - 1] + ((s[k - 1] - s[0] / 2) / (s[k - 1] - s[k])) * r.binWidthThz;
+    expect(r.segments).toBe(3);
     expect(Math.abs(hwhm / (1 / (2 * Math.PI)) - 1)).toBeLessThan(0.08);
-    const v = vacf(traj, { maxLagPs: 10, removeComDrift: false }).groups[0];
-    const dGk = v.runningDA2PerPs[v.runningDA2PerPs.length - 1];
-    const kT = BOLTZMANN_ENGINE * g.kineticTemperatureK;
-    expect(Math.abs((s[0] * kT) / (12 * MASS_AR * 300 * dGk) - 1)).toBeLessThan(1e-10);
-    expect(Math.abs(g.zeroFrequencyDA2PerPs / dGk - 1)).toBeLessThan(1e-10);
+    expect(Math.abs(g.zeroFrequencyDA2PerPs - 1)).toBeLessThan(0.08);
   });
 });
 
@@ -87,7 +88,7 @@ describe('Harmonic oscillators: VACF = cos ωt and a VDOS line at ω/2π (SCIENC
     expect(Math.abs(peak.thz - omega / (2 * Math.PI)) / r.binWidthThz).toBeLessThan(0.1);
   });
 
-  it('when the drift is kept, then it shows only near ν = 0 (within the window main lobe)', () => {
+  it('when the drift is kept, then it shows only near ν = 0 (within the Hann window\'s main lobe)', () => {
     const withDrift = vdos(build(true), { removeComDrift: false, normalisationTemperatureK: 300 }).groups[0].dosPerThz;
     const without = vdos(build(false), { removeComDrift: false, normalisationTemperatureK: 300 }).groups[0].dosPerThz;
     const top = Math.max(...without);
@@ -97,7 +98,7 @@ describe('Harmonic oscillators: VACF = cos ωt and a VDOS line at ω/2π (SCIENC
     for (let k = 0; k < without.length; k++) extra += (k === 0 ? 0.5 : 1) * (withDrift[k] - without[k]) * binWidth;
     const expected = (n * MASS_AR * (drift[0] ** 2 + drift[1] ** 2 + drift[2] ** 2)) / (BOLTZMANN_ENGINE * 300);
     expect(Math.abs(extra / expected - 1)).toBeLessThan(0.01);
-    // Hann main lobe: ±2 bins of 1/(M·Δt), i.e. ±4 bins of the padded grid.
+    // Hann main lobe: ±2 bins of 1/(T·Δt); its side lobes fall as k⁻⁶ in power.
     for (let k = 8; k < without.length; k++) expect(Math.abs(withDrift[k] - without[k])).toBeLessThan(1e-4 * top);
   });
 });
@@ -111,6 +112,7 @@ describe('CO harmonic dimer: the whole unit chain fs → THz → cm⁻¹ (SCIENC
   it('when an analytic trajectory at Δt = 0.5 fs with 2^16 frames is analysed, then the VDOS peak is 2169.81 ± 0.5 cm⁻¹', () => {
     const run = simulateHarmonicDiatomics({ ...co, molecules: 1, timeStepPs: 0.0005, frames: 2 ** 16, integrator: 'analytic', seed: 1 });
     const r = vdos(run.trajectory, { masses: { C: 12, O: 15.99491461957 }, degreesOfFreedom: 1, thermoTemperatureK: 300 });
+    // Bin width 1/(2^16 · 0.5 fs) = 1.018 cm⁻¹, as in the SCIENCE prototype.
     expect(r.binWidthThz * 33.35640952).toBeCloseTo(1.018, 3);
     expect(Math.abs(r.groups[0].peaks[0].cm1 - 2169.81358)).toBeLessThan(0.5);
     // SCIENCE item 16: C_vib/k_B = x²eˣ/(eˣ−1)² with x = 2169.81/208.51 = 10.406 → 3.275e-3 [DERIVED].
@@ -126,5 +128,41 @@ describe('CO harmonic dimer: the whole unit chain fs → THz → cm⁻¹ (SCIENC
     const numeric = ((2 / dt) * Math.asin((run.omegaRadPerPs * dt) / 2)) / (2 * Math.PI) * 33.35640952;
     expect(numeric).toBeCloseTo(2185.2, 0);
     expect(Math.abs(r.groups[0].peaks[0].cm1 - 2185.2)).toBeLessThan(0.5);
+  });
+});
+
+// SCIENCE item 25 [COMMON PRACTICE]: S(ν) ∝ Σ m|Σ_t w(t)v(t)e^{−2πiνt}|² is ≥ 0 at every ν, so the heat
+// capacity, entropy and zero-point energy integrated over it cannot turn negative. Issue 9 saw a VDOS
+// dip to −16 (max 584) and Cv = −1.6e-5 k_B per atom on harmonic diatomics at 50 K with a windowed VACF.
+describe('VDOS as a power spectrum: never negative (SCIENCE item 25)', () => {
+  const co = { speciesA: 'C', speciesB: 'O', wavenumberCm1: 2143, bondLengthA: 1.128, molecules: 64 };
+  const cold = diatomicBox([co], { temperatureK: 50, timeStepPs: 0.0005, frames: 4096, boxA: 20, seed: 21, translate: false });
+  const fixtures: [string, Parameters<typeof vdos>[0], Parameters<typeof vdos>[1]][] = [
+    ['non-rotating CO at 50 K, stored velocities', cold, { degreesOfFreedom: 64 }],
+    ['non-rotating CO at 50 K, positions only', { ...cold, velocities: undefined }, { degreesOfFreedom: 64 }],
+    ['translating CO at 300 K', diatomicBox([co], { temperatureK: 300, timeStepPs: 0.001, frames: 2048, boxA: 20, seed: 4 }), {}],
+    ['Ornstein–Uhlenbeck velocities', ornsteinUhlenbeck(100, 2000, 0.05, 1, 1, 5), {}],
+    ['a Gaussian random walk, positions only', randomWalk(100, 800, 0.1, 0.5, 6), {}],
+    ['a Lennard-Jones liquid', simulateLennardJones({ cellsPerSide: 3, reducedDensity: 0.8442, temperatureK: 86.5, equilibrationSteps: 200, productionSteps: 600, sampleEvery: 2, seed: 3 }).trajectory, {}],
+  ];
+  for (const [name, traj, options] of fixtures) {
+    it.each(WINDOW_FUNCTIONS)(`when ${name} is analysed with the %s window, then every VDOS value, Cv, the quantum entropy and the zero-point energy are ≥ 0`, (window) => {
+      const r = vdos(traj, { ...options, window, maxLagPs: window === 'none' ? undefined : 0.4 * traj.times[traj.nFrames - 1] });
+      for (const g of r.groups) expect(Math.min(...g.dosPerThz)).toBeGreaterThanOrEqual(0);
+      expect(r.thermo.quantum.cvPerAtomKB).toBeGreaterThanOrEqual(0);
+      expect(r.thermo.classical.cvPerAtomKB).toBeGreaterThanOrEqual(0);
+      expect(r.thermo.quantum.entropyPerAtomKB).toBeGreaterThanOrEqual(0);
+      expect(r.thermo.quantum.zeroPointPerAtomEV).toBeGreaterThanOrEqual(0);
+    });
+  }
+
+  it('when the cold diatomics are analysed, then the line carries all 64 modes and Cv is that of a frozen oscillator, ≈ 0 and not below', () => {
+    const r = vdos(cold, { degreesOfFreedom: 64 });
+    expect(r.groups[0].integral).toBeCloseTo(64, 8);
+    // x = hν/k_BT = 2143·1.438777/50 = 61.7 for the line: Cv per mode x²e^{−x} ≈ 1e-23 [DERIVED]; what
+    // remains is the window's leakage of the line towards ν = 0, far below anything a card shows.
+    expect(r.thermo.quantum.cvPerAtomKB).toBeGreaterThanOrEqual(0);
+    expect(r.thermo.quantum.cvPerAtomKB).toBeLessThan(1e-9);
+    expect(Math.abs(r.groups[0].peaks[0].cm1 - 2143)).toBeLessThan(r.binWidthThz * 33.35640952);
   });
 });
