@@ -3,8 +3,10 @@
  * zod schema, so both sides accept and reject exactly the same input.
  */
 import { z } from 'zod';
+import { fileQuantitiesSchema } from './file-quantities.ts';
+import { interactionModelSchema } from './interaction-model.ts';
 
-export const ANALYSIS_KEYS = ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'ngp', 'sq'] as const;
+export const ANALYSIS_KEYS = ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'ngp', 'sq', 'energy'] as const;
 export type AnalysisKey = (typeof ANALYSIS_KEYS)[number];
 export const analysisKeySchema = z.enum(ANALYSIS_KEYS);
 
@@ -48,6 +50,16 @@ export const analysisParamsSchema = z.object({
   removeComDrift: z.boolean().default(true),
   /** Mass overrides in u, by species label or element symbol. */
   masses: z.record(z.string().min(1), z.number().positive()).default({}),
+  /** Pair potentials for the energy analysis; by default the trajectory's (or its project's) stored model. */
+  interactionModel: interactionModelSchema.optional(),
+  /** Which per-frame file numbers are energies, pressure, temperature; by default the trajectory's metadata. */
+  fileQuantities: fileQuantitiesSchema.optional(),
+  /** Ensemble of the run (chooses the fluctuation formula); by default the trajectory's metadata. */
+  ensemble: z.enum(['NVE', 'NVT', 'NPT', 'other']).optional(),
+  /** NVE drift threshold in k_B·T per atom per ns (default 0.01, a rule of thumb). */
+  driftThresholdKTPerNs: z.number().positive().max(1000).optional(),
+  /** Barostat pressure for the NPT enthalpy, bar; default the mean virial pressure. */
+  externalPressureBar: z.number().min(-1e7).max(1e7).optional(),
 });
 
 /** Parsed settings, defaults filled in. */

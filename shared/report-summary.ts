@@ -121,6 +121,52 @@ export interface SqSummary {
   firstPeak: { qInvA: number; s: number } | null;
 }
 
+/** Heat capacity from energy fluctuations, per atom and per mass, with block errors. */
+export interface FluctuationHeatCapacity {
+  quantity: 'C_V' | 'C_P';
+  method: string;
+  temperatureK: number;
+  perAtomKB: MeanWithError;
+  jPerMolK: MeanWithError;
+  jPerGK: MeanWithError;
+}
+
+export interface EnergyComparison {
+  quantity: 'potential energy' | 'pressure';
+  unit: 'eV/atom' | 'bar';
+  fileMean: number;
+  modelMean: number;
+  meanDifference: number;
+  rmsDifference: number;
+  tolerance: number;
+  agree: boolean;
+}
+
+export interface EnergySummary {
+  atoms: number;
+  ensemble: string | null;
+  sources: { potential: string | null; kinetic: string; pressure: string | null };
+  /** Potential energy per atom, eV (model, or file when there is no model). */
+  potentialPerAtomEV: MeanWithError | null;
+  kineticPerAtomEV: MeanWithError;
+  totalPerAtomEV: MeanWithError | null;
+  temperatureK: MeanWithError;
+  pressureBar: MeanWithError | null;
+  /** Mean pressure tensor, bar (model only). */
+  pressureTensorBar: { xx: MeanWithError; yy: MeanWithError; zz: MeanWithError; xy: MeanWithError; xz: MeanWithError; yz: MeanWithError } | null;
+  /** Mean analytic tail corrections included above, when asked for. */
+  tail: { energyPerAtomEV: number; pressureBar: number } | null;
+  /** Linear drift of the total energy and its fluctuation. */
+  drift: { perAtomEVPerNs: number; stdError: number; relativeFluctuation: number; fluctuationRatio: number; totalStdPerAtomEV: number } | null;
+  /** NVE conservation check against a threshold in k_B·T per atom per ns. */
+  nveCheck: { thresholdKTPerNs: number; thresholdEVPerAtomPerNs: number; thresholdSource: string; status: 'within' | 'exceeds' | 'inconclusive' } | null;
+  heatCapacity: FluctuationHeatCapacity | null;
+  /** Why there is no heat capacity, when there is none. */
+  heatCapacityNote: string | null;
+  /** File energies or pressure set beside the model's. */
+  comparisons: EnergyComparison[];
+}
+
 export interface ReportSummary {
   thermo?: ThermoSummary;
   msd?: MsdSummary;
@@ -130,4 +176,5 @@ export interface ReportSummary {
   lindemann?: LindemannSummary;
   ngp?: NgpSummary;
   sq?: SqSummary;
+  energy?: EnergySummary;
 }

@@ -6,6 +6,7 @@
 import { ANALYSIS_KEYS, analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import type { ReportSummary } from '../../shared/report-summary.ts';
 import { SIMULATION_CAUTION } from '../../shared/simulation-caution.ts';
+import { energySection } from './energy-report.ts';
 import { lindemann } from './lindemann.ts';
 import { msd } from './msd.ts';
 import { ngp } from './ngp.ts';
@@ -160,6 +161,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         run.summary.lindemann = { index: r.index, melted: r.melted, threshold: r.threshold, displacementRatio: r.displacementRatio };
         run.curves.lindemann = curve([['atom', 'index', Float64Array.from(r.atoms)], ['Lindemann index', '1', r.perAtom]]);
         run.methods.lindemann = { pairSet: r.pairSet, pairs: r.pairs, frameStride: r.frameStride, framesUsed: r.framesUsed };
+        break;
+      }
+      case 'energy': {
+        const r = energySection(traj, params, progress);
+        run.summary.energy = r.summary;
+        run.curves.energy = curve(r.curve);
+        run.methods.energy = r.methods;
         break;
       }
       case 'ngp': {

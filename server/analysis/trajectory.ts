@@ -22,4 +22,11 @@ export interface Trajectory {
   times: Float64Array;
   /** 'periodic' unwraps and uses minimum image; 'walls' and 'none' do not. */
   boundary: 'periodic' | 'walls' | 'none';
+  /**
+   * Per-frame numbers the file carries besides coordinates (extended XYZ
+   * comment keys such as energy=…, H5MD observables), by lower-case key,
+   * each of length nFrames (NaN where a frame lacks the key). Units are the
+   * file's; the energy analysis converts the ones the user mapped.
+   */
+  observables?: Record<string, Float64Array>;
 }

@@ -30,6 +30,8 @@ export interface LennardJonesOptions {
   skinSigma?: number;
   /** Default 0.004·τ. */
   timeStepPs?: number;
+  /** Time step of the production stage when it differs from the melting and equilibration stages. */
+  productionTimeStepPs?: number;
   /** Optional hot stage to melt the FCC start. */
   meltTemperatureK?: number;
   meltSteps?: number;
@@ -37,6 +39,14 @@ export interface LennardJonesOptions {
   productionSteps: number;
   sampleEvery: number;
   seed: number;
+  /**
+   * Also subtract the force at the cut-off (U − U(rc) − (r − rc)·U′(rc)), so
+   * force and energy are both continuous there and velocity Verlet shows its
+   * clean Δt² energy error.
+   */
+  forceShifted?: boolean;
+  /** Keep rescaling velocities to temperatureK during production (isokinetic sampling instead of NVE). */
+  productionRescale?: boolean;
 }
 
 export interface LennardJonesRun {
@@ -60,7 +70,7 @@ export function simulateLennardJones(o: LennardJonesOptions, onProgress?: (fract
   if (rc > box / 2) throw new Error('The cut-off must not exceed half the box.');
   const skin = (o.skinSigma ?? 0.3) * sigma;
   const tau = sigma * Math.sqrt(mass / eps);
-  const dt = o.timeStepPs ?? 0.004 * tau;
+  let dt = o.timeStepPs ?? 0.004 * tau;
   const rng = new SeededRandom(o.seed);
 
   const x = fccLattice(o.cellsPerSide, box / o.cellsPerSide);
@@ -69,7 +79,7 @@ export function simulateLennardJones(o: LennardJonesOptions, onProgress?: (fract
   for (let i = 0; i < 3 * N; i++) v[i] = rng.normal();
   setTemperature(v, N, mass, o.meltTemperatureK ?? o.temperatureK, true);
 
-  const system = new PairSystem(N, box, rc, skin, sigma, eps);
+  const system = new PairSystem(N, box, rc, skin, sigma, eps, o.forceShifted ?? false);
   system.forces(x, f);
   const invM = 1 / mass;
   const step = (): void => {
@@ -91,6 +101,7 @@ export function simulateLennardJones(o: LennardJonesOptions, onProgress?: (fract
     step();
     setTemperature(v, N, mass, o.temperatureK, false);
   }
+  if (o.productionTimeStepPs !== undefined) dt = o.productionTimeStepPs;
   const nFrames = Math.floor(o.productionSteps / o.sampleEvery) + 1;
   const positions = new Float32Array(3 * N * nFrames);
   const velocities = new Float32Array(3 * N * nFrames);
@@ -112,6 +123,7 @@ export function simulateLennardJones(o: LennardJonesOptions, onProgress?: (fract
   store(0);
   for (let s = 1; s <= o.productionSteps; s++, done++) {
     step();
+    if (o.productionRescale) setTemperature(v, N, mass, o.temperatureK, false);
     if (s % o.sampleEvery === 0) store(s / o.sampleEvery);
     if ((done & 255) === 0) onProgress?.(done / total);
   }
@@ -153,6 +165,8 @@ class PairSystem {
   private nPairs = 0;
   private readonly reference: Float64Array;
   private readonly shift: number;
+  /** U′(rc) when force-shifted, else 0. */
+  private readonly slope: number;
   private readonly head: Int32Array;
   private readonly next: Int32Array;
   private readonly cellIndex: Int32Array;
@@ -165,10 +179,12 @@ class PairSystem {
     private readonly skin: number,
     private readonly sigma: number,
     private readonly eps: number,
+    forceShifted: boolean,
   ) {
     this.reference = new Float64Array(3 * N).fill(Infinity);
     const s6 = (sigma / rc) ** 6;
     this.shift = 4 * eps * (s6 * s6 - s6);
+    this.slope = forceShifted ? (4 * eps * (-12 * s6 * s6 + 6 * s6)) / rc : 0;
     this.nCell = Math.floor(box / (rc + skin));
     this.head = new Int32Array(Math.max(1, this.nCell ** 3));
     this.next = new Int32Array(N);
@@ -180,7 +196,7 @@ class PairSystem {
     f.fill(0);
     const L = this.box, half = 0.5 * L;
     const rc2 = this.rc * this.rc, s2 = this.sigma * this.sigma;
-    const e4 = 4 * this.eps, e24 = 24 * this.eps;
+    const e4 = 4 * this.eps, e24 = 24 * this.eps, slope = this.slope;
     let pot = 0;
     const pi = this.pairI, pj = this.pairJ;
     for (let p = 0; p < this.nPairs; p++) {
@@ -199,7 +215,12 @@ class PairSystem {
       const sr2 = s2 / r2;
       const sr6 = sr2 * sr2 * sr2;
       pot += e4 * (sr6 * sr6 - sr6) - this.shift;
-      const fr = (e24 * (2 * sr6 * sr6 - sr6)) / r2;
+      let fr = (e24 * (2 * sr6 * sr6 - sr6)) / r2;
+      if (slope !== 0) {
+        const r = Math.sqrt(r2);
+        pot -= (r - this.rc) * slope;
+        fr += slope / r;
+      }
       f[i] += fr * dx;
       f[i + 1] += fr * dy;
       f[i + 2] += fr * dz;

@@ -16,7 +16,7 @@ import { curvesKeyFor } from '../../storage/object-keys.ts';
 import type { AnalyseJobData } from '../queue.ts';
 
 /** Analyses that share an intermediate run together: VDOS needs the VACF, S(q) needs g(r). */
-const STAGES: AnalysisKey[][] = [['thermo'], ['msd'], ['vacf', 'vdos'], ['rdf', 'sq'], ['lindemann'], ['ngp']];
+const STAGES: AnalysisKey[][] = [['thermo'], ['msd'], ['vacf', 'vdos'], ['rdf', 'sq'], ['lindemann'], ['ngp'], ['energy']];
 const LOAD_SHARE = 25;
 
 class Cancelled extends Error {}
@@ -99,7 +99,7 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<un
 }
 
 function labelOf(key: AnalysisKey): string {
-  return { thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂' }[key];
+  return { thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂', energy: 'energy' }[key];
 }
 
 function merge(a: AnalysisRun, b: AnalysisRun): AnalysisRun {

@@ -17,6 +17,7 @@ export const ANALYSIS_CHOICES: AnalysisChoice[] = [
   { key: 'sq', title: 'Structure factor S(q)', description: 'Fourier transform of g(r) with a stated window.' },
   { key: 'lindemann', title: 'Lindemann index', description: 'Relative fluctuation of pair distances; a melting signature.' },
   { key: 'ngp', title: 'Non-Gaussian parameter α₂(t)', description: 'Departure of displacements from a Gaussian; dynamic heterogeneity.' },
+  { key: 'energy', title: 'Energy, pressure and heat capacity', description: 'Potential, kinetic and total energy from the interaction model or the file; drift, virial pressure and tensor, heat capacity from fluctuations.' },
 ];
 
 /** Sensible defaults: what the trajectory can support. */

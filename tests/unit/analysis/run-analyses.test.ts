@@ -9,7 +9,8 @@ describe('runAnalyses registry', () => {
 
   it('when every analysis is requested, then each yields a summary, a curve with matching column/unit/data counts, and its methods', () => {
     const fractions: number[] = [];
-    const run = runAnalyses(traj, ANALYSIS_KEYS, { masses: { Ar: 39.948 } }, (f) => fractions.push(f));
+    const interactionModel = { pairs: [{ species: ['Ar', 'Ar'] as [string, string], form: 'lj' as const, epsilonEV: 0.0103236, sigmaA: 3.405, cutoffA: 8.5 }] };
+    const run = runAnalyses(traj, ANALYSIS_KEYS, { masses: { Ar: 39.948 }, interactionModel }, (f) => fractions.push(f));
     for (const key of ANALYSIS_KEYS) {
       expect(run.summary[key]).toBeDefined();
       expect(run.methods[key]).toBeDefined();
