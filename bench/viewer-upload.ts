@@ -34,10 +34,10 @@ export async function uploadForViewer(api: APIRequestContext, fileName: string, 
     multipart: { file: { name: fileName, mimeType: 'chemical/x-extxyz', buffer: bytes } }, headers: await xsrf(api), timeout: timeoutMs,
   });
   await expectStatus(upload, 201, `upload of ${fileName}`);
-  const trajectoryId = ((await upload.json()) as { id: number }).id;
+  const trajectoryId = ((await upload.json()) as { trajectory: { id: number } }).trajectory.id;
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const t = (await (await api.get(`/api/trajectories/${trajectoryId}`)).json()) as { status: string; error: string | null };
+    const { trajectory: t } = (await (await api.get(`/api/trajectories/${trajectoryId}`)).json()) as { trajectory: { status: string; error: string | null } };
     if (t.status === 'ready') break;
     if (t.status === 'failed') throw new Error(`inspection of ${fileName} failed: ${t.error}`);
     if (Date.now() > deadline) throw new Error(`inspection of ${fileName} did not finish in ${timeoutMs / 1000} s`);

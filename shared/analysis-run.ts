@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isoDate, personRef, recordId } from './api-fields.ts';
 import { analysisKeySchema, analysisParamsSchema } from './analysis-params.ts';
 
 /** Body of POST /api/trajectories/:id/analyses. */
@@ -12,19 +13,22 @@ export const RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled']
 export type RunStatusName = (typeof RUN_STATUSES)[number];
 
 /** One analysis run (a job) as the API returns it. */
-export interface AnalysisRunDto {
-  id: number;
-  projectId: number;
-  trajectoryId: number;
-  analyses: string[];
-  params: Record<string, unknown>;
-  status: RunStatusName;
-  progress: number;
-  attempts: number;
-  error: string | null;
-  reportId: number | null;
-  requestedBy: { id: number; displayName: string };
-  createdAt: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-}
+export const analysisRunSchema = z.object({
+  id: recordId,
+  projectId: recordId,
+  trajectoryId: recordId,
+  analyses: z.array(z.string()),
+  params: z.record(z.string(), z.unknown()),
+  status: z.enum(RUN_STATUSES),
+  /** 0–100. */
+  progress: z.number(),
+  attempts: z.number().int(),
+  /** Why it failed or was cancelled, in plain words. */
+  error: z.string().nullable(),
+  reportId: recordId.nullable(),
+  requestedBy: personRef,
+  createdAt: isoDate,
+  startedAt: isoDate.nullable(),
+  finishedAt: isoDate.nullable(),
+});
+export type AnalysisRunDto = z.infer<typeof analysisRunSchema>;

@@ -1,37 +1,49 @@
+import { z } from 'zod';
+import { isoDate, recordId } from './api-fields.ts';
 import type { ReportSummary } from './report-summary.ts';
 
-/** A report as the API returns it: what was run, on what, with which result. */
-export interface ReportDto {
-  id: number;
-  projectId: number;
-  trajectoryId: number;
-  trajectoryName: string;
-  runId: number;
-  title: string;
-  analyses: string[];
-  params: Record<string, unknown>;
-  /** Headline numbers, one typed block per analysis that ran. */
-  summary: ReportSummary;
-  /** Methods actually used, per analysis key, plus `caution` and `input` (file, checksum, units). */
-  methods: Record<string, unknown>;
-  engineVersion: string;
-  inputSha256: string | null;
-  createdAt: string;
-  curves: Record<string, ReportCurve>;
-}
-
-export interface ReportCurve {
-  columns: string[];
-  units: string[];
+export const reportCurveSchema = z.object({
+  columns: z.array(z.string()),
+  units: z.array(z.string()),
   /** One array per column; null where a point is undefined. */
-  data: (number | null)[][];
-}
+  data: z.array(z.array(z.number().nullable())),
+});
+export type ReportCurve = z.infer<typeof reportCurveSchema>;
 
-export interface ReportListItem {
-  id: number;
-  trajectoryId: number;
-  trajectoryName: string;
-  title: string;
-  analyses: string[];
-  createdAt: string;
-}
+const isObject = (v: unknown) => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** A report as the API returns it: what was run, on what, with which result. */
+export const reportSchema = z.object({
+  id: recordId,
+  projectId: recordId,
+  trajectoryId: recordId,
+  trajectoryName: z.string(),
+  runId: recordId,
+  title: z.string(),
+  analyses: z.array(z.string()),
+  params: z.record(z.string(), z.unknown()),
+  /** Headline numbers, one typed block per analysis that ran. */
+  summary: z.custom<ReportSummary>(isObject)
+    .meta({ description: 'Headline numbers, one block per analysis that ran (typed in shared/report-summary.ts); every field names its unit.' }),
+  /** Methods actually used, per analysis key, plus `caution` and `input` (file, checksum, units). */
+  methods: z.record(z.string(), z.unknown()),
+  engineVersion: z.string(),
+  inputSha256: z.string().nullable(),
+  createdAt: isoDate,
+  curves: z.record(z.string(), reportCurveSchema),
+});
+export type ReportDto = z.infer<typeof reportSchema>;
+
+export const reportListItemSchema = z.object({
+  id: recordId,
+  trajectoryId: recordId,
+  trajectoryName: z.string(),
+  title: z.string(),
+  analyses: z.array(z.string()),
+  createdAt: isoDate,
+});
+export type ReportListItem = z.infer<typeof reportListItemSchema>;
+
+/** GET /api/links/:token: the shared report and when the link stops working. */
+export const linkedReportSchema = z.object({ expiresAt: isoDate, report: reportSchema });
+export type LinkedReport = z.infer<typeof linkedReportSchema>;

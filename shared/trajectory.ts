@@ -3,6 +3,7 @@
  * schema so both sides accept the same values.
  */
 import { z } from 'zod';
+import { isoDate, personRef, recordId } from './api-fields.ts';
 
 export const LENGTH_UNITS = ['angstrom', 'nm', 'pm', 'bohr'] as const;
 export const TIME_UNITS = ['fs', 'ps', 'ns', 'au'] as const;
@@ -36,35 +37,44 @@ export const trajectoryMetadataSchema = z.object({
 
 export type TrajectoryMetadata = z.infer<typeof trajectoryMetadataSchema>;
 
+/** A frame range as the frames and cut routes take it: 0-based, `to` exclusive. */
+export const frameRangeQuery = z.object({
+  from: z.coerce.number().int().min(0).default(0),
+  to: z.coerce.number().int().min(1).default(Number.MAX_SAFE_INTEGER),
+  stride: z.coerce.number().int().min(1).max(1_000_000).default(1),
+}).refine((r) => r.to > r.from, { message: 'to must be greater than from', path: ['to'] });
+
 /** A trajectory as the API returns it. */
-export interface TrajectoryDto {
-  id: number;
-  projectId: number;
-  name: string;
-  sizeBytes: number;
-  sha256: string | null;
-  format: string | null;
-  compression: string | null;
-  status: (typeof TRAJECTORY_STATUSES)[number];
-  error: string | null;
-  atoms: number | null;
-  frames: number | null;
-  speciesCounts: Record<string, number> | null;
-  cell: number[] | null;
-  cellChanges: boolean | null;
-  hasVelocities: boolean | null;
-  timeStep: number | null;
-  timeUnit: string;
-  lengthUnit: string;
-  velocityUnit: string;
-  temperatureK: number | null;
-  ensemble: string | null;
-  boundary: string;
-  potential: string;
-  engine: string;
-  notes: string;
+export const trajectorySchema = z.object({
+  id: recordId,
+  projectId: recordId,
+  name: z.string(),
+  sizeBytes: z.number().int(),
+  sha256: z.string().nullable(),
+  format: z.string().nullable(),
+  compression: z.string().nullable(),
+  status: z.enum(TRAJECTORY_STATUSES),
+  /** The reader's message when inspection failed: file, frame, line. */
+  error: z.string().nullable(),
+  atoms: z.number().int().nullable(),
+  frames: z.number().int().nullable(),
+  speciesCounts: z.record(z.string(), z.number().int()).nullable(),
+  cell: z.array(z.number()).nullable(),
+  cellChanges: z.boolean().nullable(),
+  hasVelocities: z.boolean().nullable(),
+  timeStep: z.number().nullable(),
+  timeUnit: z.string(),
+  lengthUnit: z.string(),
+  velocityUnit: z.string(),
+  temperatureK: z.number().nullable(),
+  ensemble: z.string().nullable(),
+  boundary: z.string(),
+  potential: z.string(),
+  engine: z.string(),
+  notes: z.string(),
   /** Metadata fields whose value was read from the file. */
-  fromFile: string[];
-  uploadedBy: { id: number; displayName: string };
-  createdAt: string;
-}
+  fromFile: z.array(z.string()),
+  uploadedBy: personRef,
+  createdAt: isoDate,
+});
+export type TrajectoryDto = z.infer<typeof trajectorySchema>;

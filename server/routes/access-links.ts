@@ -3,30 +3,31 @@ import { currentUser } from '../auth/authorize.ts';
 import type { AppContext } from '../context.ts';
 import { createAccessLink, listAccessLinks, resolveAccessLink, revokeAccessLink } from '../services/access-links.ts';
 import { getReport } from '../services/reports.ts';
-import { ACCESS_LINK_MAX_DAYS } from '../../shared/account-rules.ts';
+import { secretTokenField } from '../../shared/accounts.ts';
+import { linkedReportSchema, reportSchema } from '../../shared/report.ts';
+import { accessLinkSchema, createAccessLinkBody, newAccessLinkSchema } from '../../shared/sharing.ts';
 import { curveField, sendCurveCsv } from './curve-csv.ts';
-import { appOrigin, body, idField, params, tokenField } from './request-parts.ts';
-import type { RouteDef } from './route-table.ts';
-
-const createBody = z.object({
-  expiresInDays: z.number({ error: 'must be a number of days' }).int('must be a whole number of days')
-    .min(1, 'must be at least 1 day').max(ACCESS_LINK_MAX_DAYS, `must be at most ${ACCESS_LINK_MAX_DAYS} days`),
-}).strict();
+import { appOrigin, body, idField, params } from './request-parts.ts';
+import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 
 /** Read-only, expiring, revocable links to one report, for readers outside the project. */
 export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'post', path: '/reports/:id/access-link', access: { kind: 'project', role: 'editor', via: 'report' },
+      summary: 'A read-only link to the report; its token is shown this once.',
+      request: { body: createAccessLinkBody }, response: wrapped('link', newAccessLinkSchema, 201),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        const { expiresInDays } = body(req, createBody);
+        const { expiresInDays } = body(req, createAccessLinkBody);
         const link = await createAccessLink(ctx.db, id, currentUser(req).id, expiresInDays);
         res.status(201).json({ link: { ...link, url: `${appOrigin(ctx, req)}/links/${link.token}` } });
       },
     },
     {
       method: 'get', path: '/reports/:id/access-links', access: { kind: 'project', role: 'editor', via: 'report' },
+      summary: "The report's links (without tokens), revoked and expired ones included.",
+      response: wrapped('links', z.array(accessLinkSchema)),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
         res.json({ links: await listAccessLinks(ctx.db, id) });
@@ -34,6 +35,8 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'delete', path: '/reports/:id/access-links/:linkId', access: { kind: 'project', role: 'editor', via: 'report' },
+      summary: 'Revokes a link.',
+      response: noContent,
       handler: async (req, res) => {
         const { id, linkId } = params(req, { id: idField, linkId: idField });
         await revokeAccessLink(ctx.db, id, currentUser(req).id, linkId);
@@ -42,16 +45,20 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'get', path: '/links/:token', access: { kind: 'public' },
+      summary: 'The report behind a valid, unexpired, unrevoked link, read only, and when the link expires.',
+      response: wrapped('link', linkedReportSchema),
       handler: async (req, res) => {
-        const { token } = params(req, { token: tokenField });
+        const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
-        res.json({ report: await getReport(ctx, link.reportId), expiresAt: link.expiresAt });
+        res.json({ link: { expiresAt: link.expiresAt.toISOString(), report: await getReport(ctx, link.reportId) } });
       },
     },
     {
       method: 'get', path: '/links/:token/export.json', access: { kind: 'public' },
+      summary: 'The report document behind a link, as a download.',
+      response: download('application/json', 'The report document: the same object as `report` in GET /api/reports/{id}.', reportSchema),
       handler: async (req, res) => {
-        const { token } = params(req, { token: tokenField });
+        const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${link.reportId}.json"`);
         res.json(await getReport(ctx, link.reportId));
@@ -59,8 +66,10 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'get', path: '/links/:token/curves/:curve.csv', access: { kind: 'public' },
+      summary: 'One curve of the report behind a link, as CSV with units in the header.',
+      response: download('text/csv', 'The curve as CSV: a header row of columns with units, then one row per point.'),
       handler: async (req, res) => {
-        const { token, curve } = params(req, { token: tokenField, curve: curveField });
+        const { token, curve } = params(req, { token: secretTokenField, curve: curveField });
         const link = await resolveAccessLink(ctx.db, token);
         await sendCurveCsv(ctx, res, link.reportId, curve);
       },

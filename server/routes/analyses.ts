@@ -1,35 +1,48 @@
-import { startAnalysisSchema } from '../../shared/analysis-run.ts';
+import { z } from 'zod';
+import { currentUser } from '../auth/authorize.ts';
 import type { AppContext } from '../context.ts';
 import { cancelRun, getRun, listRuns, startRun } from '../services/analysis-runs.ts';
-import { idParams } from './params.ts';
-import type { RouteDef } from './route-table.ts';
+import { analysisRunSchema, startAnalysisSchema } from '../../shared/analysis-run.ts';
+import { body, idField, params } from './request-parts.ts';
+import { wrapped, type RouteDef } from './route-table.ts';
 
 export function analysisRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'post', path: '/trajectories/:id/analyses', access: { kind: 'project', role: 'editor', via: 'trajectory' },
+      summary: 'Queues analyses of a ready trajectory as one job; 409 while it is not ready or states no time between frames.',
+      request: { body: startAnalysisSchema }, response: wrapped('job', analysisRunSchema, 202),
       handler: async (req, res) => {
-        const { id } = idParams.parse(req.params);
-        const body = startAnalysisSchema.parse(req.body);
-        res.status(202).json(await startRun(ctx, id, req.user!.id, body.analyses, body.params));
+        const { id } = params(req, { id: idField });
+        const { analyses, params: settings } = body(req, startAnalysisSchema);
+        res.status(202).json({ job: await startRun(ctx, id, currentUser(req).id, analyses, settings) });
       },
     },
     {
       method: 'get', path: '/trajectories/:id/analyses', access: { kind: 'project', role: 'viewer', via: 'trajectory' },
+      summary: "The trajectory's jobs, newest first.",
+      response: wrapped('jobs', z.array(analysisRunSchema)),
       handler: async (req, res) => {
-        res.json(await listRuns(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ jobs: await listRuns(ctx, id) });
       },
     },
     {
       method: 'get', path: '/jobs/:id', access: { kind: 'project', role: 'viewer', via: 'job' },
+      summary: 'One job: status queued → running → done | failed | cancelled, progress 0–100, attempts, error, report id.',
+      response: wrapped('job', analysisRunSchema),
       handler: async (req, res) => {
-        res.json(await getRun(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ job: await getRun(ctx, id) });
       },
     },
     {
       method: 'post', path: '/jobs/:id/cancel', access: { kind: 'project', role: 'editor', via: 'job' },
+      summary: 'Cancels a queued or running job; 409 once it has ended.',
+      response: wrapped('job', analysisRunSchema),
       handler: async (req, res) => {
-        res.json(await cancelRun(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ job: await cancelRun(ctx, id) });
       },
     },
   ];

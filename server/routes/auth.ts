@@ -1,4 +1,3 @@
-import { z } from 'zod';
 import { currentUser } from '../auth/authorize.ts';
 import { issueXsrfCookie } from '../auth/csrf.ts';
 import { endSession, signInWithPassword, startSession } from '../auth/passport.ts';
@@ -6,19 +5,19 @@ import { cookiesAreSecure, SESSION_COOKIE } from '../auth/session.ts';
 import type { AppContext } from '../context.ts';
 import { registerUser } from '../services/accounts.ts';
 import { confirmPasswordReset, requestPasswordReset } from '../services/password-reset.ts';
-import { appOrigin, body, displayNameField, emailField, passwordField, tokenField } from './request-parts.ts';
-import type { RouteDef } from './route-table.ts';
-
-const registerBody = z.object({ email: emailField, password: passwordField, displayName: displayNameField }).strict();
-const loginBody = z.object({ email: emailField, password: z.string({ error: 'is required' }).min(1, 'is required').max(1000) }).strict();
-const resetRequestBody = z.object({ email: emailField }).strict();
-const resetConfirmBody = z.object({ token: tokenField, password: passwordField }).strict();
+import {
+  noticeSchema, passwordResetBody, passwordResetConfirmBody, registerBody, signedInUserSchema, signInBody,
+} from '../../shared/accounts.ts';
+import { appOrigin, body } from './request-parts.ts';
+import { noContent, wrapped, type RouteDef } from './route-table.ts';
 
 export function authRoutes(ctx: AppContext): RouteDef[] {
   const secure = cookiesAreSecure(ctx);
   return [
     {
       method: 'post', path: '/auth/register', access: { kind: 'public' },
+      summary: 'Creates an account (the first account of an instance is its admin) and signs in.',
+      request: { body: registerBody }, response: wrapped('user', signedInUserSchema, 201),
       handler: async (req, res) => {
         const user = await registerUser(ctx.db, body(req, registerBody));
         await startSession(req, user);
@@ -28,8 +27,10 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/auth/login', access: { kind: 'public' },
+      summary: 'Signs in with e-mail and password (a new session id).',
+      request: { body: signInBody }, response: wrapped('user', signedInUserSchema),
       handler: async (req, res) => {
-        body(req, loginBody);
+        body(req, signInBody);
         const user = await signInWithPassword(ctx, req, res);
         // A new session gets a new CSRF token too, so one seen before sign-in is worth nothing after.
         issueXsrfCookie(res, secure);
@@ -38,6 +39,8 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/auth/logout', access: { kind: 'public' },
+      summary: 'Ends the session.',
+      response: noContent,
       handler: async (req, res) => {
         await endSession(req);
         res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure });
@@ -46,14 +49,18 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'get', path: '/auth/me', access: { kind: 'signed-in' },
+      summary: 'The signed-in user.',
+      response: wrapped('user', signedInUserSchema),
       handler: (req, res) => {
         res.json({ user: currentUser(req) });
       },
     },
     {
       method: 'post', path: '/auth/password-reset', access: { kind: 'public' },
+      summary: 'Mails a single-use reset link valid 60 minutes; answers 202 whether or not the account exists.',
+      request: { body: passwordResetBody }, response: wrapped('message', noticeSchema, 202),
       handler: (req, res) => {
-        const { email } = body(req, resetRequestBody);
+        const { email } = body(req, passwordResetBody);
         // Sent in the background so the answer takes as long whether or not the account exists.
         requestPasswordReset(ctx, email, appOrigin(ctx, req))
           .catch((err: unknown) => ctx.log.error({ err }, 'password reset e-mail failed'));
@@ -62,8 +69,10 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/auth/password-reset/confirm', access: { kind: 'public' },
+      summary: "Sets a new password with a reset token, ends the account's other sessions and signs in.",
+      request: { body: passwordResetConfirmBody }, response: wrapped('user', signedInUserSchema),
       handler: async (req, res) => {
-        const { token, password } = body(req, resetConfirmBody);
+        const { token, password } = body(req, passwordResetConfirmBody);
         const user = await confirmPasswordReset(ctx, token, password);
         await startSession(req, user);
         issueXsrfCookie(res, secure);

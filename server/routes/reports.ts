@@ -1,38 +1,47 @@
 import { z } from 'zod';
 import type { AppContext } from '../context.ts';
 import { getReport, listReports } from '../services/reports.ts';
+import { reportListItemSchema, reportSchema } from '../../shared/report.ts';
 import { curveField, sendCurveCsv } from './curve-csv.ts';
-import { idParams, idSchema } from './params.ts';
-import type { RouteDef } from './route-table.ts';
-
-const curveParams = z.object({ id: idSchema, curve: curveField });
+import { idField, params } from './request-parts.ts';
+import { download, wrapped, type RouteDef } from './route-table.ts';
 
 export function reportRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'get', path: '/projects/:id/reports', access: { kind: 'project', role: 'viewer', via: 'project' },
+      summary: "The project's reports, newest first.",
+      response: wrapped('reports', z.array(reportListItemSchema)),
       handler: async (req, res) => {
-        res.json(await listReports(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ reports: await listReports(ctx, id) });
       },
     },
     {
       method: 'get', path: '/reports/:id', access: { kind: 'project', role: 'viewer', via: 'report' },
+      summary: 'A report: headline summary per analysis, methods (parameters, engine version, input checksum), curves.',
+      response: wrapped('report', reportSchema),
       handler: async (req, res) => {
-        res.json(await getReport(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ report: await getReport(ctx, id) });
       },
     },
     {
       method: 'get', path: '/reports/:id/export.json', access: { kind: 'project', role: 'viewer', via: 'report' },
+      summary: 'The report document as a download.',
+      response: download('application/json', 'The report document: the same object as `report` in GET /api/reports/{id}.', reportSchema),
       handler: async (req, res) => {
-        const { id } = idParams.parse(req.params);
+        const { id } = params(req, { id: idField });
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${id}.json"`);
         res.json(await getReport(ctx, id));
       },
     },
     {
       method: 'get', path: '/reports/:id/curves/:curve.csv', access: { kind: 'project', role: 'viewer', via: 'report' },
+      summary: 'One curve as CSV with units in the header.',
+      response: download('text/csv', 'The curve as CSV: a header row of columns with units, then one row per point.'),
       handler: async (req, res) => {
-        const { id, curve } = curveParams.parse(req.params);
+        const { id, curve } = params(req, { id: idField, curve: curveField });
         await sendCurveCsv(ctx, res, id, curve);
       },
     },

@@ -1,46 +1,44 @@
 import { z } from 'zod';
-import { trajectoryMetadataSchema } from '../../shared/trajectory.ts';
+import { frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { badRequest } from '../errors.ts';
 import {
   abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata,
 } from '../services/trajectories.ts';
 import { extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
-import { idParams } from './params.ts';
-import type { RouteDef } from './route-table.ts';
+import { body, idField, params, query } from './request-parts.ts';
+import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 import { trajectoryUpload } from './upload-middleware.ts';
 
-const rangeQuery = z.object({
-  from: z.coerce.number().int().min(0).default(0),
-  to: z.coerce.number().int().min(1).default(Number.MAX_SAFE_INTEGER),
-  stride: z.coerce.number().int().min(1).max(1_000_000).default(1),
-}).refine((r) => r.to > r.from, { message: 'to must be greater than from', path: ['to'] });
-
 /** Multipart fields arrive as text: numbers are converted, blanks mean "not given". */
-function metadataFromFields(body: Record<string, unknown>) {
-  const fields: Record<string, unknown> = {};
-  for (const [key, value] of Object.entries(body ?? {})) {
+function metadataFromFields(fields: Record<string, unknown>) {
+  const parsed: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(fields ?? {})) {
     if (typeof value !== 'string' || value.trim() === '') continue;
-    fields[key] = ['temperatureK', 'timeStep'].includes(key) ? Number(value) : value;
+    parsed[key] = ['temperatureK', 'timeStep'].includes(key) ? Number(value) : value;
   }
-  return trajectoryMetadataSchema.safeParse(fields);
+  return trajectoryMetadataSchema.safeParse(parsed);
 }
 
 export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'get', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'viewer', via: 'project' },
+      summary: "The project's trajectories with what inspection found and their metadata, newest first.",
+      response: wrapped('trajectories', z.array(trajectorySchema)),
       handler: async (req, res) => {
-        const { id } = idParams.parse(req.params);
-        res.json(await listTrajectories(ctx, id));
+        const { id } = params(req, { id: idField });
+        res.json({ trajectories: await listTrajectories(ctx, id) });
       },
     },
     {
       method: 'post', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'editor', via: 'project' },
+      summary: 'Uploads a trajectory (multipart, field `file`, plus optional metadata fields): streamed to storage, checksummed, queued for inspection.',
+      request: { upload: { fileField: 'file', fields: trajectoryMetadataSchema } },
+      response: wrapped('trajectory', trajectorySchema, 201),
       // Streams while multer reads the body; `before` runs after the access check, so nothing is stored for a caller without rights.
       before: [trajectoryUpload(ctx)],
       handler: async (req, res) => {
-        const { id } = idParams.parse(req.params);
         const file = req.file;
         if (!file?.trajectoryId || !file.objectKey || file.sizeBytes === undefined || !file.sha256) {
           throw badRequest('No file received: send the trajectory as multipart/form-data in a field named "file".');
@@ -56,7 +54,7 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
         }
         const stored = { trajectoryId: file.trajectoryId, objectKey: file.objectKey, sizeBytes: file.sizeBytes, sha256: file.sha256 };
         try {
-          res.status(201).json(await completeUpload(ctx, stored, metadata.data));
+          res.status(201).json({ trajectory: await completeUpload(ctx, stored, metadata.data) });
         } catch (err) {
           // Whatever failed after the bytes were stored, the upload is undone rather than left `uploading`.
           await abandonUpload(ctx, stored.trajectoryId, stored.objectKey).catch(() => {});
@@ -66,38 +64,55 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'get', path: '/trajectories/:id', access: { kind: 'project', role: 'viewer', via: 'trajectory' },
+      summary: 'One trajectory: status uploading → inspecting → ready | failed (with the reader\'s message), atoms, frames, species, cell, time step; `fromFile` lists values read from the file.',
+      response: wrapped('trajectory', trajectorySchema),
       handler: async (req, res) => {
-        res.json(await getTrajectory(ctx, idParams.parse(req.params).id));
+        const { id } = params(req, { id: idField });
+        res.json({ trajectory: await getTrajectory(ctx, id) });
       },
     },
     {
       method: 'patch', path: '/trajectories/:id', access: { kind: 'project', role: 'editor', via: 'trajectory' },
+      summary: 'Corrects metadata; a value typed in is no longer marked as read from the file.',
+      request: { body: trajectoryMetadataSchema }, response: wrapped('trajectory', trajectorySchema),
       handler: async (req, res) => {
-        const { id } = idParams.parse(req.params);
-        res.json(await updateMetadata(ctx, id, trajectoryMetadataSchema.parse(req.body)));
+        const { id } = params(req, { id: idField });
+        res.json({ trajectory: await updateMetadata(ctx, id, body(req, trajectoryMetadataSchema)) });
       },
     },
     {
       method: 'delete', path: '/trajectories/:id', access: { kind: 'project', role: 'editor', via: 'trajectory' },
+      summary: 'Removes a trajectory with its stored file.',
+      response: noContent,
       handler: async (req, res) => {
-        await deleteTrajectory(ctx, idParams.parse(req.params).id);
+        const { id } = params(req, { id: idField });
+        await deleteTrajectory(ctx, id);
         res.status(204).end();
       },
     },
     {
       method: 'get', path: '/trajectories/:id/frames', access: { kind: 'project', role: 'viewer', via: 'trajectory' },
+      summary: 'Positions for the frame viewer, as binary.',
+      request: { query: frameRangeQuery },
+      response: download('application/octet-stream',
+        'A uint32 LE header length, a JSON header (atoms, species, per-frame index, time and cell), then Float32 LE positions in Å.'),
       handler: async (req, res) => {
-        const row = await getTrajectoryRow(ctx, idParams.parse(req.params).id);
-        const body = await framesChunk(ctx, row, rangeQuery.parse(req.query));
+        const { id } = params(req, { id: idField });
+        const row = await getTrajectoryRow(ctx, id);
+        const payload = await framesChunk(ctx, row, query(req, frameRangeQuery));
         res.type('application/octet-stream').setHeader('Cache-Control', 'private, max-age=3600');
-        res.send(body);
+        res.send(payload);
       },
     },
     {
       method: 'get', path: '/trajectories/:id/cut', access: { kind: 'project', role: 'viewer', via: 'trajectory' },
+      summary: 'A frame range (0-based, `to` exclusive) as extended XYZ.',
+      request: { query: frameRangeQuery },
+      response: download('text/plain', 'Extended XYZ: one block per frame, with the cell in Lattice= and velocities when the file has them.'),
       handler: async (req, res) => {
-        const row = await getTrajectoryRow(ctx, idParams.parse(req.params).id);
-        const range = rangeQuery.parse(req.query);
+        const { id } = params(req, { id: idField });
+        const row = await getTrajectoryRow(ctx, id);
+        const range = query(req, frameRangeQuery);
         const chunks = extxyzCut(ctx, row, range);
         const first = await chunks.next();
         const base = row.name.replace(/\.(gz|zip)$/i, '').replace(/\.[^.]*$/, '') || 'trajectory';

@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
+import { currentUser } from '../auth/authorize.ts';
 import { AppError, badRequest } from '../errors.ts';
 import type { AppContext } from '../context.ts';
 import { isOutage, serviceUnavailable } from '../outage.ts';
@@ -9,7 +10,7 @@ import { objectKeyFor, objectStoreStorage, UploadInterrupted } from '../services
 /** Multipart upload of one `file` part, streamed to the object store. */
 export function trajectoryUpload(ctx: AppContext): RequestHandler {
   const storage = objectStoreStorage(ctx.store, (req, file) => objectKeyFor(Number(req.params['id']), file.originalname), {
-    begin: (req, file, objectKey) => beginUpload(ctx, Number(req.params['id']), req.user!.id, file.originalname, objectKey),
+    begin: (req, file, objectKey) => beginUpload(ctx, Number(req.params['id']), currentUser(req).id, file.originalname, objectKey),
     heartbeat: (id) => touchUpload(ctx, id),
     abandon: (id, objectKey) => abandonUpload(ctx, id, objectKey),
   });

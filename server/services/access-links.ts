@@ -4,34 +4,32 @@ import type { Database } from '../db/client.ts';
 import { accessLinks, reports, users } from '../db/schema/index.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
+import type { AccessLinkView, NewAccessLink } from '../../shared/sharing.ts';
 
-export interface AccessLinkView {
-  id: number;
-  reportId: number;
-  createdBy: string;
-  createdAt: Date;
-  expiresAt: Date;
-  revokedAt: Date | null;
-  lastUsedAt: Date | null;
-}
-
-export async function createAccessLink(db: Database, reportId: number, actorId: number, expiresInDays: number, now = new Date()) {
+/** A new link: its token, which is never stored, and its expiry (the route adds the address). */
+export async function createAccessLink(
+  db: Database, reportId: number, actorId: number, expiresInDays: number, now = new Date(),
+): Promise<Omit<NewAccessLink, 'url'>> {
   const [report] = await db.select({ projectId: reports.projectId }).from(reports).where(eq(reports.id, reportId));
   if (!report) throw notFound('Report');
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(now.getTime() + expiresInDays * 86_400_000);
   const [{ id }] = await db.insert(accessLinks).values({ projectId: report.projectId, reportId, tokenHash: hash, createdBy: actorId, expiresAt }).$returningId();
   await recordAudit(db, { projectId: report.projectId, actorId, action: 'access_link.created', details: { reportId, linkId: id, expiresAt: expiresAt.toISOString() } });
-  return { id, reportId, token, expiresAt };
+  return { id, reportId, token, expiresAt: expiresAt.toISOString() };
 }
 
 /** Every link of a report, revoked and expired ones included, so owners see the whole history. */
 export async function listAccessLinks(db: Database, reportId: number): Promise<AccessLinkView[]> {
-  return db.select({
+  const rows = await db.select({
     id: accessLinks.id, reportId: accessLinks.reportId, createdBy: users.displayName, createdAt: accessLinks.createdAt,
     expiresAt: accessLinks.expiresAt, revokedAt: accessLinks.revokedAt, lastUsedAt: accessLinks.lastUsedAt,
   }).from(accessLinks).innerJoin(users, eq(users.id, accessLinks.createdBy))
     .where(eq(accessLinks.reportId, reportId)).orderBy(desc(accessLinks.createdAt), desc(accessLinks.id));
+  return rows.map((r) => ({
+    ...r, createdAt: r.createdAt.toISOString(), expiresAt: r.expiresAt.toISOString(),
+    revokedAt: r.revokedAt?.toISOString() ?? null, lastUsedAt: r.lastUsedAt?.toISOString() ?? null,
+  }));
 }
 
 export async function revokeAccessLink(db: Database, reportId: number, actorId: number, linkId: number): Promise<void> {

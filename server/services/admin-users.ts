@@ -5,32 +5,20 @@ import { users } from '../db/schema/index.ts';
 import { conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { endSessionsOf } from './sessions.ts';
+import type { AdminUser, AdminUserChanges } from '../../shared/admin.ts';
 
-export interface AdminUserView {
-  id: number;
-  email: string;
-  displayName: string;
-  role: 'admin' | 'member';
-  disabled: boolean;
-  createdAt: Date;
-}
-
-export async function listUsers(db: Database): Promise<AdminUserView[]> {
-  return db.select({
+export async function listUsers(db: Database): Promise<AdminUser[]> {
+  const rows = await db.select({
     id: users.id, email: users.email, displayName: users.displayName, role: users.role, disabled: users.disabled, createdAt: users.createdAt,
   }).from(users).orderBy(asc(users.id));
-}
-
-export interface UserChanges {
-  role?: 'admin' | 'member';
-  disabled?: boolean;
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
 /**
  * Makes or unmakes an admin, disables or enables an account. The instance
  * always keeps one active admin; a disabled account is signed out everywhere.
  */
-export async function updateUser(db: Database, pool: mysql.Pool, actorId: number, userId: number, changes: UserChanges): Promise<AdminUserView> {
+export async function updateUser(db: Database, pool: mysql.Pool, actorId: number, userId: number, changes: AdminUserChanges): Promise<AdminUser> {
   const [target] = await db.select().from(users).where(eq(users.id, userId));
   if (!target) throw notFound('User');
   const losesAdmin = target.role === 'admin' && !target.disabled && (changes.role === 'member' || changes.disabled === true);
@@ -48,5 +36,5 @@ export async function updateUser(db: Database, pool: mysql.Pool, actorId: number
     await recordAudit(db, { projectId: null, actorId, action: changes.disabled ? 'user.disabled' : 'user.enabled', details: { userId } });
   }
   const [row] = await db.select().from(users).where(eq(users.id, userId));
-  return { id: row!.id, email: row!.email, displayName: row!.displayName, role: row!.role, disabled: row!.disabled, createdAt: row!.createdAt };
+  return { id: row!.id, email: row!.email, displayName: row!.displayName, role: row!.role, disabled: row!.disabled, createdAt: row!.createdAt.toISOString() };
 }

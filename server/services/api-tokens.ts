@@ -6,34 +6,27 @@ import type { Database } from '../db/client.ts';
 import { apiTokens, users } from '../db/schema/index.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
+import type { ApiToken, NewApiToken } from '../../shared/accounts.ts';
 
 const TOKEN_PREFIX = 'erg_';
 /** last_used_at is refreshed at most this often, so busy scripts do not write on every call. */
 const LAST_USED_RESOLUTION_MS = 60_000;
 
-export interface ApiTokenView {
-  id: number;
-  name: string;
-  /** The first characters, to tell tokens apart; never enough to use one. */
-  prefix: string;
-  createdAt: Date;
-  lastUsedAt: Date | null;
-}
-
-export async function createApiToken(db: Database, userId: number, name: string): Promise<ApiTokenView & { token: string }> {
+export async function createApiToken(db: Database, userId: number, name: string): Promise<NewApiToken> {
   const { token, hash } = newSecretToken(TOKEN_PREFIX);
   const prefix = token.slice(0, TOKEN_PREFIX.length + 6);
   const [{ id }] = await db.insert(apiTokens).values({ userId, name, tokenHash: hash, prefix }).$returningId();
   await recordAudit(db, { projectId: null, actorId: userId, action: 'token.created', details: { tokenId: id, name } });
   const [row] = await db.select().from(apiTokens).where(eq(apiTokens.id, id));
-  return { id, name, prefix, createdAt: row!.createdAt, lastUsedAt: null, token };
+  return { id, name, prefix, createdAt: row!.createdAt.toISOString(), lastUsedAt: null, token };
 }
 
 /** The caller's tokens that still work. */
-export async function listApiTokens(db: Database, userId: number): Promise<ApiTokenView[]> {
-  return db.select({
+export async function listApiTokens(db: Database, userId: number): Promise<ApiToken[]> {
+  const rows = await db.select({
     id: apiTokens.id, name: apiTokens.name, prefix: apiTokens.prefix, createdAt: apiTokens.createdAt, lastUsedAt: apiTokens.lastUsedAt,
   }).from(apiTokens).where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt))).orderBy(desc(apiTokens.createdAt));
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), lastUsedAt: r.lastUsedAt?.toISOString() ?? null }));
 }
 
 export async function revokeApiToken(db: Database, userId: number, tokenId: number): Promise<void> {

@@ -1,6 +1,7 @@
 import { desc, eq } from 'drizzle-orm';
 import type { Database, Executor } from '../db/client.ts';
 import { auditLog, users } from '../db/schema/index.ts';
+import type { AuditEntry as AuditEntryView } from '../../shared/projects.ts';
 
 export type AuditAction =
   | 'project.created' | 'project.updated' | 'project.deleted'
@@ -21,23 +22,16 @@ export async function recordAudit(db: Executor, entry: AuditEntry): Promise<void
   await db.insert(auditLog).values(entry);
 }
 
-export interface AuditView {
-  id: number;
-  action: string;
-  details: Record<string, unknown>;
-  actor: { id: number; displayName: string; email: string } | null;
-  createdAt: Date;
-}
 
 /** The latest entries of one project, newest first. */
-export async function listProjectAudit(db: Database, projectId: number, limit = 200): Promise<AuditView[]> {
+export async function listProjectAudit(db: Database, projectId: number, limit = 200): Promise<AuditEntryView[]> {
   const rows = await db.select({
     id: auditLog.id, action: auditLog.action, details: auditLog.details, createdAt: auditLog.createdAt,
     actorId: users.id, actorName: users.displayName, actorEmail: users.email,
   }).from(auditLog).leftJoin(users, eq(users.id, auditLog.actorId))
     .where(eq(auditLog.projectId, projectId)).orderBy(desc(auditLog.createdAt), desc(auditLog.id)).limit(limit);
   return rows.map((r) => ({
-    id: r.id, action: r.action, details: r.details, createdAt: r.createdAt,
+    id: r.id, action: r.action, details: r.details, createdAt: r.createdAt.toISOString(),
     actor: r.actorId === null ? null : { id: r.actorId, displayName: r.actorName ?? '', email: r.actorEmail ?? '' },
   }));
 }

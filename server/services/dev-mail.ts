@@ -2,15 +2,8 @@ import { readdir, readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { AppError } from '../errors.ts';
+import type { SentMail } from '../../shared/admin.ts';
 
-export interface DevMailMessage {
-  /** The .eml file name; messages sort by it, oldest first. */
-  id: string;
-  to: string;
-  subject: string;
-  date: Date | null;
-  text: string;
-}
 
 function addresses(field: AddressObject | AddressObject[] | undefined): string {
   if (!field) return '';
@@ -18,11 +11,11 @@ function addresses(field: AddressObject | AddressObject[] | undefined): string {
 }
 
 /** The newest messages the SMTP fake kept, for clicking through e-mail flows locally. */
-export async function listDevMail(mailDir: string | undefined, limit = 50): Promise<DevMailMessage[]> {
+export async function listDevMail(mailDir: string | undefined, limit = 50): Promise<SentMail[]> {
   if (!mailDir) throw new AppError(404, 'not_found', 'The dev mail page is off: MAIL_FAKE_DIR is not set.');
   const names = (await readdir(mailDir)).filter((n) => n.endsWith('.eml')).sort().slice(-limit).reverse();
   return Promise.all(names.map(async (name) => {
     const parsed = await simpleParser(await readFile(join(mailDir, name)));
-    return { id: name, to: addresses(parsed.to), subject: parsed.subject ?? '', date: parsed.date ?? null, text: parsed.text ?? '' };
+    return { id: name, to: addresses(parsed.to), subject: parsed.subject ?? '', date: parsed.date && Number.isFinite(parsed.date.getTime()) ? parsed.date.toISOString() : null, text: parsed.text ?? '' };
   }));
 }

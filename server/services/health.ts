@@ -1,13 +1,8 @@
 import type { AppContext } from '../context.ts';
 import { sql } from 'drizzle-orm';
 import { APP_VERSION } from '../version.ts';
+import type { HealthReport, ServiceStatus } from '../../shared/health.ts';
 
-export interface ServiceStatus { status: 'ok' | 'down'; reason?: string }
-export interface HealthReport {
-  status: 'ok' | 'degraded';
-  version: string;
-  services: { database: ServiceStatus; queue: ServiceStatus; storage: ServiceStatus; mail: ServiceStatus };
-}
 
 async function probe(check: () => Promise<unknown>, timeoutMs = 3000): Promise<ServiceStatus> {
   let timer: NodeJS.Timeout | undefined;

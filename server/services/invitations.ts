@@ -9,15 +9,7 @@ import { INVITATION_DAYS } from '../../shared/account-rules.ts';
 import { invitationMail } from './account-mail.ts';
 import { recordAudit } from './audit.ts';
 import { touchProject } from './projects.ts';
-
-export interface InvitationView {
-  id: number;
-  email: string;
-  role: ProjectRole;
-  invitedBy: string;
-  createdAt: Date;
-  expiresAt: Date;
-}
+import type { InvitationFacts, PendingInvitation } from '../../shared/projects.ts';
 
 export interface NewInvitation {
   projectId: number;
@@ -29,7 +21,7 @@ export interface NewInvitation {
 }
 
 /** Invites an e-mail address; a newer invitation to the same address replaces the pending one. */
-export async function createInvitation(ctx: AppContext, invite: NewInvitation, now = new Date()): Promise<InvitationView> {
+export async function createInvitation(ctx: AppContext, invite: NewInvitation, now = new Date()): Promise<PendingInvitation> {
   const { db } = ctx;
   const [member] = await db.select({ id: users.id }).from(projectMembers).innerJoin(users, eq(users.id, projectMembers.userId))
     .where(and(eq(projectMembers.projectId, invite.projectId), eq(users.email, invite.email)));
@@ -55,17 +47,18 @@ export async function createInvitation(ctx: AppContext, invite: NewInvitation, n
     throw new AppError(502, 'mail_unavailable', 'The invitation e-mail could not be sent, so no invitation was made. Try again later.');
   }
   await recordAudit(db, { projectId: invite.projectId, actorId: invite.actor.id, action: 'invitation.sent', details: { invitationId: id, email: invite.email, role: invite.role } });
-  return { id, email: invite.email, role: invite.role, invitedBy: invite.actor.displayName, createdAt: now, expiresAt };
+  return { id, email: invite.email, role: invite.role, invitedBy: invite.actor.displayName, createdAt: now.toISOString(), expiresAt: expiresAt.toISOString() };
 }
 
 /** Invitations that can still be accepted. */
-export async function listPendingInvitations(db: Database, projectId: number, now = new Date()): Promise<InvitationView[]> {
-  return db.select({
+export async function listPendingInvitations(db: Database, projectId: number, now = new Date()): Promise<PendingInvitation[]> {
+  const rows = await db.select({
     id: invitations.id, email: invitations.email, role: invitations.role, invitedBy: users.displayName,
     createdAt: invitations.createdAt, expiresAt: invitations.expiresAt,
   }).from(invitations).innerJoin(users, eq(users.id, invitations.invitedBy))
     .where(and(eq(invitations.projectId, projectId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now)))
     .orderBy(asc(invitations.createdAt));
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), expiresAt: r.expiresAt.toISOString() }));
 }
 
 export async function revokeInvitation(db: Database, projectId: number, actorId: number, invitationId: number): Promise<void> {
@@ -73,14 +66,6 @@ export async function revokeInvitation(db: Database, projectId: number, actorId:
     eq(invitations.projectId, projectId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
   if (result.affectedRows !== 1) throw notFound('Pending invitation');
   await recordAudit(db, { projectId, actorId, action: 'invitation.revoked', details: { invitationId } });
-}
-
-export interface InvitationFacts {
-  projectName: string;
-  email: string;
-  role: ProjectRole;
-  invitedBy: string;
-  expiresAt: Date;
 }
 
 async function findUsable(db: Database, token: string, now: Date) {
@@ -98,7 +83,7 @@ async function findUsable(db: Database, token: string, now: Date) {
 /** What the accept page shows before anyone signs in: the token itself is the proof of invitation. */
 export async function describeInvitation(db: Database, token: string, now = new Date()): Promise<InvitationFacts> {
   const { invitation, projectName, invitedBy } = await findUsable(db, token, now);
-  return { projectName, email: invitation.email, role: invitation.role, invitedBy, expiresAt: invitation.expiresAt };
+  return { projectName, email: invitation.email, role: invitation.role, invitedBy, expiresAt: invitation.expiresAt.toISOString() };
 }
 
 /** Joins the invited project; the token works once and only for the account with the invited e-mail. */

@@ -4,20 +4,14 @@ import { projectMembers, users, type ProjectRole } from '../db/schema/index.ts';
 import { conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { touchProject } from './projects.ts';
+import type { Member } from '../../shared/projects.ts';
 
-export interface MemberView {
-  userId: number;
-  email: string;
-  displayName: string;
-  role: ProjectRole;
-  joinedAt: Date;
-}
-
-export async function listMembers(db: Database, projectId: number): Promise<MemberView[]> {
-  return db.select({
+export async function listMembers(db: Database, projectId: number): Promise<Member[]> {
+  const rows = await db.select({
     userId: users.id, email: users.email, displayName: users.displayName, role: projectMembers.role, joinedAt: projectMembers.createdAt,
   }).from(projectMembers).innerJoin(users, eq(users.id, projectMembers.userId))
     .where(eq(projectMembers.projectId, projectId)).orderBy(asc(projectMembers.createdAt), asc(users.id));
+  return rows.map((r) => ({ ...r, joinedAt: r.joinedAt.toISOString() }));
 }
 
 type Change = { kind: 'role'; role: ProjectRole } | { kind: 'remove' };

@@ -5,17 +5,8 @@ import { projectPrefix } from '../storage/object-keys.ts';
 import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
 import { AppError, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
+import type { ProjectSummary } from '../../shared/projects.ts';
 
-export interface ProjectSummary {
-  id: number;
-  name: string;
-  description: string;
-  /** The caller's role in the project. */
-  role: ProjectRole;
-  memberCount: number;
-  createdAt: Date;
-  lastActivityAt: Date;
-}
 
 const memberCount = sql<number>`(SELECT COUNT(*) FROM project_members pm WHERE pm.project_id = ${projects.id})`.mapWith(Number);
 
@@ -26,15 +17,19 @@ function summaryQuery(db: Database, userId: number) {
   }).from(projects).innerJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, userId)));
 }
 
+function toSummary(row: Awaited<ReturnType<typeof summaryQuery>>[number]): ProjectSummary {
+  return { ...row, createdAt: row.createdAt.toISOString(), lastActivityAt: row.lastActivityAt.toISOString() };
+}
+
 /** The projects the user belongs to, most recently active first. */
 export async function listProjects(db: Database, userId: number): Promise<ProjectSummary[]> {
-  return summaryQuery(db, userId).orderBy(desc(projects.lastActivityAt), desc(projects.id));
+  return (await summaryQuery(db, userId).orderBy(desc(projects.lastActivityAt), desc(projects.id))).map(toSummary);
 }
 
 export async function getProject(db: Database, projectId: number, userId: number): Promise<ProjectSummary> {
   const [row] = await summaryQuery(db, userId).where(eq(projects.id, projectId));
   if (!row) throw notFound('Project');
-  return row;
+  return toSummary(row);
 }
 
 export interface ProjectFields {

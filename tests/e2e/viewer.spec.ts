@@ -144,7 +144,8 @@ test.describe('frame viewer', () => {
     await page.route(new RegExp(`/api/trajectories/${trajectory.id}$`), async (route) => {
       if (stillInspecting-- <= 0) return route.continue();
       const response = await route.fetch();
-      return route.fulfill({ response, json: { ...((await response.json()) as object), status: 'inspecting' } });
+      const { trajectory: stored } = (await response.json()) as { trajectory: object };
+      return route.fulfill({ response, json: { trajectory: { ...stored, status: 'inspecting' } } });
     });
 
     await page.goto(`/trajectories/${trajectory.id}/view`);

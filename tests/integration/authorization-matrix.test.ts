@@ -110,6 +110,25 @@ async function createWorld(): Promise<World> {
   return { ids, named };
 }
 
+/**
+ * A successful answer must have the shape the route table (and so the API
+ * document) promises: JSON wrapped in its one key, the value as its schema says.
+ */
+function contractProblem(route: RouteDef, status: number, body: unknown): string | null {
+  if (status < 200 || status > 299) return null;
+  const { response } = route;
+  if (response.kind === 'empty') return status === 204 ? null : `answered ${status}, documented 204`;
+  if (response.kind === 'file') {
+    const parsed = response.schema?.safeParse(body);
+    return parsed && !parsed.success ? `download does not match its schema: ${parsed.error.message}` : null;
+  }
+  if (status !== response.status) return `answered ${status}, documented ${response.status}`;
+  const keys = typeof body === 'object' && body !== null ? Object.keys(body) : [];
+  if (keys.length !== 1 || keys[0] !== response.key) return `answer keys ${JSON.stringify(keys)}, documented {${response.key}}`;
+  const parsed = response.schema.safeParse((body as Record<string, unknown>)[response.key]);
+  return parsed.success ? null : `{${response.key}} does not match its schema: ${parsed.error.message}`;
+}
+
 /** Fills `:param`s: the rule's own param from its resource kind, the others by name. */
 function fillPath(route: RouteDef, world: World): string {
   const ruleParam = route.access.kind === 'project' ? (route.access.param ?? 'id') : null;
@@ -173,6 +192,8 @@ describe('authorization matrix over the whole route table', () => {
         const res = await client.send(route.method, path, route.method === 'get' ? undefined : {});
         const observed = observedVerdict(route, res.status, res.body?.error?.message);
         if (observed !== expected) problems.push(`${persona}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+        const contract = contractProblem(route, res.status, res.body);
+        if (contract) problems.push(`${persona}: ${contract}`);
         await restore(persona);
       }
       expect(problems).toEqual([]);
@@ -184,7 +205,7 @@ describe('authorization matrix over the whole route table', () => {
     const holder = await clientFor('access-link holder');
     const read = await holder.get(`/api/links/${world.named['token']}`);
     expect(read.status).toBe(200);
-    expect(read.body.report.id).toBe(world.ids.report);
+    expect(read.body.link.report.id).toBe(world.ids.report);
     expect((await holder.get(`/api/reports/${world.ids.report}/comments`)).status).toBe(401);
   });
 });

@@ -10,10 +10,12 @@ describe('GET /api/health', () => {
     const res = await request(testApp.app).get('/api/health');
     expect(res.status).toBe(200);
     expect(res.body).toEqual({
-      status: 'ok',
-      version: expect.stringMatching(/^\d+\.\d+\.\d+/),
-      services: {
-        database: { status: 'ok' }, queue: { status: 'ok' }, storage: { status: 'ok' }, mail: { status: 'ok' },
+      health: {
+        status: 'ok',
+        version: expect.stringMatching(/^\d+\.\d+\.\d+/),
+        services: {
+          database: { status: 'ok' }, queue: { status: 'ok' }, storage: { status: 'ok' }, mail: { status: 'ok' },
+        },
       },
     });
   });
@@ -23,10 +25,10 @@ describe('GET /api/health', () => {
     try {
       const res = await request(broken.app).get('/api/health');
       expect(res.status).toBe(503);
-      expect(res.body.status).toBe('degraded');
-      expect(res.body.services.mail.status).toBe('down');
-      expect(res.body.services.mail.reason).toMatch(/\S/);
-      expect(res.body.services.database.status).toBe('ok');
+      expect(res.body.health.status).toBe('degraded');
+      expect(res.body.health.services.mail.status).toBe('down');
+      expect(res.body.health.services.mail.reason).toMatch(/\S/);
+      expect(res.body.health.services.database.status).toBe('ok');
     } finally {
       await broken.close();
     }

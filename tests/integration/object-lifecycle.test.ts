@@ -24,17 +24,17 @@ async function newProject(name: string): Promise<number> {
 async function uploadReady(projectId: number, bytes: Buffer, name: string) {
   const res = await owner.client.raw('post', `/api/projects/${projectId}/trajectories`).attach('file', bytes, name);
   expect(res.status, JSON.stringify(res.body)).toBe(201);
-  const ready = await pollUntil(() => owner.client.get(`/api/trajectories/${res.body.id}`), (r) => r.body.status !== 'inspecting');
-  expect(ready.body.status).toBe('ready');
-  return res.body.id as number;
+  const ready = await pollUntil(() => owner.client.get(`/api/trajectories/${res.body.trajectory.id}`), (r) => r.body.trajectory.status !== 'inspecting');
+  expect(ready.body.trajectory.status).toBe('ready');
+  return res.body.trajectory.id as number;
 }
 
 async function analysed(trajectoryId: number): Promise<number> {
   const started = await owner.client.post(`/api/trajectories/${trajectoryId}/analyses`, { analyses: ['msd', 'rdf'] });
   expect(started.status, JSON.stringify(started.body)).toBe(202);
-  const run = await pollUntil(() => owner.client.get(`/api/jobs/${started.body.id}`), (r) => ['done', 'failed'].includes(r.body.status), 120_000);
-  expect(run.body.status, JSON.stringify(run.body)).toBe('done');
-  return run.body.reportId as number;
+  const run = await pollUntil(() => owner.client.get(`/api/jobs/${started.body.job.id}`), (r) => ['done', 'failed'].includes(r.body.job.status), 120_000);
+  expect(run.body.job.status, JSON.stringify(run.body)).toBe('done');
+  return run.body.job.reportId as number;
 }
 
 beforeAll(async () => {
@@ -96,11 +96,11 @@ describe('every stored object belongs to what owns it', () => {
     const bytes = await jitteredCrystalExtxyz(5, 300);
     const res = await owner.client.raw('post', `/api/projects/${projectId}/trajectories`).attach('file', bytes, 'busy.extxyz');
     expect(res.status).toBe(201);
-    const job = await pollUntil(async () => ctx.queue.queue.getJob(`inspect-${res.body.id}`), (j) => j !== undefined);
+    const job = await pollUntil(async () => ctx.queue.queue.getJob(`inspect-${res.body.trajectory.id}`), (j) => j !== undefined);
     const state = await pollUntil(() => job!.getState(), (s) => s !== 'waiting' && s !== 'delayed' && s !== 'prioritized');
     expect(state).toBe('active');
-    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.id));
-    expect((await owner.client.delete(`/api/trajectories/${res.body.id}`)).status).toBe(204);
+    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.trajectory.id));
+    expect((await owner.client.delete(`/api/trajectories/${res.body.trajectory.id}`)).status).toBe(204);
     const finished = await pollUntil(() => job!.getState(), (s) => s === 'completed' || s === 'failed');
     expect(finished).toBe('completed');
     expect(await keysUnder(trajectoryPrefix(row!.objectKey))).toEqual([]);

@@ -125,7 +125,7 @@ describe('invitations', () => {
     expect((await visitor.post('/api/auth/register', { email: inviteeEmail, password: 'invitee-password', displayName: 'Invitee' })).status).toBe(201);
     const accepted = await visitor.post(`/api/invitations/${token}/accept`);
     expect(accepted.status).toBe(200);
-    expect(accepted.body).toEqual({ projectId: id });
+    expect(accepted.body.project).toEqual(expect.objectContaining({ id, role: 'viewer' }));
     const project = await visitor.get(`/api/projects/${id}`);
     expect(project.body.project.role).toBe('viewer');
     expect((await visitor.patch(`/api/projects/${id}`, { name: 'Mine now' })).status).toBe(403);
@@ -206,7 +206,7 @@ describe('access links and comments on a report', () => {
     const reader = new ApiClient(app);
     const read = await reader.get(`/api/links/${token}`);
     expect(read.status).toBe(200);
-    expect(read.body.report).toEqual(expect.objectContaining({
+    expect(read.body.link.report).toEqual(expect.objectContaining({
       id: reportId, title: 'MSD of a test run', trajectoryName: 'test-run.xyz', summary: FIXTURE_SUMMARY,
     }));
     expect((await reader.get(`/api/reports/${reportId}/comments`)).status).toBe(401);

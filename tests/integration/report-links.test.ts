@@ -33,14 +33,14 @@ describe('a report read through an access link', () => {
 
     expect(member.status).toBe(200);
     expect(holder.status).toBe(200);
-    expect(holder.body.report).toEqual(member.body);
-    expect(Object.keys(holder.body.report).sort()).toEqual(Object.keys(member.body).sort());
-    expect(holder.body.report.summary).toEqual(FIXTURE_SUMMARY);
-    expect(holder.body.report.curves.msd.data[1]).toEqual(Array.from(FIXTURE_MSD_CURVE.data[1]!));
-    expect(new Date(holder.body.expiresAt).getTime()).toBeGreaterThan(Date.now() + 2 * 86_400_000);
+    expect(holder.body.link.report).toEqual(member.body.report);
+    expect(Object.keys(holder.body.link.report).sort()).toEqual(Object.keys(member.body.report).sort());
+    expect(holder.body.link.report.summary).toEqual(FIXTURE_SUMMARY);
+    expect(holder.body.link.report.curves.msd.data[1]).toEqual(Array.from(FIXTURE_MSD_CURVE.data[1]!));
+    expect(new Date(holder.body.link.expiresAt).getTime()).toBeGreaterThan(Date.now() + 2 * 86_400_000);
     const exported = await new ApiClient(app).get(`/api/links/${token}/export.json`);
     expect(exported.headers['content-disposition']).toContain(`ergodic-report-${reportId}.json`);
-    expect(exported.body).toEqual(member.body);
+    expect(exported.body).toEqual(member.body.report);
   });
 
   it('when a link holder asks for a curve as CSV, then it is the member\'s CSV; an unknown curve is a 404 naming the ones there are', async () => {

@@ -28,8 +28,8 @@ async function objectKeysUnder(prefix: string): Promise<string[]> {
 }
 
 async function waitUntilSettled(id: number) {
-  const res = await pollUntil(() => script.get(`/api/trajectories/${id}`), (r) => !['uploading', 'inspecting'].includes(r.body.status));
-  return res.body;
+  const res = await pollUntil(() => script.get(`/api/trajectories/${id}`), (r) => !['uploading', 'inspecting'].includes(r.body.trajectory.status));
+  return res.body.trajectory;
 }
 
 function upload(client: ApiClient | null, bytes: Buffer, name: string, fields: Record<string, string> = {}) {
@@ -57,9 +57,9 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     const gz = gzipSync(liquid.bytes);
     const res = await upload(null, gz, 'run.extxyz.gz', { temperatureK: '86.5', ensemble: 'NVE', potential: 'LJ 12-6' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.sizeBytes).toBe(gz.length);
-    expect(res.body.sha256).toMatch(/^[0-9a-f]{64}$/);
-    const ready = await waitUntilSettled(res.body.id);
+    expect(res.body.trajectory.sizeBytes).toBe(gz.length);
+    expect(res.body.trajectory.sha256).toMatch(/^[0-9a-f]{64}$/);
+    const ready = await waitUntilSettled(res.body.trajectory.id);
     expect(ready.error).toBeNull();
     expect(ready).toMatchObject({
       status: 'ready', format: 'extxyz', compression: 'gzip', atoms: liquid.run.trajectory.nAtoms,
@@ -132,7 +132,7 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
 
   it('when a file states no times, then analyses are refused until the time between frames is given, and then accepted', async () => {
     const res = await upload(null, Buffer.from('2\nno times here\nAr 0 0 0\nAr 1 1 1\n2\n\nAr 0.1 0 0\nAr 1 1.1 1\n2\n\nAr 0.2 0 0\nAr 1 1.2 1\n'), 'untimed.xyz');
-    const ready = await waitUntilSettled(res.body.id);
+    const ready = await waitUntilSettled(res.body.trajectory.id);
     expect(ready.status).toBe('ready');
     expect(ready.timeStep).toBeNull();
     const refused = await script.post(`/api/trajectories/${ready.id}/analyses`, { analyses: ['msd'] });
@@ -141,7 +141,7 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     await script.patch(`/api/trajectories/${ready.id}`, { timeStep: 2, timeUnit: 'fs' });
     const accepted = await script.post(`/api/trajectories/${ready.id}/analyses`, { analyses: ['msd'] });
     expect(accepted.status).toBe(202);
-    expect(['queued', 'running']).toContain(accepted.body.status);
+    expect(['queued', 'running']).toContain(accepted.body.job.status);
   });
 
   it('when there is no file part, then it says to send the trajectory in a field named "file"', async () => {
@@ -153,11 +153,11 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
   it('when the file is malformed, then that trajectory fails with file, frame and line, and the project keeps its other trajectories', async () => {
     const res = await upload(null, Buffer.from('3\nframe one\nAr 0 0 0\nAr 1 1 1\nAr 2 2 2\n3\nframe two\nAr 0 0 0\nAr 1 1 1\n'), 'short.xyz');
     expect(res.status).toBe(201);
-    const failed = await waitUntilSettled(res.body.id);
+    const failed = await waitUntilSettled(res.body.trajectory.id);
     expect(failed.status).toBe('failed');
     expect(failed.error).toMatch(/short\.xyz.*frame 2/);
     const list = await script.get(`/api/projects/${projectId}/trajectories`);
-    expect(list.body.filter((t: { status: string }) => t.status === 'ready').length).toBeGreaterThan(0);
+    expect(list.body.trajectories.filter((t: { status: string }) => t.status === 'ready').length).toBeGreaterThan(0);
   });
 });
 
@@ -165,14 +165,14 @@ describe('trajectory metadata, frames and cuts', () => {
   let id: number;
   beforeAll(async () => {
     const res = await upload(null, liquid.bytes, 'liquid.extxyz');
-    id = (await waitUntilSettled(res.body.id)).id;
+    id = (await waitUntilSettled(res.body.trajectory.id)).id;
   });
 
   it('when the uploader corrects the time step, then it is stored and no longer marked as read from the file', async () => {
     const res = await script.patch(`/api/trajectories/${id}`, { timeStep: 0.02, timeUnit: 'ps', notes: 'checked' });
     expect(res.status).toBe(200);
-    expect(res.body.timeStep).toBe(0.02);
-    expect(res.body.fromFile).not.toContain('timeStep');
+    expect(res.body.trajectory.timeStep).toBe(0.02);
+    expect(res.body.trajectory.fromFile).not.toContain('timeStep');
   });
 
   it('when metadata values are out of range, then every bad field is named', async () => {

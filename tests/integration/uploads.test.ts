@@ -89,12 +89,12 @@ describe('uploads of every size', () => {
     const bytes = bytesOfSize(size);
     const res = await script.raw('post', `/api/projects/${projectId}/trajectories`).attach('file', bytes, `size-${size}.xyz`);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.sizeBytes).toBe(size);
-    expect(res.body.sha256).toBe(sha256(bytes));
-    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.id));
+    expect(res.body.trajectory.sizeBytes).toBe(size);
+    expect(res.body.trajectory.sha256).toBe(sha256(bytes));
+    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.trajectory.id));
     expect(row!.status).not.toBe('uploading');
     expect(sha256(await ctx.store.getBytes(row!.objectKey))).toBe(sha256(bytes));
-    await script.delete(`/api/trajectories/${res.body.id}`);
+    await script.delete(`/api/trajectories/${res.body.trajectory.id}`);
   });
 
   it('when a 100 kB file arrives in small pieces over a slow connection, then it is accepted whole', async () => {
@@ -108,7 +108,7 @@ describe('uploads of every size', () => {
     const length = Buffer.byteLength(head) + bytes.length + Buffer.byteLength(tail);
     const reply = await rawUpload(pieces, { 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': String(length) });
     expect(reply.status, JSON.stringify(reply.body)).toBe(201);
-    expect(reply.body['sha256']).toBe(sha256(bytes));
+    expect((reply.body['trajectory'] as { sha256: string }).sha256).toBe(sha256(bytes));
   });
 
   it('when the file is empty, then it is refused as empty and nothing is kept', async () => {
@@ -170,13 +170,13 @@ describe('file names beyond ASCII', () => {
     const xyz = Buffer.from('2\nTime=0.0\nSi 0 0 0\nO 1 1 1\n2\nTime=0.1\nSi 0.1 0 0\nO 1 1.1 1\n');
     const res = await script.raw('post', `/api/projects/${projectId}/trajectories`).attach('file', xyz, name);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.name).toBe(name);
-    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.id));
+    expect(res.body.trajectory.name).toBe(name);
+    const [row] = await ctx.db.select().from(trajectories).where(eq(trajectories.id, res.body.trajectory.id));
     expect(row!.name).toBe(name);
     expect(row!.objectKey).toMatch(/^projects\/\d+\/trajectories\/[0-9a-f-]{36}\/[\w.+-]+$/);
-    const ready = await pollUntil(() => script.get(`/api/trajectories/${res.body.id}`), (r) => r.body.status !== 'inspecting');
-    expect(ready.body.status, JSON.stringify(ready.body)).toBe('ready');
-    const cut = await script.raw('get', `/api/trajectories/${res.body.id}/cut?from=0&to=1`).buffer(true);
+    const ready = await pollUntil(() => script.get(`/api/trajectories/${res.body.trajectory.id}`), (r) => r.body.trajectory.status !== 'inspecting');
+    expect(ready.body.trajectory.status, JSON.stringify(ready.body)).toBe('ready');
+    const cut = await script.raw('get', `/api/trajectories/${res.body.trajectory.id}/cut?from=0&to=1`).buffer(true);
     expect(cut.status).toBe(200);
     const disposition = cut.headers['content-disposition'] as string;
     expect(disposition).toContain(`filename*=UTF-8''${encodeURIComponent('α-quartz_Müller-frames-0.extxyz')}`);

@@ -3,9 +3,10 @@ import { createdAt, id, ref, timestamp } from './columns.ts';
 import { projects } from './projects.ts';
 import { trajectories } from './trajectories.ts';
 import { users } from './users.ts';
+import { RUN_STATUSES, type RunStatusName } from '../../../shared/analysis-run.ts';
 
-export const runStatuses = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
-export type RunStatus = (typeof runStatuses)[number];
+export const runStatuses = RUN_STATUSES;
+export type RunStatus = RunStatusName;
 
 /** The durable record of one analysis job; Redis only carries the work. */
 export const analysisRuns = mysqlTable('analysis_runs', {

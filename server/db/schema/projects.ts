@@ -1,9 +1,10 @@
 import { char, index, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { users } from './users.ts';
+import { PROJECT_ROLES } from '../../../shared/projects.ts';
 
-export const projectRoles = ['owner', 'editor', 'viewer'] as const;
-export type ProjectRole = (typeof projectRoles)[number];
+export const projectRoles = PROJECT_ROLES;
+export type { ProjectRole } from '../../../shared/projects.ts';
 
 export const projects = mysqlTable('projects', {
   id: id(),

@@ -2,10 +2,11 @@ import { bigint, boolean, char, double, index, int, json, mysqlEnum, mysqlTable,
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { projects } from './projects.ts';
 import { users } from './users.ts';
+import { BOUNDARIES, ENSEMBLES, TRAJECTORY_STATUSES } from '../../../shared/trajectory.ts';
 
-export const trajectoryStatuses = ['uploading', 'inspecting', 'ready', 'failed'] as const;
-export const ensembles = ['NVE', 'NVT', 'NPT', 'other'] as const;
-export const boundaries = ['periodic', 'walls', 'none'] as const;
+export const trajectoryStatuses = TRAJECTORY_STATUSES;
+export const ensembles = ENSEMBLES;
+export const boundaries = BOUNDARIES;
 
 export const trajectories = mysqlTable('trajectories', {
   id: id(),

@@ -1,5 +1,6 @@
 import { boolean, char, index, mysqlEnum, mysqlTable, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, timestamp } from './columns.ts';
+import { SITE_ROLES } from '../../../shared/accounts.ts';
 
 export const users = mysqlTable('users', {
   id: id(),
@@ -7,7 +8,7 @@ export const users = mysqlTable('users', {
   displayName: varchar('display_name', { length: 120 }).notNull(),
   /** `scrypt$N$r$p$salt$hash`: the KDF parameters travel with the hash. */
   passwordHash: varchar('password_hash', { length: 255 }).notNull(),
-  role: mysqlEnum('role', ['admin', 'member']).notNull().default('member'),
+  role: mysqlEnum('role', SITE_ROLES).notNull().default('member'),
   disabled: boolean('disabled').notNull().default(false),
   createdAt: createdAt(),
 });

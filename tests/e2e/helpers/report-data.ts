@@ -36,15 +36,15 @@ export async function seedReport(context: BrowserContext, fileName: string, byte
     multipart: { file: { name: fileName, mimeType: 'chemical/x-extxyz', buffer: bytes } }, headers: await xsrf(context),
   });
   expect(upload.status(), await upload.text()).toBe(201);
-  const trajectoryId = ((await upload.json()) as TrajectoryDto).id;
-  await expect.poll(async () => ((await (await api.get(`/api/trajectories/${trajectoryId}`)).json()) as TrajectoryDto).status, { timeout: 60_000 }).toBe('ready');
+  const trajectoryId = ((await upload.json()) as { trajectory: TrajectoryDto }).trajectory.id;
+  await expect.poll(async () => ((await (await api.get(`/api/trajectories/${trajectoryId}`)).json()) as { trajectory: TrajectoryDto }).trajectory.status, { timeout: 60_000 }).toBe('ready');
 
   const started = await api.post(`/api/trajectories/${trajectoryId}/analyses`, { data: { analyses }, headers: await xsrf(context) });
   expect(started.status(), await started.text()).toBe(202);
-  const runId = ((await started.json()) as AnalysisRunDto).id;
+  const runId = ((await started.json()) as { job: AnalysisRunDto }).job.id;
   let run: AnalysisRunDto | null = null;
   await expect.poll(async () => {
-    run = (await (await api.get(`/api/jobs/${runId}`)).json()) as AnalysisRunDto;
+    run = ((await (await api.get(`/api/jobs/${runId}`)).json()) as { job: AnalysisRunDto }).job;
     return run.status;
   }, { timeout: 180_000, intervals: [500, 1000] }).toMatch(/done|failed|cancelled/);
   expect(run!.error).toBeNull();

@@ -31,10 +31,10 @@ export async function settledTrajectory(context: BrowserContext, fileName: strin
     headers: await xsrfHeader(context),
   });
   expect(upload.status(), await upload.text()).toBe(201);
-  const created = (await upload.json()) as TrajectoryDto;
+  const created = ((await upload.json()) as { trajectory: TrajectoryDto }).trajectory;
   let trajectory = created;
   await expect.poll(async () => {
-    trajectory = (await (await api.get(`/api/trajectories/${created.id}`)).json()) as TrajectoryDto;
+    trajectory = ((await (await api.get(`/api/trajectories/${created.id}`)).json()) as { trajectory: TrajectoryDto }).trajectory;
     return trajectory.status;
   }, { message: `inspection of ${fileName}`, timeout: timeoutMs }).toMatch(/ready|failed/);
   return trajectory;
