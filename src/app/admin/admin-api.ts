@@ -1,29 +1,14 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
-
-export interface AdminUser {
-  id: number;
-  email: string;
-  displayName: string;
-  role: 'admin' | 'member';
-  disabled: boolean;
-  createdAt: string;
-}
-
-export interface SentMail {
-  id: string;
-  to: string;
-  subject: string;
-  date: string | null;
-  text: string;
-}
+import { adminUserSchema, type AdminUser, type AdminUserChanges } from '../../../shared/admin';
+import { unwrap } from '../core/api-envelope';
 
 @Injectable({ providedIn: 'root' })
 export class AdminApi {
   private readonly http = inject(HttpClient);
 
-  updateUser(id: number, changes: { role?: 'admin' | 'member'; disabled?: boolean }): Observable<AdminUser> {
-    return this.http.patch<{ user: AdminUser }>(`/api/admin/users/${id}`, changes).pipe(map((r) => r.user));
+  updateUser(id: number, changes: AdminUserChanges): Observable<AdminUser> {
+    return this.http.patch(`/api/admin/users/${id}`, changes).pipe(map(unwrap('user', adminUserSchema)));
   }
 }

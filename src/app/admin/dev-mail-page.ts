@@ -5,7 +5,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
 import { apiErrorMessage } from '../core/api-error';
-import type { SentMail } from './admin-api';
+import { sentMailSchema } from '../../../shared/admin';
+import { unwrapList } from '../core/api-envelope';
 import { mailTextSegments } from './mail-text-segments';
 
 /** What the local SMTP fake received, so e-mail flows can be clicked through without a mail server. */
@@ -45,8 +46,8 @@ import { mailTextSegments } from './mail-text-segments';
   `,
 })
 export default class DevMailPage {
-  protected readonly mail = httpResource<{ messages: SentMail[] }>(() => '/api/admin/mail');
-  protected readonly messages = computed(() => this.mail.value()?.messages ?? []);
+  protected readonly mail = httpResource(() => '/api/admin/mail', { parse: unwrapList('messages', sentMailSchema) });
+  protected readonly messages = computed(() => this.mail.value() ?? []);
   protected readonly segments = mailTextSegments;
 
   protected loadError(): string {

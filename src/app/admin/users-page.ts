@@ -7,7 +7,9 @@ import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import { AuthState } from '../core/auth-state';
-import { AdminApi, type AdminUser } from './admin-api';
+import { adminUserSchema, type AdminUser } from '../../../shared/admin';
+import { unwrapList } from '../core/api-envelope';
+import { AdminApi } from './admin-api';
 
 @Component({
   selector: 'erg-users-page',
@@ -69,8 +71,8 @@ export default class UsersPage {
   private readonly api = inject(AdminApi);
   private readonly auth = inject(AuthState);
 
-  protected readonly users = httpResource<{ users: AdminUser[] }>(() => '/api/admin/users');
-  protected readonly rows = computed(() => this.users.value()?.users ?? []);
+  protected readonly users = httpResource(() => '/api/admin/users', { parse: unwrapList('users', adminUserSchema) });
+  protected readonly rows = computed(() => this.users.value() ?? []);
   protected readonly me = computed(() => this.auth.user()?.id);
   protected readonly columns = ['name', 'role', 'status', 'created', 'actions'];
   protected readonly error = signal('');

@@ -55,7 +55,7 @@ export default class ForgotPasswordPage {
     this.busy.set(true);
     this.error.set('');
     try {
-      const { message } = await firstValueFrom(this.api.requestPasswordReset(this.form.getRawValue().email));
+      const message = await firstValueFrom(this.api.requestPasswordReset(this.form.getRawValue().email));
       this.sent.set(message);
     } catch (err) {
       this.error.set(apiErrorMessage(err));

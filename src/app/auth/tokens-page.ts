@@ -12,7 +12,9 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
-import { TokensApi, type ApiToken, type NewApiToken } from './tokens-api';
+import { apiTokenSchema, type ApiToken, type NewApiToken } from '../../../shared/accounts';
+import { unwrapList } from '../core/api-envelope';
+import { TokensApi } from './tokens-api';
 
 @Component({
   selector: 'erg-tokens-page',
@@ -54,10 +56,10 @@ import { TokensApi, type ApiToken, type NewApiToken } from './tokens-api';
         <div class="state"><mat-spinner diameter="24" aria-label="Loading tokens" /></div>
       } @else if (tokens.error()) {
         <p class="form-error" role="alert">{{ loadError() }}</p>
-      } @else if (!tokens.value()?.tokens?.length) {
+      } @else if (!tokens.value()?.length) {
         <p class="state" role="status">No tokens yet.</p>
       } @else {
-        <table mat-table [dataSource]="tokens.value()!.tokens" aria-label="Your API tokens">
+        <table mat-table [dataSource]="tokens.value()!" aria-label="Your API tokens">
           <ng-container matColumnDef="name"><th mat-header-cell *matHeaderCellDef>Name</th><td mat-cell *matCellDef="let t">{{ t.name }}</td></ng-container>
           <ng-container matColumnDef="prefix"><th mat-header-cell *matHeaderCellDef>Starts with</th><td mat-cell *matCellDef="let t"><code>{{ t.prefix }}…</code></td></ng-container>
           <ng-container matColumnDef="created"><th mat-header-cell *matHeaderCellDef>Created</th><td mat-cell *matCellDef="let t">{{ t.createdAt | date: 'medium' }}</td></ng-container>
@@ -84,7 +86,7 @@ export default class TokensPage {
   private readonly api = inject(TokensApi);
   private readonly clipboard = inject(Clipboard);
 
-  protected readonly tokens = httpResource<{ tokens: ApiToken[] }>(() => '/api/tokens');
+  protected readonly tokens = httpResource(() => '/api/tokens', { parse: unwrapList('tokens', apiTokenSchema) });
   protected readonly columns = ['name', 'prefix', 'created', 'used', 'actions'];
   private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly busy = signal(false);

@@ -1,7 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
-import type { SignedInUser } from './user';
+import { noticeSchema, signedInUserSchema, type SignedInUser } from '../../../shared/accounts';
+import { unwrap } from './api-envelope';
+
+const readUser = unwrap('user', signedInUserSchema);
 
 /** One method per /api/auth endpoint. */
 @Injectable({ providedIn: 'root' })
@@ -9,26 +12,26 @@ export class AuthApi {
   private readonly http = inject(HttpClient);
 
   me(): Observable<SignedInUser> {
-    return this.http.get<{ user: SignedInUser }>('/api/auth/me').pipe(map((r) => r.user));
+    return this.http.get('/api/auth/me').pipe(map(readUser));
   }
 
   signIn(email: string, password: string): Observable<SignedInUser> {
-    return this.http.post<{ user: SignedInUser }>('/api/auth/login', { email, password }).pipe(map((r) => r.user));
+    return this.http.post('/api/auth/login', { email, password }).pipe(map(readUser));
   }
 
   signUp(email: string, password: string, displayName: string): Observable<SignedInUser> {
-    return this.http.post<{ user: SignedInUser }>('/api/auth/register', { email, password, displayName }).pipe(map((r) => r.user));
+    return this.http.post('/api/auth/register', { email, password, displayName }).pipe(map(readUser));
   }
 
   signOut(): Observable<void> {
     return this.http.post<void>('/api/auth/logout', {});
   }
 
-  requestPasswordReset(email: string): Observable<{ message: string }> {
-    return this.http.post<{ message: string }>('/api/auth/password-reset', { email });
+  requestPasswordReset(email: string): Observable<string> {
+    return this.http.post('/api/auth/password-reset', { email }).pipe(map(unwrap('message', noticeSchema)));
   }
 
   confirmPasswordReset(token: string, password: string): Observable<SignedInUser> {
-    return this.http.post<{ user: SignedInUser }>('/api/auth/password-reset/confirm', { token, password }).pipe(map((r) => r.user));
+    return this.http.post('/api/auth/password-reset/confirm', { token, password }).pipe(map(readUser));
   }
 }

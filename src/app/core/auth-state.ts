@@ -2,7 +2,7 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { computed, inject, Injectable, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import { AuthApi } from './auth-api';
-import type { SignedInUser } from './user';
+import type { SignedInUser } from '../../../shared/accounts';
 
 /** Who is signed in, for the whole app; restored from the session cookie at start-up. */
 @Injectable({ providedIn: 'root' })

@@ -4,7 +4,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatListModule } from '@angular/material/list';
 import { apiErrorMessage } from '../core/api-error';
 import { describeAuditEntry } from './audit-wording';
-import type { AuditEntry } from './project-types';
+import { auditEntrySchema } from '../../../shared/projects';
+import { unwrapList } from '../core/api-envelope';
 
 /** Who changed membership, roles, invitations and access links (owners only). */
 @Component({
@@ -30,8 +31,8 @@ import type { AuditEntry } from './project-types';
 })
 export class AuditPanel {
   readonly projectId = input.required<number>();
-  protected readonly audit = httpResource<{ entries: AuditEntry[] }>(() => `/api/projects/${this.projectId()}/audit`);
-  protected readonly entries = computed(() => this.audit.value()?.entries ?? []);
+  protected readonly audit = httpResource(() => `/api/projects/${this.projectId()}/audit`, { parse: unwrapList('entries', auditEntrySchema) });
+  protected readonly entries = computed(() => this.audit.value() ?? []);
   protected readonly describe = describeAuditEntry;
 
   protected loadError(): string {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { describeAuditEntry } from './audit-wording';
-import type { AuditEntry } from './project-types';
+import type { AuditEntry } from '../../../shared/projects';
 
 const entry = (action: string, details: Record<string, unknown>): AuditEntry => ({ id: 1, action, details, actor: null, createdAt: '' });
 

@@ -1,4 +1,4 @@
-import type { AuditEntry } from './project-types';
+import type { AuditEntry } from '../../../shared/projects';
 
 function text(details: Record<string, unknown>, key: string): string {
   const value = details[key];

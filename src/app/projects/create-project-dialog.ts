@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
 import { PROJECT_DESCRIPTION_MAX_LENGTH, PROJECT_NAME_MAX_LENGTH } from '../../../shared/account-rules';
 import { apiErrorMessage } from '../core/api-error';
-import type { ProjectSummary } from './project-types';
+import type { ProjectSummary } from '../../../shared/projects';
 import { ProjectsApi } from './projects-api';
 
 /** Closes with the created project, or nothing when cancelled. */

@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
-import type { ProjectSummary } from './project-types';
+import type { ProjectSummary } from '../../../shared/projects';
 import { ProjectsApi } from './projects-api';
 
 /** Deleting takes the project's exact name typed in, because nothing can bring it back. */

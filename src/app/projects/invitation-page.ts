@@ -9,7 +9,9 @@ import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import { AuthState } from '../core/auth-state';
-import { ROLE_MEANING, type InvitationFacts } from './project-types';
+import { invitationFactsSchema } from '../../../shared/projects';
+import { unwrap } from '../core/api-envelope';
+import { ROLE_MEANING } from './role-meaning';
 import { ProjectsApi } from './projects-api';
 
 /** Where an invitation e-mail leads: explains the invitation, then signs in or up, then joins. */
@@ -61,8 +63,8 @@ export default class InvitationPage {
   /** The :token route parameter from the e-mailed link. */
   readonly token = input.required<string>();
   protected readonly meaning = ROLE_MEANING;
-  protected readonly invitation = httpResource<{ invitation: InvitationFacts }>(() => `/api/invitations/${encodeURIComponent(this.token())}`);
-  protected readonly facts = computed(() => this.invitation.value()?.invitation ?? null);
+  protected readonly invitation = httpResource(() => `/api/invitations/${encodeURIComponent(this.token())}`, { parse: unwrap('invitation', invitationFactsSchema) });
+  protected readonly facts = computed(() => this.invitation.value() ?? null);
   protected readonly here = computed(() => `/invitations/${encodeURIComponent(this.token())}`);
   protected readonly busy = signal(false);
   protected readonly error = signal('');
@@ -75,8 +77,8 @@ export default class InvitationPage {
     this.busy.set(true);
     this.error.set('');
     try {
-      const { projectId } = await firstValueFrom(this.api.acceptInvitation(this.token()));
-      await this.router.navigate(['/projects', projectId]);
+      const project = await firstValueFrom(this.api.acceptInvitation(this.token()));
+      await this.router.navigate(['/projects', project.id]);
     } catch (err) {
       this.error.set(apiErrorMessage(err));
     } finally {

@@ -9,7 +9,9 @@ import { MatListModule } from '@angular/material/list';
 import { MatSelectModule } from '@angular/material/select';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
-import { PROJECT_ROLES, ROLE_MEANING, type PendingInvitation, type ProjectRole } from './project-types';
+import { pendingInvitationSchema, PROJECT_ROLES, type PendingInvitation, type ProjectRole } from '../../../shared/projects';
+import { unwrapList } from '../core/api-envelope';
+import { ROLE_MEANING } from './role-meaning';
 import { ProjectsApi } from './projects-api';
 
 /** Invite by e-mail with a role, and see or withdraw invitations not yet accepted (owners). */
@@ -64,8 +66,8 @@ export class InvitationsPanel {
   readonly projectId = input.required<number>();
   protected readonly roles = PROJECT_ROLES;
   protected readonly meaning = ROLE_MEANING;
-  protected readonly invitations = httpResource<{ invitations: PendingInvitation[] }>(() => `/api/projects/${this.projectId()}/invitations`);
-  protected readonly pending = computed(() => this.invitations.value()?.invitations ?? []);
+  protected readonly invitations = httpResource(() => `/api/projects/${this.projectId()}/invitations`, { parse: unwrapList('invitations', pendingInvitationSchema) });
+  protected readonly pending = computed(() => this.invitations.value() ?? []);
   private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly busy = signal(false);
   protected readonly error = signal('');

@@ -7,7 +7,9 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
-import { PROJECT_ROLES, ROLE_MEANING, type Member, type ProjectRole } from './project-types';
+import { memberSchema, PROJECT_ROLES, type Member, type ProjectRole } from '../../../shared/projects';
+import { unwrapList } from '../core/api-envelope';
+import { ROLE_MEANING } from './role-meaning';
 import { ProjectsApi } from './projects-api';
 
 /** Who is in the project; owners change roles and remove people here. */
@@ -64,8 +66,8 @@ export class MembersPanel {
   readonly canManage = input(false);
   protected readonly roles = PROJECT_ROLES;
   protected readonly meaning = ROLE_MEANING;
-  protected readonly members = httpResource<{ members: Member[] }>(() => `/api/projects/${this.projectId()}/members`);
-  protected readonly rows = computed(() => this.members.value()?.members ?? []);
+  protected readonly members = httpResource(() => `/api/projects/${this.projectId()}/members`, { parse: unwrapList('members', memberSchema) });
+  protected readonly rows = computed(() => this.members.value() ?? []);
   protected readonly columns = computed(() => (this.canManage() ? ['name', 'role', 'joined', 'actions'] : ['name', 'role', 'joined']));
   protected readonly error = signal('');
 

@@ -8,7 +8,8 @@ import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
 import { ProjectReports } from '../reports/project-reports';
 import { ProjectTrajectories } from '../trajectories/project-trajectories';
-import type { ProjectSummary } from './project-types';
+import { projectSchema } from '../../../shared/projects';
+import { unwrap } from '../core/api-envelope';
 
 /**
  * A project's home: its header, then its trajectories (upload, table,
@@ -55,8 +56,8 @@ export default class ProjectPage {
   /** The :id route parameter. */
   readonly id = input.required<string>();
 
-  protected readonly project = httpResource<{ project: ProjectSummary }>(() => `/api/projects/${encodeURIComponent(this.id())}`);
-  protected readonly summary = computed(() => this.project.value()?.project ?? null);
+  protected readonly project = httpResource(() => `/api/projects/${encodeURIComponent(this.id())}`, { parse: unwrap('project', projectSchema) });
+  protected readonly summary = computed(() => this.project.value() ?? null);
   protected readonly canEditSettings = computed(() => {
     const role = this.summary()?.role;
     return role === 'owner' || role === 'editor';

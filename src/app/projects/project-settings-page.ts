@@ -11,7 +11,8 @@ import { DeleteProjectPanel } from './delete-project-panel';
 import { InvitationsPanel } from './invitations-panel';
 import { MembersPanel } from './members-panel';
 import { ProjectDetailsForm } from './project-details-form';
-import type { ProjectSummary } from './project-types';
+import { projectSchema } from '../../../shared/projects';
+import { unwrap } from '../core/api-envelope';
 
 @Component({
   selector: 'erg-project-settings-page',
@@ -65,8 +66,8 @@ export default class ProjectSettingsPage {
   /** The :id route parameter. */
   readonly id = input.required<string>();
 
-  protected readonly project = httpResource<{ project: ProjectSummary }>(() => `/api/projects/${encodeURIComponent(this.id())}`);
-  protected readonly summary = computed(() => this.project.value()?.project ?? null);
+  protected readonly project = httpResource(() => `/api/projects/${encodeURIComponent(this.id())}`, { parse: unwrap('project', projectSchema) });
+  protected readonly summary = computed(() => this.project.value() ?? null);
   protected readonly isOwner = computed(() => this.summary()?.role === 'owner');
 
   protected loadError(): string {

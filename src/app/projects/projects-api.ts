@@ -1,7 +1,13 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
-import type { InvitationFacts, Member, PendingInvitation, ProjectRole, ProjectSummary } from './project-types';
+import {
+  invitationFactsSchema, memberSchema, pendingInvitationSchema, projectSchema,
+  type InvitationFacts, type Member, type PendingInvitation, type ProjectChanges, type ProjectRole, type ProjectSummary,
+} from '../../../shared/projects';
+import { unwrap, unwrapList } from '../core/api-envelope';
+
+const readProject = unwrap('project', projectSchema);
 
 /** Writes to the project endpoints, one method each; pages read with httpResource. */
 @Injectable({ providedIn: 'root' })
@@ -9,11 +15,11 @@ export class ProjectsApi {
   private readonly http = inject(HttpClient);
 
   create(name: string, description: string): Observable<ProjectSummary> {
-    return this.http.post<{ project: ProjectSummary }>('/api/projects', { name, description }).pipe(map((r) => r.project));
+    return this.http.post('/api/projects', { name, description }).pipe(map(readProject));
   }
 
-  update(id: number, changes: { name?: string; description?: string }): Observable<ProjectSummary> {
-    return this.http.patch<{ project: ProjectSummary }>(`/api/projects/${id}`, changes).pipe(map((r) => r.project));
+  update(id: number, changes: ProjectChanges): Observable<ProjectSummary> {
+    return this.http.patch(`/api/projects/${id}`, changes).pipe(map(readProject));
   }
 
   delete(id: number, confirm: string): Observable<void> {
@@ -21,7 +27,7 @@ export class ProjectsApi {
   }
 
   changeRole(projectId: number, userId: number, role: ProjectRole): Observable<Member[]> {
-    return this.http.patch<{ members: Member[] }>(`/api/projects/${projectId}/members/${userId}`, { role }).pipe(map((r) => r.members));
+    return this.http.patch(`/api/projects/${projectId}/members/${userId}`, { role }).pipe(map(unwrapList('members', memberSchema)));
   }
 
   removeMember(projectId: number, userId: number): Observable<void> {
@@ -29,7 +35,7 @@ export class ProjectsApi {
   }
 
   invite(projectId: number, email: string, role: ProjectRole): Observable<PendingInvitation> {
-    return this.http.post<{ invitation: PendingInvitation }>(`/api/projects/${projectId}/invitations`, { email, role }).pipe(map((r) => r.invitation));
+    return this.http.post(`/api/projects/${projectId}/invitations`, { email, role }).pipe(map(unwrap('invitation', pendingInvitationSchema)));
   }
 
   revokeInvitation(projectId: number, invitationId: number): Observable<void> {
@@ -37,10 +43,11 @@ export class ProjectsApi {
   }
 
   describeInvitation(token: string): Observable<InvitationFacts> {
-    return this.http.get<{ invitation: InvitationFacts }>(`/api/invitations/${encodeURIComponent(token)}`).pipe(map((r) => r.invitation));
+    return this.http.get(`/api/invitations/${encodeURIComponent(token)}`).pipe(map(unwrap('invitation', invitationFactsSchema)));
   }
 
-  acceptInvitation(token: string): Observable<{ projectId: number }> {
-    return this.http.post<{ projectId: number }>(`/api/invitations/${encodeURIComponent(token)}/accept`, {});
+  /** Joins the project the invitation is for, and answers that project. */
+  acceptInvitation(token: string): Observable<ProjectSummary> {
+    return this.http.post(`/api/invitations/${encodeURIComponent(token)}/accept`, {}).pipe(map(readProject));
   }
 }

@@ -9,7 +9,8 @@ import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
 import { CreateProjectDialog } from './create-project-dialog';
-import type { ProjectSummary } from './project-types';
+import { projectSchema, type ProjectSummary } from '../../../shared/projects';
+import { unwrapList } from '../core/api-envelope';
 
 @Component({
   selector: 'erg-projects-page',
@@ -68,8 +69,8 @@ export default class ProjectsPage {
   private readonly dialog = inject(MatDialog);
   private readonly router = inject(Router);
 
-  protected readonly projects = httpResource<{ projects: ProjectSummary[] }>(() => '/api/projects');
-  protected readonly rows = computed(() => this.projects.value()?.projects ?? []);
+  protected readonly projects = httpResource(() => '/api/projects', { parse: unwrapList('projects', projectSchema) });
+  protected readonly rows = computed(() => this.projects.value() ?? []);
   protected readonly columns = ['name', 'role', 'members', 'activity'];
 
   protected loadError(): string {

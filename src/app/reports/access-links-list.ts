@@ -1,7 +1,8 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { linkState, type AccessLinkView } from './sharing-types';
+import type { AccessLinkView } from '../../../shared/sharing';
+import { linkState } from './link-state';
 
 /** Every link ever made for a report, newest first, with revoke on the ones still working. */
 @Component({

@@ -11,7 +11,8 @@ import { firstValueFrom } from 'rxjs';
 import { COMMENT_MAX_LENGTH } from '../../../shared/account-rules';
 import { apiErrorMessage } from '../core/api-error';
 import { ReportsApi } from './reports-api';
-import type { ReportComment } from './sharing-types';
+import { commentSchema } from '../../../shared/sharing';
+import { unwrapList } from '../core/api-envelope';
 
 /** Members' discussion of a report: read in order, add one. */
 @Component({
@@ -70,8 +71,8 @@ export class CommentsPanel {
   readonly reportId = input.required<number>();
 
   protected readonly maxLength = COMMENT_MAX_LENGTH;
-  protected readonly comments = httpResource<{ comments: ReportComment[] }>(() => `/api/reports/${this.reportId()}/comments`);
-  protected readonly list = computed(() => this.comments.value()?.comments ?? []);
+  protected readonly comments = httpResource(() => `/api/reports/${this.reportId()}/comments`, { parse: unwrapList('comments', commentSchema) });
+  protected readonly list = computed(() => this.comments.value() ?? []);
   protected readonly draft = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.pattern(/\S/)] });
   protected readonly posting = signal(false);
   protected readonly postError = signal<string | null>(null);

@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { apiErrorMessage } from '../core/api-error';
 import { parseLinkedReport } from './report-parse';
+import { unwrap } from '../core/api-envelope';
 import type { ReportSource } from './report-source';
 import { ReportView } from './report-view';
 
@@ -52,7 +53,7 @@ export default class LinkReportPage {
   readonly token = input.required<string>();
 
   protected readonly source = computed((): ReportSource => ({ kind: 'link', token: this.token() }));
-  protected readonly linked = httpResource(() => `/api/links/${encodeURIComponent(this.token())}`, { parse: parseLinkedReport });
+  protected readonly linked = httpResource(() => `/api/links/${encodeURIComponent(this.token())}`, { parse: unwrap('link', parseLinkedReport) });
   /** Unknown, revoked and expired links answer the same 404 on purpose. */
   protected readonly gone = computed(() => {
     const err = this.linked.error();

@@ -6,7 +6,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
-import { parseReportList } from './report-parse';
+import { reportListItemSchema } from '../../../shared/report';
+import { unwrapList } from '../core/api-envelope';
 
 const ANALYSIS_WORDS: Partial<Record<string, string>> = {
   thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂',
@@ -61,7 +62,7 @@ export class ProjectReports {
   readonly projectId = input.required<number>();
 
   protected readonly words = ANALYSIS_WORDS;
-  protected readonly reports = httpResource(() => `/api/projects/${this.projectId()}/reports`, { parse: parseReportList });
+  protected readonly reports = httpResource(() => `/api/projects/${this.projectId()}/reports`, { parse: unwrapList('reports', reportListItemSchema) });
   protected readonly rows = computed(() => this.reports.value() ?? []);
 
   protected loadError(): string {

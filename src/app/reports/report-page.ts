@@ -6,9 +6,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
-import type { ProjectSummary } from '../projects/project-types';
+import { projectSchema } from '../../../shared/projects';
 import { CommentsPanel } from './comments-panel';
 import { parseReport } from './report-parse';
+import { unwrap } from '../core/api-envelope';
 import type { ReportSource } from './report-source';
 import { ReportView } from './report-view';
 import { ShareDialog, type ShareDialogData } from './share-dialog';
@@ -48,13 +49,13 @@ export default class ReportPage {
 
   private readonly reportId = computed(() => Number(this.id()));
   protected readonly source = computed((): ReportSource => ({ kind: 'member', reportId: this.reportId() }));
-  protected readonly report = httpResource(() => (Number.isInteger(this.reportId()) ? `/api/reports/${this.reportId()}` : undefined), { parse: parseReport });
-  private readonly project = httpResource<{ project: ProjectSummary }>(() => {
+  protected readonly report = httpResource(() => (Number.isInteger(this.reportId()) ? `/api/reports/${this.reportId()}` : undefined), { parse: unwrap('report', parseReport) });
+  private readonly project = httpResource(() => {
     const r = this.report.value();
     return r ? `/api/projects/${r.projectId}` : undefined;
-  });
+  }, { parse: unwrap('project', projectSchema) });
   /** The server refuses viewers anyway; the button is hidden so they are not offered what they cannot do. */
-  protected readonly canShare = computed(() => ['owner', 'editor'].includes(this.project.value()?.project.role ?? 'viewer'));
+  protected readonly canShare = computed(() => ['owner', 'editor'].includes(this.project.value()?.role ?? 'viewer'));
 
   protected loadError(): string {
     return apiErrorMessage(this.report.error(), 'The report could not be loaded.');

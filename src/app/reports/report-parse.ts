@@ -1,4 +1,4 @@
-import type { ReportDto, ReportListItem } from '../../../shared/report';
+import type { LinkedReport, ReportDto } from '../../../shared/report';
 import { isRecord } from './record-read';
 
 const SHAPE_ERROR = 'The report came back in a shape this page cannot read.';
@@ -13,15 +13,8 @@ export function parseReport(raw: unknown): ReportDto {
   return raw as unknown as ReportDto;
 }
 
-/** GET /api/links/:token: the report and when the link stops working. */
-export function parseLinkedReport(raw: unknown): { report: ReportDto; expiresAt: string } {
+/** The `link` of GET /api/links/:token: the report and when the link stops working. */
+export function parseLinkedReport(raw: unknown): LinkedReport {
   if (!isRecord(raw) || typeof raw['expiresAt'] !== 'string') throw new Error(SHAPE_ERROR);
   return { report: parseReport(raw['report']), expiresAt: raw['expiresAt'] };
-}
-
-export function parseReportList(raw: unknown): ReportListItem[] {
-  if (!Array.isArray(raw) || !raw.every((r) => isRecord(r) && typeof r['id'] === 'number' && typeof r['title'] === 'string' && Array.isArray(r['analyses']))) {
-    throw new Error('The list of reports came back in a shape this page cannot read.');
-  }
-  return raw as ReportListItem[];
 }

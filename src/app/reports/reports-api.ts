@@ -1,7 +1,8 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
-import type { NewAccessLink, ReportComment } from './sharing-types';
+import { commentSchema, newAccessLinkSchema, type NewAccessLink, type ReportComment } from '../../../shared/sharing';
+import { unwrap } from '../core/api-envelope';
 
 /** Writes around a report, one method per endpoint; pages read with httpResource. */
 @Injectable({ providedIn: 'root' })
@@ -9,7 +10,7 @@ export class ReportsApi {
   private readonly http = inject(HttpClient);
 
   createLink(reportId: number, expiresInDays: number): Observable<NewAccessLink> {
-    return this.http.post<{ link: NewAccessLink }>(`/api/reports/${reportId}/access-link`, { expiresInDays }).pipe(map((r) => r.link));
+    return this.http.post(`/api/reports/${reportId}/access-link`, { expiresInDays }).pipe(map(unwrap('link', newAccessLinkSchema)));
   }
 
   revokeLink(reportId: number, linkId: number): Observable<void> {
@@ -17,6 +18,6 @@ export class ReportsApi {
   }
 
   addComment(reportId: number, body: string): Observable<ReportComment> {
-    return this.http.post<{ comment: ReportComment }>(`/api/reports/${reportId}/comments`, { body }).pipe(map((r) => r.comment));
+    return this.http.post(`/api/reports/${reportId}/comments`, { body }).pipe(map(unwrap('comment', commentSchema)));
   }
 }

@@ -12,10 +12,11 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { firstValueFrom } from 'rxjs';
 import { ACCESS_LINK_MAX_DAYS } from '../../../shared/account-rules';
 import { apiErrorMessage } from '../core/api-error';
-import type { Member } from '../projects/project-types';
+import { memberSchema } from '../../../shared/projects';
 import { AccessLinksList } from './access-links-list';
 import { ReportsApi } from './reports-api';
-import type { AccessLinkView, NewAccessLink } from './sharing-types';
+import { accessLinkSchema, type AccessLinkView, type NewAccessLink } from '../../../shared/sharing';
+import { unwrapList } from '../core/api-envelope';
 
 export interface ShareDialogData {
   reportId: number;
@@ -104,10 +105,10 @@ export class ShareDialog {
   private readonly clipboard = inject(Clipboard);
 
   protected readonly maxDays = ACCESS_LINK_MAX_DAYS;
-  protected readonly members = httpResource<{ members: Member[] }>(() => `/api/projects/${this.data.projectId}/members`);
-  protected readonly links = httpResource<{ links: AccessLinkView[] }>(() => `/api/reports/${this.data.reportId}/access-links`);
-  protected readonly memberList = computed(() => this.members.value()?.members ?? []);
-  protected readonly linkList = computed(() => this.links.value()?.links ?? []);
+  protected readonly members = httpResource(() => `/api/projects/${this.data.projectId}/members`, { parse: unwrapList('members', memberSchema) });
+  protected readonly links = httpResource(() => `/api/reports/${this.data.reportId}/access-links`, { parse: unwrapList('links', accessLinkSchema) });
+  protected readonly memberList = computed(() => this.members.value() ?? []);
+  protected readonly linkList = computed(() => this.links.value() ?? []);
   protected readonly days = new FormControl(7, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(ACCESS_LINK_MAX_DAYS)] });
   protected readonly creating = signal(false);
   protected readonly created = signal<NewAccessLink | null>(null);

@@ -1,11 +1,15 @@
 import { HttpClient, HttpEventType, HttpRequest, type HttpEvent } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { filter, map, type Observable } from 'rxjs';
-import type { AnalysisRunDto, StartAnalysis } from '../../../shared/analysis-run';
-import type { TrajectoryDto, TrajectoryMetadata } from '../../../shared/trajectory';
+import { analysisRunSchema, type AnalysisRunDto, type StartAnalysis } from '../../../shared/analysis-run';
+import { trajectorySchema, type TrajectoryDto, type TrajectoryMetadata } from '../../../shared/trajectory';
+import { unwrap, unwrapList } from '../core/api-envelope';
 
 /** Progress of one upload: bytes sent, then the stored trajectory. */
 export type UploadEvent = { kind: 'progress'; loaded: number; total: number } | { kind: 'done'; trajectory: TrajectoryDto };
+
+const readTrajectory = unwrap('trajectory', trajectorySchema);
+const readJob = unwrap('job', analysisRunSchema);
 
 /** The trajectory, analysis and job endpoints, one method each. */
 @Injectable({ providedIn: 'root' })
@@ -13,27 +17,27 @@ export class TrajectoriesApi {
   private readonly http = inject(HttpClient);
 
   list(projectId: number): Observable<TrajectoryDto[]> {
-    return this.http.get<TrajectoryDto[]>(`/api/projects/${projectId}/trajectories`);
+    return this.http.get(`/api/projects/${projectId}/trajectories`).pipe(map(unwrapList('trajectories', trajectorySchema)));
   }
 
   get(id: number): Observable<TrajectoryDto> {
-    return this.http.get<TrajectoryDto>(`/api/trajectories/${id}`);
+    return this.http.get(`/api/trajectories/${id}`).pipe(map(readTrajectory));
   }
 
   upload(projectId: number, file: File): Observable<UploadEvent> {
     const body = new FormData();
     body.append('file', file, file.name);
     const request = new HttpRequest('POST', `/api/projects/${projectId}/trajectories`, body, { reportProgress: true });
-    return this.http.request<TrajectoryDto>(request).pipe(
-      filter((e: HttpEvent<TrajectoryDto>) => e.type === HttpEventType.UploadProgress || e.type === HttpEventType.Response),
+    return this.http.request<unknown>(request).pipe(
+      filter((e: HttpEvent<unknown>) => e.type === HttpEventType.UploadProgress || e.type === HttpEventType.Response),
       map((e): UploadEvent => e.type === HttpEventType.UploadProgress
         ? { kind: 'progress', loaded: e.loaded, total: e.total ?? file.size }
-        : { kind: 'done', trajectory: (e as { body: TrajectoryDto }).body }),
+        : { kind: 'done', trajectory: readTrajectory((e as { body: unknown }).body) }),
     );
   }
 
   update(id: number, metadata: TrajectoryMetadata): Observable<TrajectoryDto> {
-    return this.http.patch<TrajectoryDto>(`/api/trajectories/${id}`, metadata);
+    return this.http.patch(`/api/trajectories/${id}`, metadata).pipe(map(readTrajectory));
   }
 
   delete(id: number): Observable<void> {
@@ -41,19 +45,19 @@ export class TrajectoriesApi {
   }
 
   startAnalysis(id: number, body: StartAnalysis): Observable<AnalysisRunDto> {
-    return this.http.post<AnalysisRunDto>(`/api/trajectories/${id}/analyses`, body);
+    return this.http.post(`/api/trajectories/${id}/analyses`, body).pipe(map(readJob));
   }
 
   runs(trajectoryId: number): Observable<AnalysisRunDto[]> {
-    return this.http.get<AnalysisRunDto[]>(`/api/trajectories/${trajectoryId}/analyses`);
+    return this.http.get(`/api/trajectories/${trajectoryId}/analyses`).pipe(map(unwrapList('jobs', analysisRunSchema)));
   }
 
   job(id: number): Observable<AnalysisRunDto> {
-    return this.http.get<AnalysisRunDto>(`/api/jobs/${id}`);
+    return this.http.get(`/api/jobs/${id}`).pipe(map(readJob));
   }
 
   cancelJob(id: number): Observable<AnalysisRunDto> {
-    return this.http.post<AnalysisRunDto>(`/api/jobs/${id}/cancel`, {});
+    return this.http.post(`/api/jobs/${id}/cancel`, {}).pipe(map(readJob));
   }
 
   cutUrl(id: number, from: number, to: number, stride: number): string {

@@ -1,7 +1,8 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
-import type { TrajectoryDto } from '../../../shared/trajectory';
+import { trajectorySchema, type TrajectoryDto } from '../../../shared/trajectory';
+import { unwrap } from '../core/api-envelope';
 import type { FrameRange } from './chunk-plan';
 import { decodeFramesPayload, type FramesPayload } from './frames-payload-decoder';
 
@@ -11,7 +12,7 @@ export class ViewerApi {
   private readonly http = inject(HttpClient);
 
   trajectory(id: string): Observable<TrajectoryDto> {
-    return this.http.get<TrajectoryDto>(`/api/trajectories/${encodeURIComponent(id)}`);
+    return this.http.get(`/api/trajectories/${encodeURIComponent(id)}`).pipe(map(unwrap('trajectory', trajectorySchema)));
   }
 
   frames(id: string, range: FrameRange): Observable<FramesPayload> {
