@@ -11,6 +11,7 @@ import { commentRoutes } from './comments.ts';
 import { healthRoutes } from './health.ts';
 import { invitationRoutes } from './invitations.ts';
 import { memberRoutes } from './members.ts';
+import { openApiRoutes } from './openapi.ts';
 import { projectRoutes } from './projects.ts';
 import { reportRoutes } from './reports.ts';
 import type { RouteDef } from './route-table.ts';
@@ -20,7 +21,7 @@ import { trajectoryRoutes } from './trajectories.ts';
 
 /** Every API route, each with its access rule; the authorization matrix test reads this. */
 export function routeTable(ctx: AppContext): RouteDef[] {
-  return [
+  const table: RouteDef[] = [
     ...healthRoutes(ctx),
     ...authRoutes(ctx),
     ...tokenRoutes(ctx),
@@ -35,6 +36,8 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...commentRoutes(ctx),
     ...adminRoutes(ctx),
   ];
+  table.push(...openApiRoutes(() => table));
+  return table;
 }
 
 /** Mounts the route table under /api, with the access rule checked before each handler. */
