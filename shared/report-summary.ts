@@ -1,7 +1,8 @@
 /**
  * Headline numbers of a report, one typed block per analysis. The engine
  * writes them, the API stores and serves them, the report page reads them:
- * every quantity carries its unit in its field name.
+ * every quantity carries its unit in its field name. Fields marked optional
+ * were added in engine 0.2 and are absent from reports made before it.
  */
 
 /** A diffusion coefficient in the three units the product reports. */
@@ -69,9 +70,26 @@ export interface EntropyValue {
   jPerMolK: number;
 }
 
+/** How a spectrum from finite differences of positions was corrected (SCIENCE item 24). */
+export interface DifferenceCorrectionSummary {
+  /** The spectrum was divided by [sin(ωΔt)/(ωΔt)]² up to this wavenumber. */
+  correctedUpToCm1: number;
+  /** Share of the raw spectrum above it, where nothing can be restored. */
+  uncorrectableFraction: number;
+  /** Corrected over raw kinetic energy. */
+  factor: number;
+}
+
 export interface VdosSummary {
   /** Temperature the harmonic weights were evaluated at, K. */
   temperatureK: number;
+  /** Kinetic temperature of the (corrected) spectrum with the stated degrees of freedom, K. */
+  kineticTemperatureK?: number;
+  velocitySource?: 'stored-velocities' | 'central-differences';
+  /** Null with stored velocities. */
+  differenceCorrection?: DifferenceCorrectionSummary | null;
+  /** Things a reader must not miss. */
+  warnings?: string[];
   /** Largest peaks of the "all" group, by height. */
   peaks: VdosPeakSummary[];
   cv: { quantum: HeatCapacityValue; classical: HeatCapacityValue };
@@ -99,6 +117,11 @@ export interface MeanWithError {
 
 export interface ThermoSummary {
   temperatureK: MeanWithError;
+  velocitySource?: 'stored-velocities' | 'central-differences';
+  /** Factor finite-difference kinetic energies were scaled by (1 with stored velocities). */
+  differenceCorrection?: number;
+  /** Things a reader must not miss. */
+  warnings?: string[];
   /** Null without a periodic cell. */
   densityGPerCm3: MeanWithError | null;
   degreesOfFreedom: number;

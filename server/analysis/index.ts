@@ -6,6 +6,7 @@
 import { ANALYSIS_KEYS, analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import type { ReportSummary } from '../../shared/report-summary.ts';
 import { SIMULATION_CAUTION } from '../../shared/simulation-caution.ts';
+import { WAVENUMBER_PER_THZ } from './constants.ts';
 import { energySection } from './energy-report.ts';
 import { lindemann } from './lindemann.ts';
 import { msd } from './msd.ts';
@@ -19,7 +20,7 @@ import { vdos } from './vdos.ts';
 
 export { ANALYSIS_KEYS, type AnalysisKey };
 
-export const ENGINE_VERSION = '0.1.0';
+export const ENGINE_VERSION = '0.2.0';
 
 export interface Curve {
   columns: string[];
@@ -52,9 +53,12 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
     const progress = (f: number): void => onProgress?.((index + Math.min(1, f)) / wanted.length);
     switch (key) {
       case 'thermo': {
-        const r = thermo(traj, { degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, masses }, progress);
+        const r = thermo(traj, { degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, masses, removeComDrift: params.removeComDrift }, progress);
         run.summary.thermo = {
           temperatureK: { mean: r.temperature.mean, stdError: r.temperature.stdError },
+          velocitySource: r.velocitySource,
+          differenceCorrection: r.differenceCorrection,
+          warnings: r.warnings,
           densityGPerCm3: r.density ? { mean: r.density.mean, stdError: r.density.stdError } : null,
           degreesOfFreedom: r.degreesOfFreedom,
           equilibrated: r.equilibration.equilibrated,
@@ -66,7 +70,7 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         ];
         if (r.densityGPerCm3) cols.push(['density', 'g/cm³', r.densityGPerCm3]);
         run.curves.thermo = curve(cols);
-        run.methods.thermo = { degreesOfFreedom: r.degreesOfFreedom, velocitySource: r.velocitySource, blockingPlateauLevel: r.temperature.plateauLevel, equilibration: r.equilibration };
+        run.methods.thermo = { degreesOfFreedom: r.degreesOfFreedom, velocitySource: r.velocitySource, differenceCorrection: r.differenceCorrection, blockingPlateauLevel: r.temperature.plateauLevel, equilibration: r.equilibration };
         break;
       }
       case 'msd': {
@@ -108,8 +112,13 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         const { quantum, classical } = r.thermo;
         const cv = (h: typeof quantum) => ({ perAtomKB: h.cvPerAtomKB, jPerMolK: h.cvJPerMolK, jPerGK: h.cvJPerGK });
         const entropy = (h: typeof quantum) => ({ perAtomKB: h.entropyPerAtomKB, jPerMolK: h.entropyJPerMolK });
+        const dc = r.differenceCorrection;
         run.summary.vdos = {
           temperatureK: r.thermo.temperatureK,
+          kineticTemperatureK: all.kineticTemperatureK,
+          velocitySource: r.velocitySource,
+          differenceCorrection: dc ? { correctedUpToCm1: dc.correctedUpToThz * WAVENUMBER_PER_THZ, uncorrectableFraction: dc.uncorrectableFraction, factor: dc.correctedOverRaw } : null,
+          warnings: r.warnings,
           peaks: all.peaks.slice(0, 5).map((p) => ({ thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1 })),
           cv: { quantum: cv(quantum), classical: cv(classical) },
           entropy: { quantum: entropy(quantum), classical: entropy(classical) },
@@ -124,7 +133,7 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         ]);
         run.methods.vdos = {
           method: r.method, window: r.window, fftLength: r.fftLength, segmentFrames: r.segmentFrames, segments: r.segments, binWidthThz: r.binWidthThz,
-          degreesOfFreedom: all.degreesOfFreedom, velocitySource: r.velocitySource, thermoNote: r.thermoNote,
+          degreesOfFreedom: all.degreesOfFreedom, velocitySource: r.velocitySource, differenceCorrection: dc, thermoNote: r.thermoNote,
         };
         break;
       }

@@ -1,11 +1,16 @@
 /**
  * Kinetic energy and temperature per frame by equipartition,
  * T = 2·KE/(N_dof·k_B), and density per frame, with block-averaged means.
- * N_dof defaults to 3N − 3 (total momentum conserved, as in periodic MD);
- * pass constraints or an explicit count for rigid molecules or thermostats
- * that do not conserve momentum. Without stored velocities, central
- * differences of minimum-image positions are used for interior frames and
- * one-sided differences at the two ends.
+ * N_dof defaults to 3N − 3 (centre-of-mass motion removed, as in periodic
+ * MD); pass constraints or an explicit count for rigid molecules or frozen
+ * rotations. With COM drift removal on, each frame's COM kinetic energy is
+ * taken out before dividing by N_dof.
+ *
+ * Without stored velocities, velocities are central differences of
+ * positions on the interior frames, which read each mode's kinetic energy
+ * low by [sin(ωΔt)/(ωΔt)]² (SCIENCE item 24). The series is scaled by the
+ * ratio of the corrected to the raw velocity spectrum of the same run (see
+ * vdos.ts), so its mean is the kinetic temperature of the corrected spectrum.
  *
  * Equilibration flag: the means of the first and last thirds (each with its
  * own blocking error) must agree within EQUILIBRATION_SIGMAS combined errors.
@@ -16,6 +21,7 @@ import { cellFramesOf, minimumImage } from './cell-geometry.ts';
 import { BOLTZMANN_ENGINE, GRAM_PER_AMU, CM3_PER_A3, JOULE_PER_ENGINE_ENERGY, ELEMENTARY_CHARGE_C } from './constants.ts';
 import { frameIntervalPs } from './frame-timing.ts';
 import type { Trajectory } from './trajectory.ts';
+import { vdos } from './vdos.ts';
 
 export const EQUILIBRATION_SIGMAS = 3;
 
@@ -24,8 +30,8 @@ export interface ThermoOptions {
   degreesOfFreedom?: number;
   /** Holonomic constraints (e.g. 3 per rigid water). */
   constraints?: number;
-  /** Whether total momentum is conserved/removed (subtracts 3; default true). */
-  momentumConserved?: boolean;
+  /** Remove each frame's centre-of-mass motion, which subtracts 3 degrees of freedom (default true). */
+  removeComDrift?: boolean;
   masses?: Readonly<Record<string, number>>;
 }
 
@@ -41,7 +47,11 @@ export interface ThermoResult {
   units: { time: 'ps'; kineticEnergy: 'eV'; temperature: 'K'; density: 'g/cm³'; numberDensity: 'atoms/Å³' };
   timesPs: Float64Array;
   degreesOfFreedom: number;
-  velocitySource: 'stored-velocities' | 'finite-differences';
+  velocitySource: 'stored-velocities' | 'central-differences';
+  /** Factor the finite-difference kinetic energy was scaled by (1 with stored velocities). */
+  differenceCorrection: number;
+  /** Things a reader must not miss (coarse sampling). */
+  warnings: string[];
   kineticEnergyEV: Float64Array;
   temperatureK: Float64Array;
   /** Null without a periodic cell. */
@@ -54,29 +64,44 @@ export interface ThermoResult {
 
 export function degreesOfFreedomFor(nAtoms: number, options: ThermoOptions): number {
   if (options.degreesOfFreedom !== undefined) return options.degreesOfFreedom;
-  return 3 * nAtoms - (options.constraints ?? 0) - (options.momentumConserved ?? true ? 3 : 0);
+  return 3 * nAtoms - (options.constraints ?? 0) - (options.removeComDrift ?? true ? 3 : 0);
 }
 
 export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress?: (fraction: number) => void): ThermoResult {
-  const N = traj.nAtoms, T = traj.nFrames;
+  const N = traj.nAtoms;
   const masses = Float64Array.from(traj.species, (s) => massOf(s, options.masses));
   const dof = degreesOfFreedomFor(N, options);
   if (!(dof > 0)) throw new Error('Degrees of freedom must be positive.');
-  const ke = kineticEnergies(traj, masses, onProgress);
+  const removeCom = options.removeComDrift ?? true;
+  const { frames, kinetic } = frameKineticEnergies(traj, masses, removeCom, onProgress);
+  const warnings: string[] = [];
+  let correction = 1;
+  if (!traj.velocities) {
+    if (traj.nFrames >= 4) {
+      const spectral = vdos(traj, { masses: options.masses, removeComDrift: removeCom, degreesOfFreedom: dof });
+      correction = spectral.differenceCorrection?.correctedOverRaw ?? 1;
+      warnings.push(...spectral.warnings);
+    } else {
+      warnings.push('Too few frames to correct the finite-difference velocities: the temperature reads low.');
+    }
+  }
   const eV = JOULE_PER_ENGINE_ENERGY / ELEMENTARY_CHARGE_C;
+  const ke = kinetic.map((k) => k * correction);
   const temperatureK = ke.map((k) => (2 * k) / (dof * BOLTZMANN_ENGINE));
-  const geom = cellFramesOf(traj) ?? (traj.cells && traj.cells.length === 9 * T ? cellFramesOf({ ...traj, boundary: 'periodic' }) : null);
+  const geom = cellFramesOf(traj) ?? (traj.cells && traj.cells.length === 9 * traj.nFrames ? cellFramesOf({ ...traj, boundary: 'periodic' }) : null);
   let totalMass = 0;
   for (let i = 0; i < N; i++) totalMass += masses[i];
-  const densityGPerCm3 = geom ? geom.volumes.map((v) => (totalMass * GRAM_PER_AMU) / (v * CM3_PER_A3)) : null;
-  const numberDensityPerA3 = geom ? geom.volumes.map((v) => N / v) : null;
+  const densityGPerCm3 = geom ? Float64Array.from(frames, (f) => (totalMass * GRAM_PER_AMU) / (geom.volumes[f] * CM3_PER_A3)) : null;
+  const numberDensityPerA3 = geom ? Float64Array.from(frames, (f) => N / geom.volumes[f]) : null;
   const tCheck = equilibrationCheck(temperatureK);
   const dCheck = densityGPerCm3 ? equilibrationCheck(densityGPerCm3) : null;
   return {
     units: { time: 'ps', kineticEnergy: 'eV', temperature: 'K', density: 'g/cm³', numberDensity: 'atoms/Å³' },
-    timesPs: traj.times,
+    timesPs: Float64Array.from(frames, (f) => traj.times[f]),
     degreesOfFreedom: dof,
-    velocitySource: traj.velocities ? 'stored-velocities' : 'finite-differences',
+    velocitySource: traj.velocities ? 'stored-velocities' : 'central-differences',
+    differenceCorrection: correction,
+    warnings,
     kineticEnergyEV: ke.map((k) => k * eV),
     temperatureK,
     densityGPerCm3,
@@ -87,44 +112,51 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
   };
 }
 
-/** Kinetic energy per frame in u·Å²/ps². */
-export function kineticEnergies(traj: Trajectory, masses: Float64Array, onProgress?: (fraction: number) => void): Float64Array {
+/**
+ * Kinetic energy per frame in u·Å²/ps², from stored velocities (every frame)
+ * or central differences of minimum-image positions (interior frames), with
+ * the centre-of-mass kinetic energy ½M·V² of each frame taken out if asked.
+ */
+export function frameKineticEnergies(traj: Trajectory, masses: Float64Array, removeCom: boolean, onProgress?: (fraction: number) => void): { frames: Int32Array; kinetic: Float64Array } {
   const N = traj.nAtoms, T = traj.nFrames;
-  const out = new Float64Array(T);
   const v = traj.velocities;
-  if (v) {
-    for (let f = 0; f < T; f++) {
-      let sum = 0;
-      const base = 3 * N * f;
-      for (let i = 0; i < N; i++) {
-        const p = base + 3 * i;
-        sum += masses[i] * (v[p] * v[p] + v[p + 1] * v[p + 1] + v[p + 2] * v[p + 2]);
-      }
-      out[f] = 0.5 * sum;
-      if ((f & 255) === 0) onProgress?.(f / T);
-    }
-    return out;
-  }
-  if (T < 2) throw new Error('Temperature without stored velocities needs at least two frames.');
-  const dt = frameIntervalPs(traj);
-  const geom = cellFramesOf(traj);
+  if (!v && T < 3) throw new Error('Temperature without stored velocities needs at least three frames.');
+  const frames = v ? Int32Array.from({ length: T }, (_, f) => f) : Int32Array.from({ length: T - 2 }, (_, f) => f + 1);
+  const dt = v ? 0 : frameIntervalPs(traj);
+  const geom = v ? null : cellFramesOf(traj);
   const x = traj.positions;
-  const d = new Float64Array(3);
-  for (let f = 0; f < T; f++) {
-    const a = Math.max(0, f - 1), b = Math.min(T - 1, f + 1);
-    const span = (b - a) * dt;
-    let sum = 0;
+  const step = new Float64Array(3), vel = new Float64Array(3);
+  let totalMass = 0;
+  for (let i = 0; i < N; i++) totalMass += masses[i];
+  const kinetic = new Float64Array(frames.length);
+  frames.forEach((f, k) => {
+    let sum = 0, px = 0, py = 0, pz = 0;
     for (let i = 0; i < N; i++) {
-      const pa = 3 * (N * a + i), pb = 3 * (N * b + i);
-      d[0] = x[pb] - x[pa];
-      d[1] = x[pb + 1] - x[pa + 1];
-      d[2] = x[pb + 2] - x[pa + 2];
-      if (geom) minimumImage(geom, f, d);
-      sum += (masses[i] * (d[0] * d[0] + d[1] * d[1] + d[2] * d[2])) / (span * span);
+      if (v) {
+        const p = 3 * (N * f + i);
+        vel[0] = v[p], vel[1] = v[p + 1], vel[2] = v[p + 2];
+      } else {
+        vel.fill(0);
+        for (const [a, b] of [[f - 1, f], [f, f + 1]]) {
+          const pa = 3 * (N * a + i), pb = 3 * (N * b + i);
+          step[0] = x[pb] - x[pa], step[1] = x[pb + 1] - x[pa + 1], step[2] = x[pb + 2] - x[pa + 2];
+          if (geom) minimumImage(geom, b, step);
+          for (let c = 0; c < 3; c++) vel[c] += step[c] / (2 * dt);
+        }
+      }
+      const m = masses[i];
+      sum += m * (vel[0] * vel[0] + vel[1] * vel[1] + vel[2] * vel[2]);
+      px += m * vel[0], py += m * vel[1], pz += m * vel[2];
     }
-    out[f] = 0.5 * sum;
-  }
-  return out;
+    kinetic[k] = 0.5 * sum - (removeCom ? (0.5 * (px * px + py * py + pz * pz)) / totalMass : 0);
+    if ((k & 255) === 0) onProgress?.(k / frames.length);
+  });
+  return { frames, kinetic };
+}
+
+/** Kinetic energy per frame in u·Å²/ps² (COM motion included); see frameKineticEnergies. */
+export function kineticEnergies(traj: Trajectory, masses: Float64Array, onProgress?: (fraction: number) => void): Float64Array {
+  return frameKineticEnergies(traj, masses, false, onProgress).kinetic;
 }
 
 function equilibrationCheck(series: Float64Array): EquilibrationCheck {

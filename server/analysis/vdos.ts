@@ -12,6 +12,12 @@
  * raw spectrum integrates to a window-weighted ⟨v²⟩; it is rescaled to the
  * plain time average, which makes ∫S = N_dof·T_kin/T exactly (discrete
  * Parseval). T defaults to that kinetic temperature.
+ *
+ * Without stored velocities the velocities are central differences of
+ * positions, which damp a mode's power by [sin(ωΔt)/(ωΔt)]² (SCIENCE item 24).
+ * The spectrum is divided by that factor up to ωΔt = 3π/4, and the kinetic
+ * temperature is taken from the corrected spectrum; weight left above that
+ * (modes near ωΔt = π) cannot be restored and is reported as a warning.
  */
 import { AtomSeriesReader } from './atom-series.ts';
 import { componentIndices, selectAtoms, type Components } from './atom-groups.ts';
@@ -21,7 +27,10 @@ import { harmonicThermo, type HarmonicThermo } from './harmonic-thermo.ts';
 import { findPeaks } from './peaks.ts';
 import type { WindowFunction } from './spectral-windows.ts';
 import type { Trajectory } from './trajectory.ts';
-import { planSegments, VelocityPowerSpectrum } from './velocity-spectrum.ts';
+import { correctCentralDifferences, planSegments, VelocityPowerSpectrum, type DifferenceCorrection } from './velocity-spectrum.ts';
+
+/** Share of the raw spectrum beyond the correctable range above which a report warns. */
+export const UNCORRECTABLE_WARNING_FRACTION = 0.01;
 
 export interface VdosOptions {
   species?: readonly string[];
@@ -78,6 +87,10 @@ export interface VdosResult {
   segments: number;
   method: 'power spectrum of windowed velocities';
   velocitySource: 'stored-velocities' | 'central-differences';
+  /** How the central-difference spectrum of the selection was corrected; null with stored velocities. */
+  differenceCorrection: DifferenceCorrection | null;
+  /** Things a reader must not miss (coarse sampling). */
+  warnings: string[];
   groups: VdosGroupResult[];
   /** Harmonic thermodynamics of the "all" group. */
   thermo: HarmonicThermo;
@@ -125,11 +138,14 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
   });
 
   const freqTHz = spectrum.frequencies();
+  const corrections = useStored ? null : power.map((p) => correctCentralDifferences(freqTHz, p, dt));
   const d = dims.length;
   const groups = sel.groups.map((g, gi): VdosGroupResult => {
+    // Σm⟨v²⟩ of the true velocities: the raw time average times what the correction restored.
+    const kinetic = plain[gi] * (corrections?.[gi].correctedOverRaw ?? 1);
     const removesCom = removeCom && g.atoms.length === traj.nAtoms;
     const dof = g.label === 'all' && options.degreesOfFreedom !== undefined ? options.degreesOfFreedom : d * g.atoms.length - (removesCom ? d : 0);
-    const kTkin = plain[gi] / dof;
+    const kTkin = kinetic / dof;
     const kT = options.normalisationTemperatureK !== undefined ? BOLTZMANN_ENGINE * options.normalisationTemperatureK : kTkin;
     const scale = windowed[gi] > 0 ? (2 / kT) * (plain[gi] / windowed[gi]) : 0;
     const dos = power[gi].map((v) => v * scale);
@@ -167,9 +183,25 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
     segments: spectrum.plan.starts.length,
     method: 'power spectrum of windowed velocities',
     velocitySource: useStored ? 'stored-velocities' : 'central-differences',
+    differenceCorrection: corrections?.[0] ?? null,
+    warnings: corrections ? coarseSamplingWarnings(corrections[0], dt) : [],
     groups,
     thermo: harmonicThermo(freqTHz, all.dosPerThz, options.thermoTemperatureK ?? all.kineticTemperatureK, all.nAtoms, totalMass),
     thermoNote:
       'Harmonic weights treat every mode as an oscillator; for liquids the ν→0 (diffusive) part makes the entropy approximate.',
   };
+}
+
+function coarseSamplingWarnings(c: DifferenceCorrection, dtPs: number): string[] {
+  if (c.uncorrectableFraction <= UNCORRECTABLE_WARNING_FRACTION) return [];
+  const limitCm1 = c.correctedUpToThz * WAVENUMBER_PER_THZ;
+  const mode = c.strongestUncorrectableThz ?? c.correctedUpToThz;
+  // ωΔt ≤ π/2 keeps the gain above 2/π, comfortably correctable.
+  const neededFs = 1e3 / (4 * mode);
+  return [
+    `Frames are ${(dtPs * 1e3).toPrecision(3)} fs apart and carry no velocities: ${(100 * c.uncorrectableFraction).toPrecision(2)} % of the velocity spectrum ` +
+    `lies above ${limitCm1.toPrecision(4)} cm⁻¹ (ωΔt > 3π/4), where finite differences of positions cannot be corrected, so temperature, ` +
+    `heat capacity and peaks there read low. Store velocities, or frames at most ${neededFs.toPrecision(2)} fs apart ` +
+    `(for the mode near ${(mode * WAVENUMBER_PER_THZ).toPrecision(4)} cm⁻¹).`,
+  ];
 }

@@ -94,3 +94,43 @@ export function centralDifferenceGain(frequency: number, dt: number): number {
   const x = 2 * Math.PI * frequency * dt;
   return x === 0 ? 1 : Math.sin(x) / x;
 }
+
+/**
+ * Highest ωΔt at which a central-difference spectrum is divided by its gain²:
+ * at 3π/4 the gain is 0.30 (×11 in power); towards π it vanishes and nothing
+ * can be restored (SCIENCE item 24).
+ */
+export const CORRECTABLE_OMEGA_DT = 0.75 * Math.PI;
+
+export interface DifferenceCorrection {
+  /** Frequencies up to this were divided by the gain², THz. */
+  correctedUpToThz: number;
+  /** ∫ corrected spectrum / ∫ raw spectrum (one-sided). */
+  correctedOverRaw: number;
+  /** Share of the raw spectrum's weight above the correctable range. */
+  uncorrectableFraction: number;
+  /** Where the raw spectrum is highest above the correctable range, THz (null if it is empty there). */
+  strongestUncorrectableThz: number | null;
+}
+
+/** Divides a one-sided central-difference power spectrum by sinc²(ωΔt) where that can be done, in place. */
+export function correctCentralDifferences(freq: ArrayLike<number>, power: Float64Array, dt: number): DifferenceCorrection {
+  const limit = CORRECTABLE_OMEGA_DT / (2 * Math.PI * dt);
+  let raw = 0, corrected = 0, beyond = 0, strongest = -1;
+  for (let k = 0; k < power.length; k++) {
+    const w = k === 0 || k === power.length - 1 ? 0.5 : 1;
+    raw += w * power[k];
+    if (freq[k] <= limit) power[k] /= centralDifferenceGain(freq[k], dt) ** 2;
+    else {
+      beyond += w * power[k];
+      if (strongest < 0 || power[k] > power[strongest]) strongest = k;
+    }
+    corrected += w * power[k];
+  }
+  return {
+    correctedUpToThz: limit,
+    correctedOverRaw: raw > 0 ? corrected / raw : 1,
+    uncorrectableFraction: raw > 0 ? beyond / raw : 0,
+    strongestUncorrectableThz: strongest >= 0 && power[strongest] > 0 ? freq[strongest] : null,
+  };
+}

@@ -37,6 +37,12 @@ export interface HarmonicDiatomicsOptions {
   rotate?: boolean;
   /** Give each molecule a thermal centre-of-mass velocity (default true); false leaves only the stretch. */
   translate?: boolean;
+  /**
+   * Give every stretch exactly k_BT of energy with a random phase instead of
+   * canonical amplitudes, so each molecule's mean stretch kinetic energy is
+   * k_BT/2 exactly rather than on average over many molecules.
+   */
+  equipartitionEnergy?: boolean;
 }
 
 export interface HarmonicDiatomicsRun {
@@ -77,6 +83,12 @@ export function simulateHarmonicDiatomics(o: HarmonicDiatomicsOptions): Harmonic
     }
     xi0[m] = Math.sqrt(kT / k) * rng.normal();
     vi0[m] = Math.sqrt(kT / mu) * rng.normal();
+    if (o.equipartitionEnergy) {
+      const phase = Math.atan2(-vi0[m] / omega, xi0[m]);
+      const amplitude = Math.sqrt((2 * kT) / k);
+      xi0[m] = amplitude * Math.cos(phase);
+      vi0[m] = -amplitude * omega * Math.sin(phase);
+    }
   }
   const place = (m: number, t: number, xi: number, vxi: number, out: Float64Array, outV: Float64Array): void => {
     const r = o.bondLengthA + xi;

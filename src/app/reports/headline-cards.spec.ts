@@ -47,4 +47,11 @@ describe('headline cards', () => {
     expect(card.detail).toContain('321 degrees of freedom');
     expect(card.detail).toContain('1.41230 ± 0.00040 g/cm³');
   });
+
+  it('when velocities came from positions, then the temperature card names the correction and carries the coarse-sampling warning', () => {
+    const coarse: ReportSummary = { thermo: { ...liquid.thermo!, velocitySource: 'central-differences', differenceCorrection: 1.974, warnings: ['Frames are 5.00 fs apart and carry no velocities …'] } };
+    const [card] = headlineCards(coarse, 'a2PerPs');
+    expect(card!.detail).toContain('velocities from positions, finite-difference damping corrected (×1.97)');
+    expect(card!.warning).toBe('Frames are 5.00 fs apart and carry no velocities …');
+  });
 });

@@ -42,12 +42,22 @@ function vacfCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): H
   };
 }
 
+/** Several warnings as one line; null when there are none. */
+function joined(warnings: readonly (string | null | undefined)[]): string | null {
+  const present = warnings.filter((w): w is string => !!w);
+  return present.length ? present.join(' ') : null;
+}
+
+function fromPositions(source: string | undefined, factor: number | undefined): string {
+  return source === 'central-differences' && factor !== undefined ? `; velocities from positions, finite-difference damping corrected (×${formatNumber(factor, 3)})` : '';
+}
+
 function thermoCard(s: NonNullable<ReportSummary['thermo']>): HeadlineCard {
   const density = s.densityGPerCm3 ? ` · density ${formatWithError(s.densityGPerCm3.mean, s.densityGPerCm3.stdError)} g/cm³` : '';
   return {
     id: 'thermo', title: 'Mean temperature', value: formatWithError(s.temperatureK.mean, s.temperatureK.stdError), unit: 'K',
-    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${density}`,
-    warning: s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.',
+    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${density}`,
+    warning: joined([...(s.warnings ?? []), s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.']),
   };
 }
 
@@ -58,7 +68,7 @@ function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
     {
       id: 'vdos-peaks', title: 'VDOS peaks', value: peaks.length ? peaks.map((p) => formatNumber(p.cm1, 4)).join(', ') : '—', unit: peaks.length ? 'cm⁻¹' : '',
       detail: peaks.length ? `${peaks.map((p) => formatNumber(p.thz, 3)).join(', ')} THz · ${peaks.map((p) => formatNumber(p.meV, 3)).join(', ')} meV` : 'No peak stands out of the spectrum',
-      warning: null,
+      warning: joined(s.warnings ?? []),
     },
     {
       id: 'cv', title: `Heat capacity Cv at ${T} K`, value: formatNumber(s.cv.quantum.perAtomKB, 4), unit: 'k_B per atom',

@@ -54,4 +54,29 @@ describe('methods text', () => {
     expect(text.startsWith('Input. Trajectory argon-liquid.extxyz')).toBe(true);
     expect(text.endsWith('\n\nA simulation is a model.')).toBe(true);
   });
+
+  it('when velocities came from positions, then the temperature and VDOS paragraphs state the finite-difference correction and repeat the warning', () => {
+    const base = report();
+    const warning = 'Frames are 5.00 fs apart and carry no velocities: 6.3 % of the velocity spectrum lies above 2502 cm⁻¹.';
+    const paragraphs = methodsParagraphs(report({
+      analyses: ['thermo', 'vdos'],
+      summary: {
+        thermo: { ...base.summary.thermo!, velocitySource: 'central-differences', differenceCorrection: 1.97, warnings: [warning] },
+        vdos: {
+          temperatureK: 151.9, kineticTemperatureK: 151.9, velocitySource: 'central-differences', warnings: [warning],
+          differenceCorrection: { correctedUpToCm1: 2502, uncorrectableFraction: 0.063, factor: 4.9 },
+          peaks: [], cv: { quantum: { perAtomKB: 0, jPerMolK: 0, jPerGK: 0 }, classical: { perAtomKB: 0.5, jPerMolK: 4.2, jPerGK: 0.2 } },
+          entropy: { quantum: { perAtomKB: 0, jPerMolK: 0 }, classical: { perAtomKB: 0, jPerMolK: 0 } }, zeroPoint: { evPerAtom: 0.1, kJPerMol: 9 }, modes: 64,
+        },
+      },
+      methods: { ...base.methods, thermo: { velocitySource: 'central-differences', differenceCorrection: 1.97, blockingPlateauLevel: 2 }, vdos: { window: 'hann', segments: 1, segmentFrames: 4094, fftLength: 4096, binWidthThz: 0.098 } },
+    }));
+    const thermo = paragraphs.find((p) => p.heading === 'Temperature')!.body;
+    const spectrum = paragraphs.find((p) => p.heading === 'Vibrational density of states')!.body;
+    expect(thermo).toContain('scaled by 1.97, the ratio of the corrected to the raw velocity spectrum');
+    expect(thermo).toContain(`Warning: ${warning}`);
+    expect(spectrum).toContain('power spectrum of the atoms\' windowed velocities');
+    expect(spectrum).toContain('divided by that factor up to 2502 cm⁻¹ (ωΔt = 3π/4), and 6.3 % of its raw weight lay above');
+    expect(spectrum).toContain(`Warning: ${warning}`);
+  });
 });

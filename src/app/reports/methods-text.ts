@@ -37,13 +37,20 @@ function inputParagraph(report: ReportDto, input: Json): MethodsParagraph {
   return { heading: 'Input', body: `Trajectory ${parts.join('; ')}.` };
 }
 
+/** Warnings a reader must not miss, as sentences after a paragraph. */
+const warned = (warnings: readonly string[] | undefined): string => (warnings?.length ? ` ${warnings.map((w) => `Warning: ${w}`).join(' ')}` : '');
+
 function thermoParagraph(s: NonNullable<ReportSummary['thermo']>, m: Json): MethodsParagraph {
-  const source = text(m, 'velocitySource') === 'stored-velocities' ? 'stored velocities' : 'finite differences of positions';
+  const factor = num(m, 'differenceCorrection');
+  const source = text(m, 'velocitySource') === 'stored-velocities' ? 'stored velocities'
+    : `central differences of positions on the interior frames; finite differences read a mode's kinetic energy low by [sin(ωΔt)/(ωΔt)]², ` +
+      `so the series was scaled by ${f(factor, 4)}, the ratio of the corrected to the raw velocity spectrum of the run`;
   return {
     heading: 'Temperature',
     body: `Instantaneous temperature from the kinetic energy by equipartition, T = 2K/(f·k_B), with f = ${s.degreesOfFreedom} degrees of freedom, from ${source}. ` +
       `Errors of ensemble averages by Flyvbjerg–Petersen blocking (plateau at blocking level ${f(num(m, 'blockingPlateauLevel'), 3)}). ` +
-      `Equilibration judged by comparing the first and last thirds of the run: ${s.equilibrated ? 'no significant drift' : 'a significant drift was found'}.`,
+      `Equilibration judged by comparing the first and last thirds of the run: ${s.equilibrated ? 'no significant drift' : 'a significant drift was found'}.` +
+      warned(s.warnings),
   };
 }
 
@@ -58,7 +65,8 @@ function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Jso
 }
 
 function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsParagraph {
-  const source = s.velocitySource === 'stored-velocities' ? 'stored velocities' : 'central differences of unwrapped positions';
+  const source = s.velocitySource === 'stored-velocities' ? 'stored velocities'
+    : 'central differences of unwrapped positions (which damp fast modes by sin(ωΔt)/(ωΔt), lowering the VACF at short lags but not its integral)';
   const windows = s.groups.map((g) => `${g.label}: ${span(g.plateauWindowPs)}`).join('; ');
   return {
     heading: 'Velocity autocorrelation and Green–Kubo diffusion',
@@ -68,6 +76,11 @@ function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsP
 }
 
 function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: Json): MethodsParagraph {
+  const dc = s.differenceCorrection;
+  const correction = dc
+    ? ` Velocities are central differences of positions, which damp a mode's power by [sin(ωΔt)/(ωΔt)]²; the spectrum was divided by that factor up to ` +
+      `${f(dc.correctedUpToCm1)} cm⁻¹ (ωΔt = 3π/4), and ${f(100 * dc.uncorrectableFraction, 2)} % of its raw weight lay above, where nothing can be restored.`
+    : '';
   const segments = num(m, 'segments');
   const averaged = segments !== null && segments > 1 ? `averaged over ${f(segments, 6)} half-overlapping segments of ${f(num(m, 'segmentFrames'), 12)} frames` : `over ${f(num(m, 'segmentFrames'), 12)} frames`;
   return {
@@ -76,7 +89,7 @@ function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: J
       `non-negative at every frequency (${windowName(text(m, 'window') ?? text(params, 'window'))}, ${averaged}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
       `bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
       `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K, beside the classical (Dulong–Petit) limit.` +
-      `${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}`,
+      `${correction}${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}${warned(s.warnings)}`,
   };
 }
 

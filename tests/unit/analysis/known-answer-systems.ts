@@ -44,12 +44,16 @@ export interface DiatomicKind {
 /**
  * A box of non-rotating harmonic diatomics of several kinds (HCl and CO, say),
  * sampled every `timeStepPs`. With `translate: false` each molecule has one
- * degree of freedom, its stretch, whose mean kinetic energy is k_BT/2.
+ * degree of freedom, its stretch, whose mean kinetic energy is k_BT/2 — for
+ * each molecule exactly with `equipartitionEnergy`, else on average.
  */
-export function diatomicBox(kinds: DiatomicKind[], o: { temperatureK: number; timeStepPs: number; frames: number; boxA: number; seed: number; translate?: boolean; velocities?: boolean }): Trajectory {
+export function diatomicBox(
+  kinds: DiatomicKind[],
+  o: { temperatureK: number; timeStepPs: number; frames: number; boxA: number; seed: number; translate?: boolean; velocities?: boolean; equipartitionEnergy?: boolean },
+): Trajectory {
   const parts = kinds.map((k, i) => simulateHarmonicDiatomics({
     ...k, temperatureK: o.temperatureK, timeStepPs: o.timeStepPs, frames: o.frames, boxA: o.boxA, seed: o.seed + 101 * i,
-    integrator: 'analytic', translate: o.translate,
+    integrator: 'analytic', translate: o.translate, equipartitionEnergy: o.equipartitionEnergy,
   } satisfies HarmonicDiatomicsOptions).trajectory);
   const box = combine(parts);
   if (o.velocities === false) delete box.velocities;

@@ -35,7 +35,7 @@ describe('Kinetic temperature by equipartition (SCIENCE item 8)', () => {
     let sum = 0;
     for (let i = 0; i < 300; i++) sum += m * v[i] * v[i];
     const exact = sum / (300 * BOLTZMANN_ENGINE);
-    const r = thermo(traj, { momentumConserved: false });
+    const r = thermo(traj, { removeComDrift: false });
     expect(r.degreesOfFreedom).toBe(300);
     expect(Math.abs(r.temperatureK[0] / exact - 1)).toBeLessThan(1e-12);
     expect(Math.abs(r.temperatureK[0] / T0 - 1)).toBeLessThan(1e-6);
@@ -58,7 +58,7 @@ describe('Kinetic temperature by equipartition (SCIENCE item 8)', () => {
     }
     const traj: Trajectory = { nAtoms: n, nFrames: frames, species: new Array<string>(n).fill('Ar'), positions: new Float32Array(3 * n * frames), velocities, cells: cubicCells(frames, 40), times: Float64Array.from({ length: frames }, (_, f) => f), boundary: 'periodic' };
     const unbiased = thermo(traj);
-    const biased = thermo(traj, { momentumConserved: false });
+    const biased = thermo(traj, { removeComDrift: false });
     expect(unbiased.degreesOfFreedom).toBe(2997);
     expect(Math.abs(unbiased.temperature.mean / T0 - 1)).toBeLessThan(4 * unbiased.temperature.stdError / T0);
     expect(biased.temperature.mean / unbiased.temperature.mean).toBeCloseTo(2997 / 3000, 12);
