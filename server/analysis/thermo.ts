@@ -154,9 +154,35 @@ export function frameKineticEnergies(traj: Trajectory, masses: Float64Array, rem
   return { frames, kinetic };
 }
 
-/** Kinetic energy per frame in u·Å²/ps² (COM motion included); see frameKineticEnergies. */
+/**
+ * Kinetic energy of every frame in u·Å²/ps², COM motion included: from stored
+ * velocities, or from differences of minimum-image positions (central for
+ * interior frames, one-sided at the two ends) without any spectral correction.
+ */
 export function kineticEnergies(traj: Trajectory, masses: Float64Array, onProgress?: (fraction: number) => void): Float64Array {
-  return frameKineticEnergies(traj, masses, false, onProgress).kinetic;
+  if (traj.velocities) return frameKineticEnergies(traj, masses, false, onProgress).kinetic;
+  const N = traj.nAtoms, T = traj.nFrames;
+  if (T < 2) throw new Error('Temperature without stored velocities needs at least two frames.');
+  const out = new Float64Array(T);
+  const dt = frameIntervalPs(traj);
+  const geom = cellFramesOf(traj);
+  const x = traj.positions;
+  const d = new Float64Array(3);
+  for (let f = 0; f < T; f++) {
+    const a = Math.max(0, f - 1), b = Math.min(T - 1, f + 1);
+    const span = (b - a) * dt;
+    let sum = 0;
+    for (let i = 0; i < N; i++) {
+      const pa = 3 * (N * a + i), pb = 3 * (N * b + i);
+      d[0] = x[pb] - x[pa];
+      d[1] = x[pb + 1] - x[pa + 1];
+      d[2] = x[pb + 2] - x[pa + 2];
+      if (geom) minimumImage(geom, f, d);
+      sum += (masses[i] * (d[0] * d[0] + d[1] * d[1] + d[2] * d[2])) / (span * span);
+    }
+    out[f] = 0.5 * sum;
+  }
+  return out;
 }
 
 function equilibrationCheck(series: Float64Array): EquilibrationCheck {
