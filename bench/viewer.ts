@@ -98,9 +98,7 @@ export async function benchViewer(): Promise<BenchRow[]> {
   const root = fileURLToPath(new URL('..', import.meta.url));
   buildAppIfNeeded(root, (m) => console.log(`[bench] ${m}`));
   const stack = await startTestStack();
-  // Job processors run in worker threads that read their service addresses from process.env.
-  Object.assign(process.env, stack.env);
-  const server = await startServer(loadConfig({ ...process.env, PORT: String(await freePort()), STATIC_DIR: join(root, 'dist/ergodic/browser') }));
+  const server = await startServer(loadConfig({ ...process.env, ...stack.env, PORT: String(await freePort()), STATIC_DIR: join(root, 'dist/ergodic/browser') }));
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox', '--disable-background-networking', '--no-first-run'] });
   try {
     const api = await request.newContext({ baseURL: server.url });

@@ -85,10 +85,7 @@ try {
   if (suites.includes('e2e') && stack) {
     ensureDebianPackages('/usr/bin/chromium', ['chromium'], log);
     const port = await freePort();
-    // Job processors run in worker threads that build their connections from
-    // process.env; without this they would reach the development services.
-    Object.assign(process.env, stack.env);
-    const config = loadConfig({ ...process.env, PORT: String(port), STATIC_DIR: join(root, 'dist/ergodic/browser') });
+    const config = loadConfig({ ...process.env, ...stack.env, PORT: String(port), STATIC_DIR: join(root, 'dist/ergodic/browser') });
     const server = await startServer(config);
     try {
       const out = join(results, 'playwright.json');

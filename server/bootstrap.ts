@@ -16,7 +16,7 @@ export function createContext(config: Config): RunningContext {
   const { db, pool, close: closeDb } = connectDatabase(config.DATABASE_URL);
   const store = ObjectStore.fromConfig(config);
   const mailer = Mailer.fromConfig(config);
-  const queue = new WorkQueue(config.REDIS_URL);
+  const queue = new WorkQueue(config.REDIS_URL, config.QUEUE_ADD_TIMEOUT_MS);
   return {
     config, log, db, pool, store, mailer, queue,
     async close() {

@@ -26,9 +26,21 @@ const configSchema = z.object({
   UPLOAD_MAX_BYTES: bytes.default(2 * 1024 ** 3),
   DECOMPRESSED_MAX_BYTES: bytes.default(20 * 1024 ** 3),
   DECOMPRESSION_MAX_RATIO: z.coerce.number().positive().default(1000),
-  /** Run a BullMQ worker inside the web process (off for a web-only node). */
-  RUN_WORKER: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  /**
+   * Where jobs run: `process` starts a worker as a child process of the web
+   * server (a crash or out-of-memory in a job cannot take the API down),
+   * `in-process` runs it inside the web process, `off` leaves jobs to
+   * `npm run worker` processes elsewhere. `true`/`false` are older spellings.
+   */
+  RUN_WORKER: z.enum(['process', 'in-process', 'off', 'true', 'false']).default('process')
+    .transform((v) => (v === 'true' ? 'process' : v === 'false' ? 'off' : v)),
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** On SIGTERM a worker lets running jobs finish this long, then hands them back to the queue. */
+  WORKER_SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
+  /** How often a worker looks for runs and inspections whose queue entry was lost, and queues them again. */
+  WORKER_SWEEP_INTERVAL_MS: z.coerce.number().int().min(1000).default(60_000),
+  /** Longest wait for the queue to accept a job before the request fails with 503. */
+  QUEUE_ADD_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),
   /** How often workers look for jobs whose worker died; such jobs go back on the queue. */
   WORKER_STALLED_INTERVAL_MS: z.coerce.number().int().min(500).default(30_000),
   /** A job's lock lapses this long after its worker last renewed it (a dead worker cannot). */
@@ -39,6 +51,16 @@ const configSchema = z.object({
 });
 
 export type Config = z.infer<typeof configSchema>;
+
+/**
+ * A resolved configuration written back as environment variables, for a
+ * child process started with exactly these settings (and nothing inherited).
+ */
+export function configToEnv(config: Config): Record<string, string> {
+  const env: Record<string, string> = {};
+  for (const [key, value] of Object.entries(config)) if (value !== undefined) env[key] = String(value);
+  return env;
+}
 
 /** Reads and validates the environment; fails fast with every problem listed. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {

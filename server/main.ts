@@ -4,15 +4,22 @@ import { createContext, type RunningContext } from './bootstrap.ts';
 import { loadConfig, type Config } from './config.ts';
 import { runMigrations } from './db/migrate.ts';
 import { dropStaleUploads } from './services/trajectories.ts';
-import { startWorker, type RunningWorker } from './jobs/worker.ts';
+import { startWorker } from './jobs/worker.ts';
+import { superviseWorkerProcess } from './jobs/worker-process.ts';
 
 export interface RunningServer {
   url: string;
   ctx: RunningContext;
+  /** Process id of the worker child (RUN_WORKER=process), else null. */
+  workerPid(): number | null;
   stop(): Promise<void>;
 }
 
-/** Migrates, then serves app and API on one port; runs a job worker unless told not to. */
+/**
+ * Migrates, then serves app and API on one port. Jobs run in a worker child
+ * process by default (RUN_WORKER=process), inside this process when asked
+ * (in-process), or elsewhere (off: `npm run worker` on any machine).
+ */
 export async function startServer(config: Config = loadConfig()): Promise<RunningServer> {
   const ctx = createContext(config);
   await runMigrations(ctx.db);
@@ -24,7 +31,8 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
   const sweeper = setInterval(() => void sweepUploads(), 60_000);
   sweeper.unref();
   const app = createApp(ctx);
-  const worker: RunningWorker | null = config.RUN_WORKER ? await startWorker(config, ctx.log) : null;
+  const worker = config.RUN_WORKER === 'process' ? superviseWorkerProcess(config, ctx.log)
+    : config.RUN_WORKER === 'in-process' ? await startWorker(config, ctx.log, ctx) : null;
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
   });
@@ -35,11 +43,12 @@ export async function startServer(config: Config = loadConfig()): Promise<Runnin
   return {
     url,
     ctx,
+    workerPid: () => (worker && 'pid' in worker ? worker.pid() : null),
     async stop() {
       clearInterval(sweeper);
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
-      await worker?.close();
+      if (worker) await ('stop' in worker ? worker.stop() : worker.close());
       await ctx.close();
     },
   };

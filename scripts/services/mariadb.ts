@@ -42,21 +42,28 @@ export async function startMariaDb(options: MariaDbOptions): Promise<ServiceHand
   const dbDir = join(dataDir, 'db');
   const pidFile = join(dataDir, 'mysqld.pid');
   const socket = socketPath(dataDir);
-  mkdirSync(dataDir, { recursive: true });
+  // A private temp folder: two servers initialising at once in a shared /tmp collide on their temporary tables.
+  const tmp = join(dataDir, 'tmp');
+  mkdirSync(tmp, { recursive: true });
 
   const stale = readPid(pidFile);
   if (stale && isAlive(stale)) await stopPid(stale);
 
   if (!existsSync(join(dbDir, 'mysql'))) {
     log(`initialising MariaDB data in ${dbDir}`);
-    execFileSync('mariadb-install-db', [
-      '--no-defaults', `--datadir=${dbDir}`, '--user=root',
-      '--auth-root-authentication-method=normal', '--skip-test-db',
-    ], { stdio: 'pipe' });
+    try {
+      execFileSync('mariadb-install-db', [
+        '--no-defaults', `--datadir=${dbDir}`, `--tmpdir=${tmp}`, '--user=root',
+        '--auth-root-authentication-method=normal', '--skip-test-db',
+      ], { stdio: 'pipe' });
+    } catch (err) {
+      const stderr = (err as { stderr?: Buffer }).stderr?.toString().trim();
+      throw new Error(`mariadb-install-db could not initialise ${dbDir}${stderr ? `:\n${stderr}` : ''}`);
+    }
   }
 
   const args = [
-    '--no-defaults', `--datadir=${dbDir}`, `--socket=${socket}`, `--port=${port}`,
+    '--no-defaults', `--datadir=${dbDir}`, `--tmpdir=${tmp}`, `--socket=${socket}`, `--port=${port}`,
     '--bind-address=127.0.0.1', '--user=root', `--pid-file=${pidFile}`,
     `--log-error=${join(dataDir, 'mysqld.err')}`, '--skip-name-resolve',
     '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',

@@ -22,14 +22,24 @@ export class WorkQueue {
   readonly queue: Queue;
   private readonly connection: Redis;
 
-  constructor(redisUrl: string) {
+  /** `addTimeoutMs`: how long `add` waits for Redis before giving up (a down Redis would otherwise hold the caller forever). */
+  constructor(redisUrl: string, private readonly addTimeoutMs = 5_000) {
     this.connection = redisConnection(redisUrl);
     this.queue = new Queue(QUEUE_NAME, { connection: this.connection, defaultJobOptions: DEFAULT_JOB_OPTIONS });
   }
 
+  /** Queues a job; a job id already in the queue is not added twice. */
   async add(name: JobName, data: JobData, jobId?: string): Promise<string> {
-    const job = await this.queue.add(name, data, jobId ? { jobId } : undefined);
-    return String(job.id);
+    let timer: NodeJS.Timeout | undefined;
+    const timeout = new Promise<never>((_, reject) => {
+      timer = setTimeout(() => reject(new Error(`the job queue did not answer within ${this.addTimeoutMs} ms`)), this.addTimeoutMs);
+    });
+    try {
+      const job = await Promise.race([this.queue.add(name, data, jobId ? { jobId } : undefined), timeout]);
+      return String(job.id);
+    } finally {
+      clearTimeout(timer);
+    }
   }
 
   async ping(): Promise<void> {

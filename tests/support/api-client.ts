@@ -1,5 +1,7 @@
 import request from 'supertest';
-import type { Express } from 'express';
+
+/** The in-process app, or the base URL of a running server. */
+type Target = Parameters<typeof request>[0];
 
 type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
 const UNSAFE = new Set<Method>(['post', 'patch', 'put', 'delete']);
@@ -13,11 +15,11 @@ export class ApiClient {
   private readonly agent: ReturnType<typeof request.agent>;
   private xsrf: string | undefined;
 
-  constructor(private readonly app: Express, private readonly bearer?: string) {
+  constructor(private readonly app: Target, private readonly bearer?: string) {
     this.agent = request.agent(app);
   }
 
-  static withToken(app: Express, token: string): ApiClient {
+  static withToken(app: Target, token: string): ApiClient {
     return new ApiClient(app, token);
   }
 

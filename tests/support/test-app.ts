@@ -13,10 +13,7 @@ export interface TestApp {
 
 /** The real app, in-process, wired to the integration stack's services. */
 export function createTestApp(overrides: Record<string, string> = {}): TestApp {
-  // Job processors run in worker threads that build their own connections
-  // from process.env, so the stack's addresses must be there too.
-  Object.assign(process.env, inject('stackEnv'));
-  const config = loadConfig({ ...process.env, STATIC_DIR: 'dist/ergodic/browser', ...overrides });
+  const config = loadConfig({ ...process.env, ...inject('stackEnv'), STATIC_DIR: 'dist/ergodic/browser', ...overrides });
   const ctx = createContext(config);
   return { app: createApp(ctx), ctx, config, close: () => ctx.close() };
 }

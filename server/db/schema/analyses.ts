@@ -19,6 +19,8 @@ export const analysisRuns = mysqlTable('analysis_runs', {
   status: mysqlEnum('status', runStatuses).notNull().default('queued'),
   progress: int('progress').notNull().default(0),
   queueJobId: varchar('queue_job_id', { length: 64 }),
+  /** Which attempt of which worker holds the run while it is running; every write of that worker checks it. */
+  claimToken: varchar('claim_token', { length: 128 }),
   attempts: int('attempts').notNull().default(0),
   error: text('error'),
   reportId: int('report_id'),

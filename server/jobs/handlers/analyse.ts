@@ -1,65 +1,64 @@
-import { UnrecoverableError, type SandboxedJob } from 'bullmq';
-import { and, eq } from 'drizzle-orm';
+import { UnrecoverableError, WaitingError, type SandboxedJob } from 'bullmq';
 import { analysisParamsSchema, type AnalysisKey } from '../../../shared/analysis-params.ts';
 import { runAnalyses, type AnalysisRun } from '../../analysis/index.ts';
 import type { AppContext } from '../../context.ts';
-import { analysisRuns, reports, type TrajectoryRow } from '../../db/schema/index.ts';
+import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
 import { assembleTrajectory } from '../../formats/assemble.ts';
 import { openTrajectory } from '../../formats/open-trajectory.ts';
 import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '../../formats/units.ts';
-import { getRunRow } from '../../services/analysis-runs.ts';
+import { claimRun, completeRun, failRun, recordProgress, releaseRun, RunLost, runLostReason } from '../../services/analysis-runs.ts';
 import { readerLimits } from '../../services/reader-limits.ts';
 import { encodeCurves } from '../../services/report-curves.ts';
-import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.ts';
+import { getTrajectoryRow } from '../../services/trajectories.ts';
 import { curvesKeyFor } from '../../storage/object-keys.ts';
+import { AttemptReleased, releaseRequested, type JobAttempt } from '../job-attempt.ts';
 import type { AnalyseJobData } from '../queue.ts';
 
 /** Analyses that share an intermediate run together: VDOS needs the VACF, S(q) needs g(r). */
 const STAGES: AnalysisKey[][] = [['thermo'], ['msd'], ['vacf', 'vdos'], ['rdf', 'sq'], ['lindemann'], ['ngp'], ['energy']];
 const LOAD_SHARE = 25;
-
-class Cancelled extends Error {}
+/** Progress reaches the database at most this often; each write is also the check for a cancel. */
+const CHECK_EVERY_MS = 500;
 
 /**
- * Loads the trajectory from the object store, runs the engine stage by stage,
- * mirrors progress to the run's row (the record the UI reads), and stores
- * the report: summary in MariaDB, curves as gzip JSON in the object store.
+ * Claims the run, loads the trajectory from the object store, runs the
+ * engine stage by stage and stores the report. Every change of the run's
+ * state goes through services/analysis-runs.ts, and every one of them
+ * holds only while this attempt's claim does.
  */
-export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<unknown> {
+export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: JobAttempt): Promise<unknown> {
   const { runId } = job.data as AnalyseJobData;
-  const run = await getRunRow(ctx, runId).catch(() => null);
-  if (!run || run.status === 'cancelled') return { skipped: run ? 'cancelled' : 'deleted' };
-  await ctx.db.update(analysisRuns).set({ status: 'running', progress: 0, startedAt: new Date(), attempts: job.attemptsMade + 1, error: null })
-    .where(eq(analysisRuns.id, runId));
+  const claim = `${job.id}:${attempt.token}`;
+  const run = await claimRun(ctx, runId, claim);
+  if (!run) return { skipped: 'the run is no longer waiting to run' };
 
-  let lastWrite = 0;
-  const report = async (percent: number, force = false) => {
+  let lastCheck = 0;
+  const checkpoint = async (percent: number, force = false) => {
+    if (releaseRequested(attempt)) throw new AttemptReleased();
     const now = Date.now();
-    if (!force && now - lastWrite < 400) return;
-    lastWrite = now;
-    const p = Math.max(0, Math.min(100, Math.round(percent)));
-    await job.updateProgress(p);
-    const [row] = await ctx.db.select({ status: analysisRuns.status }).from(analysisRuns).where(eq(analysisRuns.id, runId));
-    if (!row || row.status === 'cancelled') throw new Cancelled();
-    await ctx.db.update(analysisRuns).set({ progress: p }).where(eq(analysisRuns.id, runId));
+    if (!force && now - lastCheck < CHECK_EVERY_MS) return;
+    lastCheck = now;
+    await job.updateProgress(Math.round(percent));
+    await recordProgress(ctx, runId, claim, percent);
   };
 
   // The engine is deterministic: an error there will not go away on a retry,
   // while a lost connection to the store or database might.
   let inEngine = false;
+  let curvesKey: string | null = null;
   try {
     const trajectory = await getTrajectoryRow(ctx, run.trajectoryId);
     // Inspection fills the time step in whenever the file states times, so a gap here means nobody has said it yet.
     if (!trajectory.timeStep) {
       throw new UnrecoverableError(`${trajectory.name} states no time between frames: set "Time between frames" in the trajectory's metadata, then start the analysis again.`);
     }
-    const traj = await loadTrajectory(ctx, trajectory, (f) => report(LOAD_SHARE * f));
+    const traj = await loadTrajectory(ctx, trajectory, (f) => checkpoint(LOAD_SHARE * f));
     const params = analysisParamsSchema.parse(run.params);
     const stages = STAGES.map((s) => s.filter((k) => run.analyses.includes(k))).filter((s) => s.length > 0);
     let result: AnalysisRun | null = null;
     for (const [i, stage] of stages.entries()) {
-      await report(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * i) / stages.length, true);
+      await checkpoint(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * i) / stages.length, true);
       inEngine = true;
       const part = runAnalyses(traj, stage, params, (f) => {
         // The engine is synchronous; progress is sent without waiting and the
@@ -70,32 +69,53 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext): Promise<un
       result = result ? merge(result, part) : part;
     }
     if (!result) throw new UnrecoverableError('No analysis was selected.');
-    await report(96, true);
-    const curvesKey = curvesKeyFor(trajectory.objectKey, runId);
+    await checkpoint(96, true);
+    curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
-    // The trajectory may have been deleted while the engine ran: then its folder, curves included, goes.
-    if (await discardIfDeleted(ctx, run.trajectoryId, trajectory.objectKey)) return { skipped: 'trajectory deleted' };
-    const [{ id: reportId }] = await ctx.db.insert(reports).values({
-      runId, projectId: run.projectId, trajectoryId: run.trajectoryId,
+    const reportId = await completeRun(ctx, run, claim, {
       title: `${trajectory.name}: ${stages.flat().map(labelOf).join(', ')}`,
       analyses: stages.flat(), params: result.methods.params as unknown as Record<string, unknown>,
       summary: result.summary as Record<string, unknown>,
       methods: { ...result.methods, caution: result.caution, input: inputDescription(trajectory) } as Record<string, unknown>,
       curvesKey, engineVersion: result.engineVersion, inputSha256: trajectory.sha256,
-    }).$returningId();
-    // Only a run still marked running becomes done: a cancel that landed meanwhile wins.
-    await ctx.db.update(analysisRuns).set({ status: 'done', progress: 100, reportId, finishedAt: new Date() })
-      .where(and(eq(analysisRuns.id, runId), eq(analysisRuns.status, 'running')));
+    });
+    if (reportId === null) throw await runLostReason(ctx, runId);
     return { reportId };
   } catch (err) {
-    if (err instanceof Cancelled) return { cancelled: true };
-    const plain = inEngine || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError;
-    const message = err instanceof Error ? err.message : String(err);
-    if (plain || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) {
-      await ctx.db.update(analysisRuns).set({ status: 'failed', error: message, finishedAt: new Date() }).where(eq(analysisRuns.id, runId));
-    }
-    throw plain ? new UnrecoverableError(message) : err;
+    if (curvesKey) await discard(ctx, curvesKey);
+    return settleFailure(err, { job, ctx, runId, claim, attempt, inEngine });
   }
+}
+
+async function discard(ctx: AppContext, key: string): Promise<void> {
+  await ctx.store.delete(key).catch((err: Error) => ctx.log.warn({ key, err: err.message }, 'could not remove the curves of an unfinished run'));
+}
+
+interface FailureContext {
+  job: SandboxedJob;
+  ctx: AppContext;
+  runId: number;
+  claim: string;
+  attempt: JobAttempt;
+  inEngine: boolean;
+}
+
+/** What an attempt that did not finish leaves behind: a released, stopped, failed or retried run. */
+async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt, inEngine }: FailureContext): Promise<unknown> {
+  if (err instanceof RunLost) return { stopped: err.status };
+  if (err instanceof AttemptReleased) {
+    // Back to the queue without spending an attempt; another worker takes it from the start.
+    if (await releaseRun(ctx, runId, claim)) {
+      await job.moveToWait(attempt.token);
+      throw new WaitingError();
+    }
+    return { stopped: 'released' };
+  }
+  const plain = inEngine || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError;
+  const message = err instanceof Error ? err.message : String(err);
+  // A retry will claim the run again; only the last attempt (or a hopeless error) marks it failed.
+  if (plain || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) await failRun(ctx, runId, claim, message);
+  throw plain ? new UnrecoverableError(message) : err;
 }
 
 function labelOf(key: AnalysisKey): string {

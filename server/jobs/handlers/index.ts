@@ -1,9 +1,10 @@
 import type { SandboxedJob } from 'bullmq';
 import type { AppContext } from '../../context.ts';
+import type { JobAttempt } from '../job-attempt.ts';
 import { analyseJob } from './analyse.ts';
 import { inspectJob } from './inspect.ts';
 
-export type JobHandler = (job: SandboxedJob, ctx: AppContext) => Promise<unknown>;
+export type JobHandler = (job: SandboxedJob, ctx: AppContext, attempt: JobAttempt) => Promise<unknown>;
 
 /** Job kinds by name; the worker refuses any kind not listed here. */
 export const jobHandlers: Record<string, JobHandler> = {

@@ -1,0 +1,1 @@
+ALTER TABLE `analysis_runs` ADD `claim_token` varchar(128);
