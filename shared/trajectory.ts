@@ -3,6 +3,7 @@
  * schema so both sides accept the same values.
  */
 import { z } from 'zod';
+import { fileQuantitiesSchema } from './file-quantities.ts';
 import { isoDate, personRef, recordId } from './api-fields.ts';
 
 export const LENGTH_UNITS = ['angstrom', 'nm', 'pm', 'bohr'] as const;
@@ -33,6 +34,8 @@ export const trajectoryMetadataSchema = z.object({
   potential: text(255),
   engine: text(255),
   notes: text(10_000),
+  /** Which per-frame file numbers are energies, pressure or temperature, and their units. */
+  fileQuantities: fileQuantitiesSchema.nullable(),
 }).partial().strict();
 
 export type TrajectoryMetadata = z.infer<typeof trajectoryMetadataSchema>;
@@ -74,6 +77,11 @@ export const trajectorySchema = z.object({
   notes: z.string(),
   /** Metadata fields whose value was read from the file. */
   fromFile: z.array(z.string()),
+  /** Per-frame numbers the file carries (lower-case names), e.g. energy, pressure. */
+  fileValues: z.array(z.string()),
+  fileQuantities: fileQuantitiesSchema.nullable(),
+  /** Whose interaction model the energy analysis would use. */
+  interactionModelSource: z.enum(['trajectory', 'project']).nullable(),
   uploadedBy: personRef,
   createdAt: isoDate,
 });

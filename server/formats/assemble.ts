@@ -55,6 +55,7 @@ export async function assembleTrajectory(
   let timed: boolean | undefined;
   let allPeriodic = true;
   let count = 0;
+  const observables = new Map<string, Float64Array>();
 
   for await (const frame of frames) {
     const where = { file, frame: frame.index };
@@ -98,6 +99,22 @@ export async function assembleTrajectory(
       for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;
     }
     if (frame.pbc && !frame.pbc.every(Boolean)) allPeriodic = false;
+    if (frame.values) {
+      for (const key in frame.values) {
+        let series = observables.get(key);
+        if (!series) {
+          if (observables.size >= 64) continue;
+          series = new Float64Array(capacity).fill(NaN);
+          observables.set(key, series);
+        } else if (series.length < capacity) {
+          const filled = series.length;
+          series = grow64(series, capacity);
+          series.fill(NaN, filled);
+          observables.set(key, series);
+        }
+        series[count] = frame.values[key];
+      }
+    }
     if (timed) {
       if (frame.time === undefined) throw new TrajectoryFormatError('frame has no time but the first frame has one', where);
       times[count] = frame.time * timeFactor;
@@ -124,6 +141,13 @@ export async function assembleTrajectory(
     boundary,
   };
   if (velocities) trajectory.velocities = count === capacity ? velocities : velocities.slice(0, count * nAtoms * 3);
+  if (observables.size > 0) {
+    trajectory.observables = {};
+    for (const [key, series] of observables) {
+      const full = series.length < count ? grow64(series, count).fill(NaN, series.length) : series;
+      trajectory.observables[key] = full.slice(0, count);
+    }
+  }
   return trajectory;
 }
 

@@ -14,7 +14,13 @@ export interface FrameInfo {
   pbc?: [boolean, boolean, boolean];
   time?: number;
   step?: number;
+  /** Every other key whose value is one finite number (energy=…, stress components excluded). */
+  values?: Record<string, number>;
 }
+
+/** Keys with a structural meaning, never reported as per-frame values. */
+const STRUCTURAL_KEYS = new Set(['lattice', 'properties', 'pbc', 'time', 'step']);
+const SINGLE_NUMBER = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eEdD][+-]?\d+)?\s*$/;
 
 export interface Where {
   file: string;
@@ -89,6 +95,11 @@ export function parseExtxyzComment(text: string, where: Where): FrameInfo {
   }
   const step = pairs.get('step');
   if (step !== undefined && /^\s*[+-]?\d+\s*$/.test(step)) info.step = Number(step);
+  for (const [key, raw] of pairs) {
+    if (STRUCTURAL_KEYS.has(key) || !SINGLE_NUMBER.test(raw)) continue;
+    const value = parseNumberText(raw.trim());
+    if (Number.isFinite(value)) (info.values ??= {})[key] = value;
+  }
   return info;
 }
 

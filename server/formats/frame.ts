@@ -25,6 +25,11 @@ export interface Frame {
   time?: number;
   /** Integration step number, when stated. */
   step?: number;
+  /**
+   * Other per-frame numbers the file states (extended XYZ comment keys such
+   * as energy=…, H5MD observables), by lower-case name, in the file's units.
+   */
+  values?: Record<string, number>;
 }
 
 /** Where a frame starts in the (decompressed) byte stream, for random access. */

@@ -49,6 +49,8 @@ interface Layout {
   species: string[];
   cell: (i: number) => Cell | null;
   pbc?: [boolean, boolean, boolean];
+  /** Scalar observables of frame i (energies, pressure…), by lower-case name. */
+  values: (i: number) => Record<string, number> | undefined;
 }
 
 export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGenerator<Frame> {
@@ -97,6 +99,8 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
         const step = layout.axis.step?.(i);
         if (time !== undefined) frame.time = time;
         if (step !== undefined) frame.step = step;
+        const values = layout.values(i);
+        if (values) frame.values = values;
         yield frame;
       }
       t = end;
@@ -181,7 +185,63 @@ function describe(h5: H5, handle: Group, options: H5mdReadOptions): Layout {
 
   const species = readSpecies(h5, group, root, atoms, file);
   const { cell, pbc } = readBox(h5, group, root, frames, file);
-  return { root, frames, atoms, position: position.value, velocity, axis: position.axis, species, cell, pbc };
+  const values = readObservables(h5, handle, frames, position.axis, file);
+  return { root, frames, atoms, position: position.value, velocity, axis: position.axis, species, cell, pbc, values };
+}
+
+/**
+ * Scalar time series of the H5MD observables group (/observables/<name> or
+ * /observables/<group>/<name>, each {value, step?, time?}). A series is
+ * matched to position frames by index when the counts agree, else by step
+ * number; one that matches neither way is left out.
+ */
+function readObservables(h5: H5, handle: Group, frames: number, axis: TimeAxis, file: string): (i: number) => Record<string, number> | undefined {
+  if (!handle.keys().includes('observables')) return () => undefined;
+  const top = handle.get('observables');
+  if (!isGroup(top, h5)) return () => undefined;
+  const series = new Map<string, Float64Array>();
+  const visit = (group: Group, prefix: string, depth: number): void => {
+    for (const name of group.keys()) {
+      if (series.size >= 64) return;
+      const element = group.get(name);
+      const key = `${prefix}${name}`.toLowerCase();
+      if (!isGroup(element, h5)) continue;
+      if (!element.keys().includes('value')) {
+        if (depth === 0) visit(element, `${name}/`, 1);
+        continue;
+      }
+      const value = element.get('value');
+      if (!isDataset(value, h5)) continue;
+      const shape = value.shape ?? [];
+      if (!(shape.length === 1 || (shape.length === 2 && shape[1] === 1))) continue;
+      const path = `/observables/${prefix}${name}/value`;
+      checkNumeric(value, file);
+      const data = numbersOf(value.value, path, file);
+      const n = data.length;
+      if (n === frames) {
+        series.set(key, data);
+        continue;
+      }
+      const own = axisOf(h5, element, 'step', n, `/observables/${prefix}${name}`, file);
+      if (!own || !axis.step) continue;
+      const byStep = new Map<number, number>();
+      for (let k = 0; k < n; k++) byStep.set(own(k), data[k]);
+      series.set(key, Float64Array.from({ length: frames }, (_, i) => byStep.get(axis.step!(i)) ?? NaN));
+    }
+  };
+  visit(top, '', 0);
+  if (series.size === 0) return () => undefined;
+  return (i) => {
+    const out: Record<string, number> = {};
+    let any = false;
+    for (const [key, data] of series) {
+      if (Number.isFinite(data[i])) {
+        out[key] = data[i];
+        any = true;
+      }
+    }
+    return any ? out : undefined;
+  };
 }
 
 /**

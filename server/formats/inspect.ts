@@ -50,6 +50,8 @@ export interface InspectResult {
   bytes: number;
   /** Decompressed byte offset of frame starts (every frame, or every k-th for long files); empty for H5MD. */
   frameOffsets: FrameOffset[];
+  /** Names of per-frame numbers the file carries (energy, pressure… as the file calls them), lower case. */
+  fileValues: string[];
 }
 
 const PROGRESS_EVERY_BYTES = 8 * 1024 * 1024;
@@ -79,6 +81,7 @@ export async function inspectTrajectory(
   let minStep = Infinity;
   let maxStep = -Infinity;
   let reported = 0;
+  const valueKeys = new Set<string>();
   const file = opened.entryName ? `${name}/${opened.entryName}` : name;
 
   for await (const frame of opened.frames) {
@@ -94,6 +97,7 @@ export async function inspectTrajectory(
       if (!sameCell(firstCell, frame.cell)) cellChanges = true;
     }
     if (!frame.velocities) hasVelocities = false;
+    if (frame.values && valueKeys.size < 64) for (const key in frame.values) valueKeys.add(key);
     if (frame.time === undefined) {
       timed = false;
     } else if (timed) {
@@ -126,6 +130,7 @@ export async function inspectTrajectory(
     hasVelocities,
     bytes: opened.format === 'h5md' ? opened.rawBytes() : opened.bytes(),
     frameOffsets: index.toArray(),
+    fileValues: [...valueKeys].sort(),
   };
   if (opened.entryName) result.entryName = opened.entryName;
   if (pbc) result.pbc = pbc;

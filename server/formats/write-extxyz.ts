@@ -46,5 +46,9 @@ function frameHeader(frame: Frame): string {
   if (frame.time !== undefined) parts.push(`Time=${frame.time}`);
   if (frame.step !== undefined) parts.push(`Step=${frame.step}`);
   if (frame.pbc) parts.push(`pbc="${frame.pbc.map((p) => (p ? 'T' : 'F')).join(' ')}"`);
+  // Per-frame numbers (energies, pressure…) travel with the frames they belong to.
+  for (const [key, value] of Object.entries(frame.values ?? {})) {
+    if (/^[A-Za-z_][\w-]*$/.test(key) && Number.isFinite(value)) parts.push(`${key}=${value}`);
+  }
   return `${frame.species.length}\n${parts.join(' ')}\n`;
 }

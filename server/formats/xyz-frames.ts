@@ -116,6 +116,7 @@ export async function* readXyzFrames(
       if (info.pbc) frame.pbc = info.pbc;
       if (info.time !== undefined) frame.time = info.time;
       if (info.step !== undefined) frame.step = info.step;
+      if (info.values) frame.values = info.values;
       yield frame;
       index++;
     }

@@ -9,6 +9,7 @@ import { auditRoutes } from './audit.ts';
 import { authRoutes } from './auth.ts';
 import { commentRoutes } from './comments.ts';
 import { healthRoutes } from './health.ts';
+import { interactionModelRoutes } from './interaction-models.ts';
 import { invitationRoutes } from './invitations.ts';
 import { memberRoutes } from './members.ts';
 import { openApiRoutes } from './openapi.ts';
@@ -30,6 +31,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...invitationRoutes(ctx),
     ...auditRoutes(ctx),
     ...trajectoryRoutes(ctx),
+    ...interactionModelRoutes(ctx),
     ...analysisRoutes(ctx),
     ...reportRoutes(ctx),
     ...accessLinkRoutes(ctx),

@@ -20,6 +20,7 @@ import { analysisParamsSchema, type AnalysisKey, type AnalysisParamsInput } from
 import type { AppContext } from '../context.ts';
 import { analysisRuns, reports, users } from '../db/schema/index.ts';
 import { AppError, conflict, notFound } from '../errors.ts';
+import { energyInputs } from './interaction-models.ts';
 import { getTrajectoryRow, touchProject } from './trajectories.ts';
 
 type RunRow = typeof analysisRuns.$inferSelect;
@@ -41,8 +42,6 @@ const changed = (result: [{ affectedRows: number }, ...unknown[]]) => result[0].
 export async function startRun(
   ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput,
 ): Promise<AnalysisRunDto> {
-  // Stored with every default filled in, so the run records exactly what the engine will use.
-  const params = analysisParamsSchema.parse(paramsInput);
   const trajectory = await getTrajectoryRow(ctx, trajectoryId);
   if (trajectory.status !== 'ready') {
     throw conflict(`The trajectory is ${trajectory.status}; analyses can start once it is ready.`);
@@ -50,6 +49,10 @@ export async function startRun(
   if (!trajectory.timeStep) {
     throw conflict(`${trajectory.name} states no time between frames: set "Time between frames" in its metadata first.`);
   }
+  // The energy analysis takes the stored model, file keys and ensemble unless the request names its own.
+  const energy = analyses.includes('energy') ? await energyInputs(ctx, trajectory, paramsInput as Record<string, unknown>) : {};
+  // Stored with every default filled in, so the run records exactly what the engine will use.
+  const params = analysisParamsSchema.parse({ ...paramsInput, ...energy });
   const [{ id }] = await ctx.db.insert(analysisRuns).values({
     projectId: trajectory.projectId, trajectoryId, requestedBy: userId, analyses: [...new Set(analyses)], params, status: 'queued',
   }).$returningId();

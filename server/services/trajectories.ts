@@ -10,9 +10,10 @@ import type { StoredUpload } from './upload-to-store.ts';
 const withUploader = {
   t: trajectories,
   uploaderName: users.displayName,
+  projectHasModel: sql<number>`(${projects.interactionModel} IS NOT NULL)`,
 };
 
-export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string): TrajectoryDto {
+export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string, projectHasModel = false): TrajectoryDto {
   return {
     id: row.id, projectId: row.projectId, name: row.name, sizeBytes: row.sizeBytes, sha256: row.sha256,
     format: row.format, compression: row.compression, status: row.status, error: row.error,
@@ -21,15 +22,17 @@ export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string): Traje
     timeUnit: row.timeUnit, lengthUnit: row.lengthUnit, velocityUnit: row.velocityUnit,
     temperatureK: row.temperatureK, ensemble: row.ensemble, boundary: row.boundary,
     potential: row.potential, engine: row.engine, notes: row.notes, fromFile: row.fromFile ?? [],
+    fileValues: row.fileValues ?? [], fileQuantities: row.fileQuantities ?? null,
+    interactionModelSource: row.interactionModel ? 'trajectory' : projectHasModel ? 'project' : null,
     uploadedBy: { id: row.uploadedBy, displayName: uploaderName }, createdAt: row.createdAt.toISOString(),
   };
 }
 
 export async function listTrajectories(ctx: AppContext, projectId: number): Promise<TrajectoryDto[]> {
   const rows = await ctx.db.select(withUploader).from(trajectories)
-    .innerJoin(users, eq(users.id, trajectories.uploadedBy))
+    .innerJoin(users, eq(users.id, trajectories.uploadedBy)).innerJoin(projects, eq(projects.id, trajectories.projectId))
     .where(eq(trajectories.projectId, projectId)).orderBy(desc(trajectories.createdAt), desc(trajectories.id));
-  return rows.map((r) => toTrajectoryDto(r.t, r.uploaderName));
+  return rows.map((r) => toTrajectoryDto(r.t, r.uploaderName, Boolean(Number(r.projectHasModel))));
 }
 
 export async function getTrajectoryRow(ctx: AppContext, id: number): Promise<TrajectoryRow> {
@@ -40,9 +43,10 @@ export async function getTrajectoryRow(ctx: AppContext, id: number): Promise<Tra
 
 export async function getTrajectory(ctx: AppContext, id: number): Promise<TrajectoryDto> {
   const [row] = await ctx.db.select(withUploader).from(trajectories)
-    .innerJoin(users, eq(users.id, trajectories.uploadedBy)).where(eq(trajectories.id, id));
+    .innerJoin(users, eq(users.id, trajectories.uploadedBy)).innerJoin(projects, eq(projects.id, trajectories.projectId))
+    .where(eq(trajectories.id, id));
   if (!row) throw notFound('Trajectory');
-  return toTrajectoryDto(row.t, row.uploaderName);
+  return toTrajectoryDto(row.t, row.uploaderName, Boolean(Number(row.projectHasModel)));
 }
 
 /** A file name as the user sent it, checked: no control or direction-override characters, at most 255 characters. */

@@ -1,4 +1,5 @@
-import { char, index, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
+import { char, index, json, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
+import type { InteractionModel } from '../../../shared/interaction-model.ts';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { users } from './users.ts';
 import { PROJECT_ROLES } from '../../../shared/projects.ts';
@@ -13,6 +14,8 @@ export const projects = mysqlTable('projects', {
   createdBy: ref('created_by').references(() => users.id),
   createdAt: createdAt(),
   lastActivityAt: timestamp('last_activity_at').notNull(),
+  /** Pair potentials shared by the project's trajectories that have none of their own. */
+  interactionModel: json('interaction_model').$type<InteractionModel | null>(),
 });
 
 export const projectMembers = mysqlTable('project_members', {

@@ -1,4 +1,6 @@
 import { bigint, boolean, char, double, index, int, json, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core';
+import type { FileQuantities } from '../../../shared/file-quantities.ts';
+import type { InteractionModel } from '../../../shared/interaction-model.ts';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { projects } from './projects.ts';
 import { users } from './users.ts';
@@ -36,6 +38,12 @@ export const trajectories = mysqlTable('trajectories', {
   potential: varchar('potential', { length: 255 }).notNull().default(''),
   engine: varchar('engine', { length: 255 }).notNull().default(''),
   notes: text('notes').notNull().default(''),
+  /** Pair potentials of this run; when null, the project's model applies. */
+  interactionModel: json('interaction_model').$type<InteractionModel | null>(),
+  /** Which per-frame file numbers are potential/total energy, pressure, temperature (with units). */
+  fileQuantities: json('file_quantities').$type<FileQuantities | null>(),
+  /** Names of the per-frame numbers inspection found in the file. */
+  fileValues: json('file_values').$type<string[]>(),
   /** Which metadata fields were read from the file rather than typed in. */
   fromFile: json('from_file').$type<string[]>(),
   /** Object key of the frame-offset index written by the inspection job. */

@@ -37,6 +37,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
       status: 'ready', error: null, format: result.format, compression: result.compression,
       atoms: result.atoms, frames: result.frames, speciesCounts: result.speciesCounts, cell: result.cell,
       cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, frameIndexKey, updatedAt: new Date(),
+      fileValues: result.fileValues,
     };
     // Values the file states are pre-filled, unless the uploader already typed them in.
     if (result.timeStep !== undefined && row.timeStep === null && result.timeStep > 0) {
