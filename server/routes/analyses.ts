@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { currentUser } from '../auth/authorize.ts';
+import { authorizedProject, currentUser } from '../auth/authorize.ts';
 import type { AppContext } from '../context.ts';
-import { cancelRun, getRun, listRuns, startRun } from '../services/analysis-runs.ts';
+import { cancelRun, getRun, listProjectRuns, listRuns, startRun } from '../services/analysis-runs.ts';
 import { analysisRunSchema, startAnalysisSchema } from '../../shared/analysis-run.ts';
 import { body, idField, params } from './request-parts.ts';
 import { wrapped, type RouteDef } from './route-table.ts';
@@ -25,6 +25,14 @@ export function analysisRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
         res.json({ jobs: await listRuns(ctx, id) });
+      },
+    },
+    {
+      method: 'get', path: '/projects/:id/analyses', access: { kind: 'project', role: 'viewer', via: 'project' },
+      summary: "The project's latest 100 jobs, newest first, whoever started them: status, progress, failure reason, report id.",
+      response: wrapped('jobs', z.array(analysisRunSchema)),
+      handler: async (_req, res) => {
+        res.json({ jobs: await listProjectRuns(ctx, authorizedProject(res).projectId) });
       },
     },
     {

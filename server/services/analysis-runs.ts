@@ -93,6 +93,14 @@ export async function listRuns(ctx: AppContext, trajectoryId: number): Promise<A
   return rows.map((r) => toDto(r.r, r.name));
 }
 
+/** The project's latest runs, newest first: what the project page lists, whoever started them and from wherever. */
+export async function listProjectRuns(ctx: AppContext, projectId: number, limit = 100): Promise<AnalysisRunDto[]> {
+  const rows = await ctx.db.select({ r: analysisRuns, name: users.displayName }).from(analysisRuns)
+    .innerJoin(users, eq(users.id, analysisRuns.requestedBy))
+    .where(eq(analysisRuns.projectId, projectId)).orderBy(desc(analysisRuns.id)).limit(limit);
+  return rows.map((r) => toDto(r.r, r.name));
+}
+
 /**
  * A user's cancel: wins over whatever a worker does next, because every
  * later worker write requires the run to be running. A queued run also
