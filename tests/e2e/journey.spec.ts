@@ -51,7 +51,7 @@ test('the whole journey: sign up, project, drop a file, analyse, read, download,
     await screen(page, 'journey-project');
   });
 
-  await test.step('tick MSD, VACF, VDOS and g(r), start, and watch the progress until the report opens', async () => {
+  await test.step('tick MSD, VACF, VDOS and g(r), start, watch the progress, and open the report from the notice', async () => {
     await page.getByRole('button', { name: 'Analyse walkers.extxyz' }).click();
     const dialog = page.getByRole('dialog');
     for (const name of ['Temperature and density']) {
@@ -62,8 +62,10 @@ test('the whole journey: sign up, project, drop a file, analyse, read, download,
       await dialog.getByRole('checkbox', { name }).check();
     }
     await dialog.getByRole('button', { name: 'Start analysis' }).click();
-    await expect(page.getByRole('progressbar', { name: /Progress of the analysis of walkers\.extxyz/ }).or(page.getByRole('heading', { level: 1, name: /walkers\.extxyz/ }))).toBeVisible();
-    await expect(page).toHaveURL(/\/reports\/\d+$/, { timeout: 180_000 });
+    await expect(page.getByRole('list', { name: 'Analysis runs of this project' }).getByRole('listitem').filter({ hasText: 'walkers.extxyz' })).toBeVisible();
+    await expect(page.getByText(/The analysis of walkers\.extxyz \(.*\) is done\./)).toBeVisible({ timeout: 180_000 });
+    await page.getByRole('button', { name: 'Open report' }).click();
+    await expect(page).toHaveURL(/\/reports\/\d+$/);
   });
 
   let reportUrl = '';

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
@@ -8,10 +8,8 @@ import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
 import { reportListItemSchema } from '../../../shared/report';
 import { unwrapList } from '../core/api-envelope';
-
-const ANALYSIS_WORDS: Partial<Record<string, string>> = {
-  thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂',
-};
+import { ANALYSIS_WORDS } from '../trajectories/analysis-words';
+import { FinishedRuns } from '../trajectories/finished-runs';
 
 /** A project's reports, newest first, each opening its report page. */
 @Component({
@@ -60,10 +58,20 @@ const ANALYSIS_WORDS: Partial<Record<string, string>> = {
 })
 export class ProjectReports {
   readonly projectId = input.required<number>();
+  private readonly finishedRuns = inject(FinishedRuns);
 
   protected readonly words = ANALYSIS_WORDS;
   protected readonly reports = httpResource(() => `/api/projects/${this.projectId()}/reports`, { parse: unwrapList('reports', reportListItemSchema) });
   protected readonly rows = computed(() => this.reports.value() ?? []);
+
+  constructor() {
+    // A run that finished since the list was read has a report the list does not show yet.
+    effect(() => {
+      const finished = this.finishedRuns.reportIds(this.projectId());
+      const listed = new Set(untracked(() => this.reports.value() ?? []).map((r) => r.id));
+      if ([...finished].some((id) => !listed.has(id))) untracked(() => this.reports.reload());
+    });
+  }
 
   protected loadError(): string {
     return apiErrorMessage(this.reports.error(), 'The reports could not be loaded.');

@@ -1,54 +1,39 @@
 import { DestroyRef, inject, Injectable, signal } from '@angular/core';
-import { Router } from '@angular/router';
 import type { Subscription } from 'rxjs';
 import type { AnalysisRunDto } from '../../../shared/analysis-run';
 import { isFinished, watchJob } from './job-watch';
+import { RunNotices } from './run-notices';
 import { TrajectoriesApi } from './trajectories-api';
 
-export interface TrackedJob {
-  run: AnalysisRunDto;
-  trajectoryName: string;
-  /** Open the report when this run finishes (runs the user just started). */
-  openWhenDone: boolean;
-}
-
-/** Runs the user is watching, with live progress; opens the report of a run they started when it is done. */
+/**
+ * Runs started in this tab: each is watched until it ends, and the user is
+ * told then, on whatever page they are. Lists of runs read the server, and
+ * refresh when `started` changes.
+ */
 @Injectable({ providedIn: 'root' })
 export class JobTracker {
   private readonly api = inject(TrajectoriesApi);
-  private readonly router = inject(Router);
-  private readonly jobsState = signal<TrackedJob[]>([]);
+  private readonly notices = inject(RunNotices);
   private readonly watching = new Map<number, Subscription>();
-  readonly jobs = this.jobsState.asReadonly();
+  private readonly startedCount = signal(0);
+  /** Changes each time a run is started here, so lists of runs can look again at once. */
+  readonly started = this.startedCount.asReadonly();
 
   constructor() {
     inject(DestroyRef).onDestroy(() => this.watching.forEach((s) => s.unsubscribe()));
   }
 
-  track(run: AnalysisRunDto, trajectoryName: string, openWhenDone: boolean): void {
-    if (this.watching.has(run.id)) return;
-    this.jobsState.update((list) => [{ run, trajectoryName, openWhenDone }, ...list.filter((j) => j.run.id !== run.id)]);
+  track(run: AnalysisRunDto, trajectoryName: string): void {
+    this.startedCount.update((n) => n + 1);
+    if (this.watching.has(run.id) || isFinished(run)) return;
     const subscription = watchJob(() => this.api.job(run.id)).subscribe({
       next: (latest) => {
-        this.jobsState.update((list) => list.map((j) => (j.run.id === latest.id ? { ...j, run: latest } : j)));
-        if (isFinished(latest)) {
-          this.watching.delete(latest.id);
-          const tracked = this.jobsState().find((j) => j.run.id === latest.id);
-          if (latest.status === 'done' && latest.reportId && tracked?.openWhenDone) void this.router.navigate(['/reports', latest.reportId]);
-        }
+        if (!isFinished(latest)) return;
+        this.watching.delete(latest.id);
+        this.notices.finished(latest, trajectoryName);
       },
       error: () => this.watching.delete(run.id),
     });
     this.watching.set(run.id, subscription);
-  }
-
-  cancel(id: number): void {
-    this.api.cancelJob(id).subscribe((latest) => this.jobsState.update((list) => list.map((j) => (j.run.id === id ? { ...j, run: latest } : j))));
-  }
-
-  dismiss(id: number): void {
-    this.watching.get(id)?.unsubscribe();
-    this.watching.delete(id);
-    this.jobsState.update((list) => list.filter((j) => j.run.id !== id));
   }
 }

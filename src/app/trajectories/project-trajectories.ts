@@ -12,7 +12,7 @@ import { AnalysisDialog } from './analysis-dialog';
 import { ConfirmDialog, type ConfirmData } from './confirm-dialog';
 import { CutDialog } from './cut-dialog';
 import { DropZone } from './drop-zone';
-import { JobList } from './job-list';
+import { ProjectRuns } from './project-runs';
 import { JobTracker } from './job-tracker';
 import { MetadataDialog } from './metadata-dialog';
 import { TrajectoriesApi } from './trajectories-api';
@@ -25,14 +25,14 @@ const SETTLED = new Set(['ready', 'failed']);
 /** The project page's trajectories: upload, inspect, describe, analyse. */
 @Component({
   selector: 'erg-project-trajectories',
-  imports: [DropZone, UploadList, JobList, TrajectoriesTable, MatIconModule, MatProgressSpinnerModule],
+  imports: [DropZone, UploadList, ProjectRuns, TrajectoriesTable, MatIconModule, MatProgressSpinnerModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (canEdit()) {
       <erg-drop-zone (files)="upload($event)" />
-      <erg-upload-list [projectId]="projectId()" />
+      <erg-upload-list [projectId]="projectId()" [trajectories]="trajectories()" />
     }
-    <erg-job-list [projectId]="projectId()" [canEdit]="canEdit()" />
+    <erg-project-runs [projectId]="projectId()" [trajectories]="trajectories()" [canEdit]="canEdit()" />
     @if (loading()) {
       <div class="state"><mat-spinner diameter="28" aria-label="Loading trajectories" /></div>
     } @else if (loadError()) {
@@ -99,7 +99,7 @@ export class ProjectTrajectories {
         break;
       case 'analyse':
         this.dialog.open(AnalysisDialog, { data: t, width: '720px' }).afterClosed().subscribe((run?: AnalysisRunDto) => {
-          if (run) this.jobs.track(run, t.name, true);
+          if (run) this.jobs.track(run, t.name);
         });
         break;
       case 'cut':

@@ -52,6 +52,11 @@ export class TrajectoriesApi {
     return this.http.get(`/api/trajectories/${trajectoryId}/analyses`).pipe(map(unwrapList('jobs', analysisRunSchema)));
   }
 
+  /** The project's latest runs, newest first, whoever started them. */
+  projectRuns(projectId: number): Observable<AnalysisRunDto[]> {
+    return this.http.get(`/api/projects/${projectId}/analyses`).pipe(map(unwrapList('jobs', analysisRunSchema)));
+  }
+
   job(id: number): Observable<AnalysisRunDto> {
     return this.http.get(`/api/jobs/${id}`).pipe(map(readJob));
   }

@@ -13,6 +13,8 @@ export interface UploadItem {
   percent: number;
   state: 'sending' | 'stored' | 'failed' | 'cancelled';
   error?: string;
+  /** Set once the server has stored the file; its inspection is followed through the trajectory. */
+  trajectoryId?: number;
 }
 
 /**
@@ -36,7 +38,7 @@ export class UploadQueue {
           if (event.kind === 'progress') {
             this.patch(key, { percent: event.total ? Math.min(99, Math.round((100 * event.loaded) / event.total)) : 0 });
           } else {
-            this.patch(key, { percent: 100, state: 'stored' });
+            this.patch(key, { percent: 100, state: 'stored', trajectoryId: event.trajectory.id });
             onStored(event.trajectory);
           }
         },

@@ -1,0 +1,75 @@
+import { expect, test, type Page } from '@playwright/test';
+import { randomWalkExtxyz } from '../support/random-walk.ts';
+import { readyTrajectory } from './helpers/viewer-data.ts';
+
+/** Opens the analysis dialog for a trajectory on its project page, keeps only the named analyses and starts. */
+async function startAnalysis(page: Page, fileName: string, analyses: string[]): Promise<void> {
+  await page.getByRole('button', { name: `Analyse ${fileName}` }).click();
+  const dialog = page.getByRole('dialog');
+  for (const box of await dialog.getByRole('checkbox').all()) {
+    if (await box.isChecked()) await box.uncheck();
+  }
+  for (const name of analyses) await dialog.getByRole('checkbox', { name }).check();
+  await dialog.getByRole('button', { name: 'Start analysis' }).click();
+  await expect(dialog).toBeHidden();
+}
+
+test.describe('analysis runs', () => {
+  test('when two runs end while the user types on another page, then each is announced with a link to its report and the page never moves', async ({ page, context }) => {
+    const bytes = await randomWalkExtxyz({ atoms: 30, frames: 60, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 20, seed: 11 });
+    const trajectory = await readyTrajectory(context, 'notice-walk.extxyz', bytes);
+    await page.goto(`/projects/${trajectory.projectId}`);
+    await startAnalysis(page, 'notice-walk.extxyz', ['Temperature and density']);
+    await startAnalysis(page, 'notice-walk.extxyz', ['MSD and diffusion']);
+
+    await page.getByRole('button', { name: /Account menu/ }).click();
+    await page.getByRole('menuitem', { name: 'API tokens' }).click();
+    await expect(page.getByRole('heading', { name: 'API tokens', level: 1 })).toBeVisible();
+    const field = page.getByLabel('Token name');
+    await field.fill('laptop at the beamline');
+
+    await expect(page.getByText('The analysis of notice-walk.extxyz (temperature) is done.')).toBeVisible({ timeout: 120_000 });
+    await expect(page).toHaveURL(/\/account\/tokens$/);
+    await expect(page.getByText('The analysis of notice-walk.extxyz (MSD) is done.')).toBeVisible({ timeout: 120_000 });
+    await expect(page).toHaveURL(/\/account\/tokens$/);
+    await expect(field).toHaveValue('laptop at the beamline');
+
+    await page.getByRole('button', { name: 'Open report' }).click();
+    await expect(page).toHaveURL(/\/reports\/\d+$/);
+  });
+
+  test('when the project page is reloaded, then its runs come from the server, with the reason of a failed one, and stay live', async ({ page, context }) => {
+    const bytes = await randomWalkExtxyz({ atoms: 30, frames: 60, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 20, seed: 12 });
+    const trajectory = await readyTrajectory(context, 'listed-walk.extxyz', bytes);
+    await page.goto(`/projects/${trajectory.projectId}`);
+    await startAnalysis(page, 'listed-walk.extxyz', ['Temperature and density']);
+    // A run started by a script, not by this page: it names a species the file does not have, so it fails.
+    const xsrf = decodeURIComponent((await context.cookies()).find((c) => c.name === 'XSRF-TOKEN')!.value);
+    const scripted = await context.request.post(`/api/trajectories/${trajectory.id}/analyses`, {
+      data: { analyses: ['msd'], params: { species: ['Xe'] } }, headers: { 'X-XSRF-TOKEN': xsrf },
+    });
+    expect(scripted.status()).toBe(202);
+
+    await page.reload();
+    const runs = page.getByRole('list', { name: 'Analysis runs of this project' });
+    await expect(runs.getByRole('listitem')).toHaveCount(2);
+    const failed = runs.getByRole('listitem').filter({ hasText: 'MSD' });
+    await expect(failed).toContainText(/failed/i, { timeout: 120_000 });
+    await expect(failed).toContainText('Xe');
+    const done = runs.getByRole('listitem').filter({ hasText: 'temperature' });
+    await expect(done.getByRole('link', { name: 'Open report' })).toBeVisible({ timeout: 120_000 });
+    await expect(page.getByRole('list', { name: 'Reports in this project' }).getByRole('listitem')).toHaveCount(1);
+  });
+
+  test('when an upload is inspected, then its row in the upload list follows the inspection and sizes small files in bytes', async ({ page, context }) => {
+    const trajectory = await readyTrajectory(context, 'first.extxyz', await randomWalkExtxyz({ atoms: 4, frames: 5, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 10, seed: 1 }));
+    await page.goto(`/projects/${trajectory.projectId}`);
+    const broken = Buffer.from('2\nbroken\nAr 0 0 0\nAr 1 x 1\n');
+    await page.getByLabel(/Choose trajectory files/).setInputFiles([{ name: 'tiny-broken.xyz', mimeType: 'text/plain', buffer: broken }]);
+    const uploads = page.getByRole('list', { name: 'Uploads' });
+    const row = uploads.getByRole('listitem').filter({ hasText: 'tiny-broken.xyz' });
+    await expect(row).toContainText(`${broken.length} bytes`);
+    await expect(row).toContainText(/Inspection failed: .*line 4/, { timeout: 60_000 });
+    await expect(row).not.toContainText('inspecting');
+  });
+});
