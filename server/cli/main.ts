@@ -5,6 +5,8 @@ import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey } from '../../shared
 import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shared/trajectory.ts';
 import { analyzeFile } from './analyze-file.ts';
 import { printSummary } from './print-summary.ts';
+import { readPotential } from './read-potential.ts';
+import { ENERGY_UNIT_LIST } from '../../shared/energy-units.ts';
 
 const USAGE = `Usage: ergodic analyze FILE [options]
 
@@ -14,7 +16,13 @@ web API serves.
 
 Options:
   --analyses LIST      comma-separated, from: ${ANALYSIS_KEYS.join(', ')}
-                       (default: thermo,msd,vacf,vdos,rdf)
+                       (default: thermo,msd,vacf,vdos,rdf, and energy with --potential)
+  --potential FILE     interaction model (JSON, see shared/interaction-model.ts), e.g.
+                       {"pairs": [{"species": ["Ar","Ar"], "form": "lj", "epsilonEV": 0.0103236,
+                       "sigmaA": 3.405, "cutoffA": 10.5}]}
+  --ensemble E         NVE | NVT | NPT: chooses the fluctuation heat capacity
+  --file-energy K[:U]  per-frame file key holding the potential energy, unit ${ENERGY_UNIT_LIST.join(' | ')} (default eV)
+  --drift-threshold X  NVE drift threshold in k_B·T per atom per ns (default 0.01)
   --dt-ps X            time between frames in ps, when the file states none
   --temperature K      temperature for heat capacity (default: the kinetic temperature)
   --length-unit U      ${LENGTH_UNITS.join(' | ')} (default angstrom)
@@ -46,6 +54,7 @@ export async function main(argv: string[]): Promise<number> {
         analyses: { type: 'string' }, 'dt-ps': { type: 'string' }, temperature: { type: 'string' },
         'length-unit': { type: 'string' }, 'velocity-unit': { type: 'string' }, 'time-unit': { type: 'string' },
         boundary: { type: 'string' }, 'r-max': { type: 'string' }, json: { type: 'string' }, help: { type: 'boolean', short: 'h' },
+        potential: { type: 'string' }, ensemble: { type: 'string' }, 'file-energy': { type: 'string' }, 'drift-threshold': { type: 'string' },
       },
     });
     const [command, file, ...extra] = positionals;
@@ -57,7 +66,11 @@ export async function main(argv: string[]): Promise<number> {
     if (!file) throw new Error('give the trajectory file: ergodic analyze FILE');
     if (extra.length) throw new Error(`unexpected arguments: ${extra.join(' ')}`);
     if (!existsSync(file)) throw new Error(`${file}: no such file`);
-    const analyses = (values.analyses ?? 'thermo,msd,vacf,vdos,rdf').split(',').map((k) => k.trim()).filter(Boolean).map((k) => {
+    const interactionModel = values.potential !== undefined ? await readPotential(values.potential) : undefined;
+    const [energyKey, energyUnit = 'eV'] = values['file-energy']?.split(':') ?? [];
+    const fileQuantities = energyKey ? { potentialEnergy: { key: energyKey, unit: oneOf(energyUnit, ENERGY_UNIT_LIST, '--file-energy unit')! } } : undefined;
+    const defaults = interactionModel || fileQuantities ? 'thermo,msd,vacf,vdos,rdf,energy' : 'thermo,msd,vacf,vdos,rdf';
+    const analyses = (values.analyses ?? defaults).split(',').map((k) => k.trim()).filter(Boolean).map((k) => {
       const parsed = analysisKeySchema.safeParse(k);
       if (!parsed.success) throw new Error(`unknown analysis "${k}"; choose from ${ANALYSIS_KEYS.join(', ')}`);
       return parsed.data;
@@ -66,7 +79,11 @@ export async function main(argv: string[]): Promise<number> {
     const dtPs = positive(values['dt-ps'], '--dt-ps');
     const { report } = await analyzeFile(file, {
       analyses,
-      params: { temperatureK: positive(values.temperature, '--temperature'), rMaxA: positive(values['r-max'], '--r-max') },
+      params: {
+        temperatureK: positive(values.temperature, '--temperature'), rMaxA: positive(values['r-max'], '--r-max'),
+        interactionModel, fileQuantities, ensemble: oneOf(values.ensemble, ['NVE', 'NVT', 'NPT'] as const, '--ensemble'),
+        driftThresholdKTPerNs: positive(values['drift-threshold'], '--drift-threshold'),
+      },
       lengthUnit: oneOf(values['length-unit'], LENGTH_UNITS, '--length-unit') ?? 'angstrom',
       velocityUnit: oneOf(values['velocity-unit'], VELOCITY_UNITS, '--velocity-unit') ?? 'angstrom/ps',
       timeUnit: dtPs !== undefined ? 'ps' : timeUnit,

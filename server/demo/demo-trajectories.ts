@@ -18,26 +18,40 @@ export interface DemoTrajectory {
 const LJ = 'Lennard-Jones 12-6, σ = 3.405 Å, ε/k_B = 119.8 K, cut-off 2.5σ, shifted';
 const ENGINE = 'Larkspur teaching integrator (velocity Verlet)';
 
+/**
+ * The argon runs' interaction model, exactly what their integrator used, so
+ * the energy analysis recomputes the energies written into each frame.
+ */
+export const DEMO_ARGON_MODEL = {
+  name: 'Argon, LJ 12-6 (Rowley–Nicholson–Parsonage), as run',
+  source: 'Rowley, Nicholson & Parsonage, J. Comput. Phys. 17, 401 (1975); cut-off 2.5σ, shifted, as in the Larkspur integrator',
+  pairs: [{ species: ['Ar', 'Ar'] as [string, string], form: 'lj' as const, epsilonK: 119.8, sigmaA: 3.405, cutoffA: 2.5 * 3.405, truncation: 'shifted' as const }],
+};
+
+/** The integrator's own potential energy (eV) travels with each frame as energy=, as simulation codes write it. */
 function argonRun(temperatureK: number, reducedDensity: number, seed: number) {
-  return () => simulateLennardJones({
-    cellsPerSide: 4, reducedDensity, temperatureK, meltTemperatureK: temperatureK > 70 ? 250 : undefined,
-    meltSteps: temperatureK > 70 ? 300 : 0, equilibrationSteps: 600, productionSteps: 4000, sampleEvery: 10, seed,
-  }).trajectory;
+  return () => {
+    const run = simulateLennardJones({
+      cellsPerSide: 4, reducedDensity, temperatureK, meltTemperatureK: temperatureK > 70 ? 250 : undefined,
+      meltSteps: temperatureK > 70 ? 300 : 0, equilibrationSteps: 600, productionSteps: 4000, sampleEvery: 10, seed,
+    });
+    return { ...run.trajectory, observables: { energy: run.potentialEV } };
+  };
 }
 
 export const DEMO_TRAJECTORIES: DemoTrajectory[] = [
   {
-    project: 'Noble-liquid benchmark', fileName: 'argon-like-40K-solid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann'],
+    project: 'Noble-liquid benchmark', fileName: 'argon-like-40K-solid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'energy'],
     metadata: { temperatureK: 40, ensemble: 'NVE', potential: LJ, engine: ENGINE, notes: 'Invented demo run: FCC solid well below melting.' },
     simulate: argonRun(40, 1.05, 11),
   },
   {
-    project: 'Noble-liquid benchmark', fileName: 'argon-like-90K-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'sq', 'lindemann', 'ngp'],
+    project: 'Noble-liquid benchmark', fileName: 'argon-like-90K-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'sq', 'lindemann', 'ngp', 'energy'],
     metadata: { temperatureK: 90, ensemble: 'NVE', potential: LJ, engine: ENGINE, notes: 'Invented demo run: liquid near the triple point.' },
     simulate: argonRun(90, 0.8442, 12),
   },
   {
-    project: 'Noble-liquid benchmark', fileName: 'argon-like-130K-hot-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann'],
+    project: 'Noble-liquid benchmark', fileName: 'argon-like-130K-hot-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'energy'],
     metadata: { temperatureK: 130, ensemble: 'NVE', potential: LJ, engine: ENGINE, notes: 'Invented demo run: hot, less dense liquid.' },
     simulate: argonRun(130, 0.75, 13),
   },
@@ -56,6 +70,6 @@ export const DEMO_TRAJECTORIES: DemoTrajectory[] = [
 
 export async function toExtxyzBytes(trajectory: Trajectory): Promise<Buffer> {
   const chunks: Uint8Array[] = [];
-  for await (const chunk of writeExtxyz(trajectoryToFrames(trajectory))) chunks.push(chunk);
+  for await (const chunk of writeExtxyz(trajectoryToFrames(trajectory, trajectory.observables))) chunks.push(chunk);
   return Buffer.concat(chunks);
 }

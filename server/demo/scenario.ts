@@ -1,4 +1,6 @@
 /** The invented Larkspur Materials Lab. Nothing here is real data. */
+import { DEMO_ARGON_MODEL } from './demo-trajectories.ts';
+
 export const DEMO_ACCOUNTS = [
   {
     role: 'admin (data steward)', siteRole: 'admin' as const, displayName: 'Mira Okonkwo-Hale',
@@ -14,6 +16,8 @@ export const DEMO_PROJECTS = [
   {
     name: 'Noble-liquid benchmark',
     description: 'Argon-like Lennard-Jones runs at a low, a middle and a high temperature: a solid, a liquid and a hot liquid.',
+    /** Shared by the project's runs: the energy analysis uses it. */
+    interactionModel: DEMO_ARGON_MODEL,
   },
   {
     name: 'Small-molecule vibrations',

@@ -8,6 +8,7 @@ import { registerStoredFile } from '../services/trajectories.ts';
 import { objectKeyFor } from '../services/upload-to-store.ts';
 import { DEMO_TRAJECTORIES, toExtxyzBytes } from './demo-trajectories.ts';
 import { DEMO_ACCOUNTS, DEMO_PROJECTS } from './scenario.ts';
+import { interactionModelSchema } from '../../shared/interaction-model.ts';
 
 export interface SeededDemo {
   accounts: { role: string; email: string; password: string }[];
@@ -39,6 +40,7 @@ export async function seedDemo(ctx: AppContext, log: (m: string) => void): Promi
   for (const project of DEMO_PROJECTS) {
     const [row] = await ctx.db.insert(projects).values({
       name: project.name, description: project.description, createdBy: student, lastActivityAt: new Date(),
+      interactionModel: 'interactionModel' in project ? interactionModelSchema.parse(project.interactionModel) : null,
     }).$returningId();
     projectIds.set(project.name, row.id);
     await ctx.db.insert(projectMembers).values([

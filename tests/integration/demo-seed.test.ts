@@ -48,6 +48,17 @@ describe('the demo lab seed', () => {
     expect(lindemannOf('argon-like-90K-liquid.extxyz')).toBe(true);
     expect(lindemannOf('argon-like-130K-hot-liquid.extxyz')).toBe(true);
 
+    // The argon runs carry their LJ model (the project's) and the energies their integrator wrote; the analysis
+    // recomputes them from the model and finds the file agreeing, in an NVE run, with a conservation check.
+    for (const file of ['argon-like-40K-solid.extxyz', 'argon-like-90K-liquid.extxyz', 'argon-like-130K-hot-liquid.extxyz']) {
+      const energy = (byFile.get(file)!.summary as { energy: { sources: { potential: string }; potentialPerAtomEV: { mean: number; stdError: number }; pressureBar: { mean: number }; comparisons: { agree: boolean }[]; nveCheck: { status: string } | null; heatCapacity: unknown } }).energy;
+      expect(energy.sources.potential).toBe('model');
+      expect(energy.potentialPerAtomEV.mean).toBeLessThan(0);
+      expect(Number.isFinite(energy.pressureBar.mean)).toBe(true);
+      expect(energy.comparisons.map((c) => c.agree)).toEqual([true]);
+      expect(energy.nveCheck).not.toBeNull();
+    }
+
     const again = await seedDemo(ctx, () => {});
     await again.ready;
     expect(await ctx.db.select().from(users).where(inArray(users.email, DEMO_ACCOUNTS.map((a) => a.email)))).toHaveLength(2);
