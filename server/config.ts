@@ -39,6 +39,8 @@ const configSchema = z.object({
   WORKER_SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
   /** How often a worker looks for runs and inspections whose queue entry was lost, and queues them again. */
   WORKER_SWEEP_INTERVAL_MS: z.coerce.number().int().min(1000).default(60_000),
+  /** Positions and velocities per object of the binary frame store written at inspection. */
+  FRAME_STORE_CHUNK_BYTES: z.coerce.number().int().min(4096).max(256 * 1024 ** 2).default(8 * 1024 ** 2),
   /** Longest wait for the queue to accept a job before the request fails with 503. */
   QUEUE_ADD_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),
   /** How often workers look for jobs whose worker died; such jobs go back on the queue. */

@@ -25,6 +25,8 @@ export const projectSchema = z.object({
   /** The caller's role in the project. */
   role: z.enum(PROJECT_ROLES),
   memberCount: z.number().int(),
+  /** Bytes the project's trajectories take in the object store: uploads and their binary frame stores. */
+  storageBytes: z.number().int(),
   createdAt: isoDate,
   lastActivityAt: isoDate,
 });

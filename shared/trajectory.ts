@@ -53,6 +53,8 @@ export const trajectorySchema = z.object({
   projectId: recordId,
   name: z.string(),
   sizeBytes: z.number().int(),
+  /** Bytes of the binary frame store written at inspection (counted in the project's storage). */
+  frameStoreBytes: z.number().int(),
   sha256: z.string().nullable(),
   format: z.string().nullable(),
   compression: z.string().nullable(),

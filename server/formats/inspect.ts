@@ -5,7 +5,7 @@
  * soon as they are checked, so memory does not grow with the file.
  */
 import { createHash } from 'node:crypto';
-import { TrajectoryFormatError, type Compression, type FrameOffset, type TrajectoryFormat } from './frame.ts';
+import { TrajectoryFormatError, type Compression, type Frame, type FrameOffset, type TrajectoryFormat } from './frame.ts';
 import { openTrajectory, type ByteSource } from './open-trajectory.ts';
 import type { ReaderLimits } from './limits.ts';
 import { FrameIndex, DEFAULT_MAX_FRAME_OFFSETS } from './frame-index.ts';
@@ -62,6 +62,8 @@ export async function inspectTrajectory(
   name: string,
   limits: InspectLimits = {},
   onProgress?: (progress: InspectProgress) => void,
+  /** Sees every frame as it passes (the binary frame store is written from here); a returned promise is awaited. */
+  onFrame?: (frame: Frame) => Promise<void> | void,
 ): Promise<InspectResult> {
   const hash = limits.sha256 ? createHash('sha256') : null;
   const input = hash && typeof source !== 'string' ? hashing(source, hash) : source;
@@ -109,6 +111,10 @@ export async function inspectTrajectory(
         firstTime = frame.time;
       }
       lastTime = frame.time;
+    }
+    if (onFrame) {
+      const pending = onFrame(frame);
+      if (pending) await pending;
     }
     frames++;
     if (onProgress && opened.rawBytes() - reported >= PROGRESS_EVERY_BYTES) {

@@ -14,6 +14,35 @@ export interface FramesHeader {
   lengthUnit: 'angstrom';
 }
 
+export interface FramesPayloadInput {
+  atoms: number;
+  speciesNames: string[];
+  speciesIndex: number[];
+  frames: { index: number; time: number | null; cell: ArrayLike<number> | null }[];
+  /** Positions of every frame in the file's length unit, frame after frame. */
+  positions: Float32Array;
+}
+
+/** Writes the payload; positions already in Å (the usual case) are copied as bytes, not number by number. */
+export function encodeFramesPayload(input: FramesPayloadInput, lengthToAngstrom: number): Buffer {
+  const header: FramesHeader = {
+    atoms: input.atoms, speciesNames: input.speciesNames, speciesIndex: input.speciesIndex, lengthUnit: 'angstrom',
+    frames: input.frames.map((f) => ({ index: f.index, time: f.time, cell: f.cell ? Array.from(f.cell, (v) => v * lengthToAngstrom) : null })),
+  };
+  let json = JSON.stringify(header);
+  json += ' '.repeat((4 - ((4 + Buffer.byteLength(json)) % 4)) % 4);
+  const jsonBytes = Buffer.from(json, 'utf8');
+  // Never from the shared pool, so the Float32 view below starts on a 4-byte boundary.
+  const out = Buffer.allocUnsafeSlow(4 + jsonBytes.length + input.positions.length * 4);
+  out.writeUInt32LE(jsonBytes.length, 0);
+  jsonBytes.copy(out, 4);
+  const body = new Float32Array(out.buffer, out.byteOffset + 4 + jsonBytes.length, input.positions.length);
+  if (lengthToAngstrom === 1) body.set(input.positions);
+  else for (let i = 0; i < input.positions.length; i++) body[i] = input.positions[i]! * lengthToAngstrom;
+  return out;
+}
+
+/** The same payload from frames a text reader produced. */
 export function encodeFrames(frames: Frame[], lengthToAngstrom: number): Buffer {
   const atoms = frames[0]?.species.length ?? 0;
   const names: string[] = [];
@@ -22,23 +51,10 @@ export function encodeFrames(frames: Frame[], lengthToAngstrom: number): Buffer 
     if (i < 0) i = names.push(s) - 1;
     return i;
   });
-  const header: FramesHeader = {
-    atoms, speciesNames: names, speciesIndex, lengthUnit: 'angstrom',
-    frames: frames.map((f) => ({
-      index: f.index, time: f.time ?? null,
-      cell: f.cell ? Array.from(f.cell, (v) => v * lengthToAngstrom) : null,
-    })),
-  };
-  let json = JSON.stringify(header);
-  json += ' '.repeat((4 - ((4 + Buffer.byteLength(json)) % 4)) % 4);
-  const jsonBytes = Buffer.from(json, 'utf8');
-  const out = Buffer.alloc(4 + jsonBytes.length + frames.length * atoms * 12);
-  out.writeUInt32LE(jsonBytes.length, 0);
-  jsonBytes.copy(out, 4);
-  let offset = 4 + jsonBytes.length;
-  for (const frame of frames) {
-    const positions = frame.positions;
-    for (let i = 0; i < atoms * 3; i++, offset += 4) out.writeFloatLE(positions[i]! * lengthToAngstrom, offset);
-  }
-  return out;
+  const positions = new Float32Array(frames.length * atoms * 3);
+  frames.forEach((f, k) => positions.set(f.positions, k * atoms * 3));
+  return encodeFramesPayload({
+    atoms, speciesNames: names, speciesIndex, positions,
+    frames: frames.map((f) => ({ index: f.index, time: f.time ?? null, cell: f.cell })),
+  }, lengthToAngstrom);
 }

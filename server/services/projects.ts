@@ -9,11 +9,12 @@ import type { ProjectSummary } from '../../shared/projects.ts';
 
 
 const memberCount = sql<number>`(SELECT COUNT(*) FROM project_members pm WHERE pm.project_id = ${projects.id})`.mapWith(Number);
+const storageBytes = sql<number>`(SELECT COALESCE(SUM(t.size_bytes + t.frame_store_bytes), 0) FROM trajectories t WHERE t.project_id = ${projects.id})`.mapWith(Number);
 
 function summaryQuery(db: Database, userId: number) {
   return db.select({
     id: projects.id, name: projects.name, description: projects.description, role: projectMembers.role,
-    memberCount, createdAt: projects.createdAt, lastActivityAt: projects.lastActivityAt,
+    memberCount, storageBytes, createdAt: projects.createdAt, lastActivityAt: projects.lastActivityAt,
   }).from(projects).innerJoin(projectMembers, and(eq(projectMembers.projectId, projects.id), eq(projectMembers.userId, userId)));
 }
 

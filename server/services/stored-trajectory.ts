@@ -1,8 +1,15 @@
+/**
+ * The frames of a stored trajectory, wherever they live: the binary frame
+ * store written at inspection (every trajectory inspected by this version),
+ * or, for older uploads, the text file itself read again.
+ */
 import type { Readable } from 'node:stream';
 import type { AppContext } from '../context.ts';
 import type { TrajectoryRow } from '../db/schema/index.ts';
-import type { Compression, FrameOffset, TrajectoryFormat } from '../formats/frame.ts';
-import type { SeekableSource } from '../formats/read-frames.ts';
+import type { Compression, Frame, FrameOffset, TrajectoryFormat } from '../formats/frame.ts';
+import { readFrames, type FrameRange, type SeekableSource } from '../formats/read-frames.ts';
+import { openFrameStore, type FrameStore } from '../frame-store/reader.ts';
+import { readerLimits } from './reader-limits.ts';
 
 /** A stored trajectory object as a source the readers can open at any byte offset. */
 export function storedSource(ctx: AppContext, row: TrajectoryRow): SeekableSource {
@@ -23,4 +30,40 @@ export async function loadFrameIndex(ctx: AppContext, row: TrajectoryRow): Promi
   if (!row.frameIndexKey) return null;
   const bytes = await ctx.store.getBytes(row.frameIndexKey);
   return JSON.parse(Buffer.from(bytes).toString('utf8')) as StoredFrameIndex;
+}
+
+/** Opened stores by index key; a key names one trajectory's folder for good, so an entry never goes stale. */
+const openedStores = new Map<string, Promise<FrameStore>>();
+const MAX_OPEN_STORES = 64;
+
+/** The trajectory's binary frame store, or null for an upload inspected before it existed. */
+export function frameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<FrameStore> | null {
+  const key = row.frameStoreKey;
+  if (!key) return null;
+  let opened = openedStores.get(key);
+  if (!opened) {
+    opened = openFrameStore(ctx.store, key);
+    opened.catch(() => openedStores.delete(key));
+    if (openedStores.size >= MAX_OPEN_STORES) openedStores.delete(openedStores.keys().next().value!);
+    openedStores.set(key, opened);
+  }
+  return opened;
+}
+
+/**
+ * Frames of a range in file order, in the file's units. From the frame
+ * store no text is parsed, and positions and velocities are views into
+ * their chunk (keeping a frame keeps its chunk's memory).
+ */
+export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: FrameRange = {}): AsyncGenerator<Frame> {
+  const store = frameStoreOf(ctx, row);
+  if (store) {
+    yield* (await store).frames(range);
+    return;
+  }
+  const index = await loadFrameIndex(ctx, row);
+  yield* readFrames(storedSource(ctx, row), range, index?.offsets, {
+    ...readerLimits(ctx.config), name: row.name, totalBytes: row.sizeBytes,
+    format: index?.format, compression: index?.compression,
+  });
 }

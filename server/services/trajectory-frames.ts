@@ -1,13 +1,12 @@
 import type { AppContext } from '../context.ts';
 import type { TrajectoryRow } from '../db/schema/index.ts';
 import type { Frame } from '../formats/frame.ts';
-import { readFrames, type FrameRange } from '../formats/read-frames.ts';
+import type { FrameRange } from '../formats/read-frames.ts';
 import { LENGTH_TO_ANGSTROM, type LengthUnit } from '../formats/units.ts';
 import { writeExtxyz } from '../formats/write-extxyz.ts';
 import { badRequest, conflict } from '../errors.ts';
-import { encodeFrames } from './frames-payload.ts';
-import { readerLimits } from './reader-limits.ts';
-import { loadFrameIndex, storedSource } from './stored-trajectory.ts';
+import { encodeFrames, encodeFramesPayload } from './frames-payload.ts';
+import { frameStoreOf, storedFrames } from './stored-trajectory.ts';
 
 /** Most coordinates one frames request returns (16 MB of Float32). */
 const MAX_VALUES_PER_REQUEST = 4_000_000;
@@ -22,14 +21,6 @@ function clampRange(row: TrajectoryRow, range: Required<FrameRange>): Required<F
   return { from: range.from, to: Math.min(range.to, frames), stride: range.stride };
 }
 
-async function* framesOf(ctx: AppContext, row: TrajectoryRow, range: Required<FrameRange>): AsyncGenerator<Frame> {
-  const index = await loadFrameIndex(ctx, row);
-  yield* readFrames(storedSource(ctx, row), range, index?.offsets, {
-    ...readerLimits(ctx.config), name: row.name, totalBytes: row.sizeBytes,
-    format: index?.format, compression: index?.compression,
-  });
-}
-
 /** A chunk of frames for the viewer, positions in Å; long requests are cut to a size the browser can take. */
 export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): Promise<Buffer> {
   assertReady(row);
@@ -37,13 +28,21 @@ export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested
   const perFrame = Math.max(1, (row.atoms ?? 1) * 3);
   const maxFrames = Math.max(1, Math.floor(MAX_VALUES_PER_REQUEST / perFrame));
   const to = Math.min(range.to, range.from + maxFrames * range.stride);
+  const toAngstrom = LENGTH_TO_ANGSTROM[row.lengthUnit as LengthUnit] ?? 1;
+  const store = frameStoreOf(ctx, row);
+  if (store) {
+    const opened = await store;
+    const { frames, positions } = await opened.readPositions({ ...range, to });
+    const { atoms, speciesNames, speciesIndex } = opened.index;
+    return encodeFramesPayload({ atoms, speciesNames, speciesIndex, frames, positions }, toAngstrom);
+  }
   const frames: Frame[] = [];
-  for await (const frame of framesOf(ctx, row, { ...range, to })) frames.push(frame);
-  return encodeFrames(frames, LENGTH_TO_ANGSTROM[row.lengthUnit as LengthUnit] ?? 1);
+  for await (const frame of storedFrames(ctx, row, { ...range, to })) frames.push(frame);
+  return encodeFrames(frames, toAngstrom);
 }
 
 /** A frame range written as extended XYZ, streamed. */
 export async function* extxyzCut(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): AsyncGenerator<Uint8Array> {
   assertReady(row);
-  yield* writeExtxyz(framesOf(ctx, row, clampRange(row, requested)));
+  yield* writeExtxyz(storedFrames(ctx, row, clampRange(row, requested)));
 }

@@ -37,3 +37,9 @@ export function curvesKeyFor(trajectoryObjectKey: string, runId: number): string
   const prefix = trajectoryPrefix(trajectoryObjectKey);
   return `${prefix}${prefix.endsWith('/') ? '' : '.'}reports/run-${runId}/curves.json.gz`;
 }
+
+/** The binary frame store built from an upload at inspection, inside the trajectory's folder. */
+export function frameStorePrefixFor(trajectoryObjectKey: string): string {
+  const prefix = trajectoryPrefix(trajectoryObjectKey);
+  return `${prefix}${prefix.endsWith('/') ? '' : '.'}frames/`;
+}

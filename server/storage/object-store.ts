@@ -63,6 +63,16 @@ export class ObjectStore {
     return out.Body.transformToByteArray();
   }
 
+  /** `length` bytes of an object from byte `start` (one ranged request). */
+  async getRange(key: string, start: number, length: number): Promise<Uint8Array> {
+    if (length <= 0) return new Uint8Array(0);
+    const out = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: key, Range: `bytes=${start}-${start + length - 1}` }));
+    if (!out.Body) throw new Error(`object ${key} has no body`);
+    const bytes = await out.Body.transformToByteArray();
+    if (bytes.length !== length) throw new Error(`object ${key}: asked for ${length} bytes at ${start}, got ${bytes.length}`);
+    return bytes;
+  }
+
   async delete(key: string): Promise<void> {
     await this.client.send(new DeleteObjectCommand({ Bucket: this.bucket, Key: key }));
   }

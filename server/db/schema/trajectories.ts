@@ -46,8 +46,12 @@ export const trajectories = mysqlTable('trajectories', {
   fileValues: json('file_values').$type<string[]>(),
   /** Which metadata fields were read from the file rather than typed in. */
   fromFile: json('from_file').$type<string[]>(),
-  /** Object key of the frame-offset index written by the inspection job. */
+  /** Object key of the frame-offset index of text uploads inspected before the binary frame store existed. */
   frameIndexKey: varchar('frame_index_key', { length: 255 }),
+  /** Object key of the binary frame store's index, written by inspection; analyses and the viewer read only that. */
+  frameStoreKey: varchar('frame_store_key', { length: 255 }),
+  /** Bytes the binary frame store takes in the object store (counted in the project's storage). */
+  frameStoreBytes: bigint('frame_store_bytes', { mode: 'number' }).notNull().default(0),
   uploadedBy: ref('uploaded_by').references(() => users.id),
   createdAt: createdAt(),
   updatedAt: timestamp('updated_at'),

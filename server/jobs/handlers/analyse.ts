@@ -5,10 +5,9 @@ import type { AppContext } from '../../context.ts';
 import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
 import { assembleTrajectory } from '../../formats/assemble.ts';
-import { openTrajectory } from '../../formats/open-trajectory.ts';
 import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '../../formats/units.ts';
 import { claimRun, completeRun, failRun, recordProgress, releaseRun, RunLost, runLostReason } from '../../services/analysis-runs.ts';
-import { readerLimits } from '../../services/reader-limits.ts';
+import { storedFrames } from '../../services/stored-trajectory.ts';
 import { encodeCurves } from '../../services/report-curves.ts';
 import { getTrajectoryRow } from '../../services/trajectories.ts';
 import { curvesKeyFor } from '../../storage/object-keys.ts';
@@ -139,12 +138,11 @@ function inputDescription(t: TrajectoryRow) {
   };
 }
 
+/** The trajectory in the engine's units, from the binary frame store (no text is parsed) or, for older uploads, the file. */
 async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, progress: (fraction: number) => Promise<void>) {
-  const stream = await ctx.store.getStream(row.objectKey);
-  const opened = await openTrajectory(stream, row.name, { ...readerLimits(ctx.config), totalBytes: row.sizeBytes });
   const total = Math.max(1, row.frames ?? 1);
   async function* counted(): AsyncGenerator<Frame> {
-    for await (const frame of opened.frames) {
+    for await (const frame of storedFrames(ctx, row)) {
       if (frame.index % 50 === 0) await progress(frame.index / total);
       yield frame;
     }

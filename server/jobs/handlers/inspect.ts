@@ -6,13 +6,16 @@ import { TrajectoryFormatError } from '../../formats/frame.ts';
 import { inspectTrajectory } from '../../formats/inspect.ts';
 import { readerLimits } from '../../services/reader-limits.ts';
 import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.ts';
+import { FrameStoreWriter } from '../../frame-store/writer.ts';
+import { frameStorePrefixFor } from '../../storage/object-keys.ts';
 import type { InspectJobData } from '../queue.ts';
 
 /**
  * Reads an upload once from the object store: validates every frame, counts
- * atoms, frames and species, notes cell, velocities and time step, and keeps
- * a frame index for the viewer. A malformed file marks only its own
- * trajectory failed, with the reader's message (file, frame, line).
+ * atoms, frames and species, notes cell, velocities and time step, and
+ * writes the binary frame store that analyses and the viewer read from then
+ * on. A malformed file marks only its own trajectory failed, with the
+ * reader's message (file, frame, line), and leaves no partial store.
  */
 export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<unknown> {
   const { trajectoryId } = job.data as InspectJobData;
@@ -20,6 +23,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
   if (!row) return { skipped: 'trajectory deleted' };
   await ctx.db.update(trajectories).set({ status: 'inspecting', error: null }).where(eq(trajectories.id, row.id));
   let lastReport = 0;
+  const store = new FrameStoreWriter(ctx.store, frameStorePrefixFor(row.objectKey), { file: row.name, chunkBytes: ctx.config.FRAME_STORE_CHUNK_BYTES });
   try {
     const stream = await ctx.store.getStream(row.objectKey);
     const result = await inspectTrajectory(stream, row.name, { ...readerLimits(ctx.config), totalBytes: row.sizeBytes }, (p) => {
@@ -27,17 +31,14 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
       if (now - lastReport < 500) return;
       lastReport = now;
       void job.updateProgress(Math.min(99, Math.round((100 * p.rawBytes) / Math.max(1, row.sizeBytes))));
-    });
-    const frameIndexKey = `${row.objectKey}.frame-index.json`;
-    await ctx.store.putBytes(frameIndexKey, Buffer.from(JSON.stringify({
-      format: result.format, compression: result.compression, offsets: result.frameOffsets,
-    })), 'application/json');
+    }, (frame) => store.add(frame));
+    const { storedBytes } = await store.finish();
     const fromFile: string[] = [];
     const update: Partial<typeof trajectories.$inferInsert> = {
       status: 'ready', error: null, format: result.format, compression: result.compression,
       atoms: result.atoms, frames: result.frames, speciesCounts: result.speciesCounts, cell: result.cell,
-      cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, frameIndexKey, updatedAt: new Date(),
-      fileValues: result.fileValues,
+      cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, fileValues: result.fileValues,
+      frameStoreKey: store.indexKey, frameStoreBytes: storedBytes, updatedAt: new Date(),
     };
     // Values the file states are pre-filled, unless the uploader already typed them in.
     if (result.timeStep !== undefined && row.timeStep === null && result.timeStep > 0) {
@@ -56,6 +57,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
     if (await discardIfDeleted(ctx, row.id, row.objectKey)) return { skipped: 'trajectory deleted' };
     return { atoms: result.atoms, frames: result.frames };
   } catch (err) {
+    await store.abort().catch((e: Error) => ctx.log.warn({ trajectoryId, err: e.message }, 'could not remove a partial frame store'));
     if (await discardIfDeleted(ctx, row.id, row.objectKey).catch(() => false)) return { skipped: 'trajectory deleted' };
     const readerError = err instanceof TrajectoryFormatError || err instanceof RangeError;
     const message = err instanceof Error ? err.message : String(err);

@@ -10,6 +10,7 @@ import { ProjectReports } from '../reports/project-reports';
 import { ProjectTrajectories } from '../trajectories/project-trajectories';
 import { projectSchema } from '../../../shared/projects';
 import { unwrap } from '../core/api-envelope';
+import { bytesText } from '../trajectories/trajectory-format';
 
 /**
  * A project's home: its header, then its trajectories (upload, table,
@@ -33,7 +34,7 @@ import { unwrap } from '../core/api-envelope';
           <div>
             <h1>{{ p.name }}</h1>
             @if (p.description) { <p class="description">{{ p.description }}</p> }
-            <p class="muted">You are {{ p.role === 'editor' ? 'an' : 'a' }} <strong>{{ p.role | titlecase }}</strong> · {{ p.memberCount }} member{{ p.memberCount === 1 ? '' : 's' }}</p>
+            <p class="muted">You are {{ p.role === 'editor' ? 'an' : 'a' }} <strong>{{ p.role | titlecase }}</strong> · {{ p.memberCount }} member{{ p.memberCount === 1 ? '' : 's' }} · {{ storageText(p.storageBytes) }} stored</p>
           </div>
           @if (canEditSettings()) {
             <a mat-stroked-button [routerLink]="['/projects', p.id, 'settings']"><mat-icon aria-hidden="true">tune</mat-icon> Settings</a>
@@ -62,6 +63,11 @@ export default class ProjectPage {
     const role = this.summary()?.role;
     return role === 'owner' || role === 'editor';
   });
+
+  /** Uploads and the binary frame copies inspection keeps of them. */
+  protected storageText(bytes: number): string {
+    return bytesText(bytes);
+  }
 
   protected loadError(): string {
     return apiErrorMessage(this.project.error(), 'This project could not be loaded.');
