@@ -1,7 +1,7 @@
 /** Accounts, sign-in and personal API tokens: what the browser and scripts send and get back. */
 import { z } from 'zod';
 import { DISPLAY_NAME_MAX_LENGTH, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from './account-rules.ts';
-import { isoDate, recordId, requiredText } from './api-fields.ts';
+import { isoDate, nameText, recordId } from './api-fields.ts';
 
 export const SITE_ROLES = ['admin', 'member'] as const;
 export type SiteRole = (typeof SITE_ROLES)[number];
@@ -11,7 +11,7 @@ export const emailField = z.string({ error: 'is required' }).trim().toLowerCase(
 export const passwordField = z.string({ error: 'is required' })
   .min(PASSWORD_MIN_LENGTH, `must be at least ${PASSWORD_MIN_LENGTH} characters`)
   .max(PASSWORD_MAX_LENGTH, `must be at most ${PASSWORD_MAX_LENGTH} characters`);
-export const displayNameField = requiredText(DISPLAY_NAME_MAX_LENGTH);
+export const displayNameField = nameText(DISPLAY_NAME_MAX_LENGTH);
 /** Single-use secrets arriving in a path or a body (reset, invitation, access link). */
 export const secretTokenField = z.string().min(1, 'is required').max(200, 'is too long');
 
@@ -32,7 +32,15 @@ export type SignedInUser = z.infer<typeof signedInUserSchema>;
 
 export const noticeSchema = z.string().meta({ description: 'A sentence to show the user.' });
 
-export const createTokenBody = z.object({ name: requiredText(120) }).strict();
+/** Longest lifetime a token may be given; without one it works until revoked. */
+export const TOKEN_MAX_DAYS = 366;
+export const createTokenBody = z.object({
+  name: nameText(120),
+  expiresInDays: z.number({ error: 'must be a number of days' }).int('must be a whole number of days')
+    .min(1, 'must be at least 1 day').max(TOKEN_MAX_DAYS, `must be at most ${TOKEN_MAX_DAYS} days`).optional(),
+}).strict();
+
+export const TOKEN_REVOCATION_REASONS = ['owner', 'password_reset', 'account_disabled'] as const;
 
 export const apiTokenSchema = z.object({
   id: recordId,
@@ -41,6 +49,11 @@ export const apiTokenSchema = z.object({
   prefix: z.string(),
   createdAt: isoDate,
   lastUsedAt: isoDate.nullable(),
+  /** When it stops working by itself; null for never. */
+  expiresAt: isoDate.nullable(),
+  revokedAt: isoDate.nullable(),
+  /** Who or what stopped it: its owner, a password reset, or the account being disabled. */
+  revokedReason: z.enum(TOKEN_REVOCATION_REASONS).nullable(),
 });
 export type ApiToken = z.infer<typeof apiTokenSchema>;
 

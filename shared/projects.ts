@@ -2,13 +2,13 @@
 import { z } from 'zod';
 import { PROJECT_DESCRIPTION_MAX_LENGTH, PROJECT_NAME_MAX_LENGTH } from './account-rules.ts';
 import { emailField } from './accounts.ts';
-import { isoDate, recordId, requiredText } from './api-fields.ts';
+import { isoDate, nameText, recordId } from './api-fields.ts';
 
 export const PROJECT_ROLES = ['owner', 'editor', 'viewer'] as const;
 export type ProjectRole = (typeof PROJECT_ROLES)[number];
 export const roleField = z.enum(PROJECT_ROLES, { error: `must be one of ${PROJECT_ROLES.join(', ')}` });
 
-const projectName = requiredText(PROJECT_NAME_MAX_LENGTH);
+const projectName = nameText(PROJECT_NAME_MAX_LENGTH);
 const projectDescription = z.string({ error: 'must be text' }).trim()
   .max(PROJECT_DESCRIPTION_MAX_LENGTH, `must be at most ${PROJECT_DESCRIPTION_MAX_LENGTH} characters`);
 

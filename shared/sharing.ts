@@ -15,9 +15,12 @@ export const accessLinkSchema = z.object({
   createdAt: isoDate,
   expiresAt: isoDate,
   revokedAt: isoDate.nullable(),
+  /** `revoked` by a member, or stopped because its creator left the project (`creator_left`) or became a viewer (`creator_demoted`). */
+  revokedReason: z.enum(['revoked', 'creator_left', 'creator_demoted']).nullable(),
   lastUsedAt: isoDate.nullable(),
 });
 export type AccessLinkView = z.infer<typeof accessLinkSchema>;
+export type AccessLinkRevocation = NonNullable<AccessLinkView['revokedReason']>;
 
 /** A link just made: the only time its token and address are ever shown. */
 export const newAccessLinkSchema = z.object({

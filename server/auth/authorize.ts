@@ -46,6 +46,12 @@ export function authorize(ctx: AppContext, access: Access): RequestHandler {
     const user = req.user;
     if (!user) throw unauthorized();
     if (access.kind === 'signed-in') return next();
+    if (access.kind === 'session') {
+      if (res.locals['authVia'] === 'bearer') {
+        throw forbidden('This can be done only from a signed-in browser session, not with an API token.');
+      }
+      return next();
+    }
     if (access.kind === 'admin') {
       if (user.role !== 'admin') throw forbidden('Only a site admin can do this.');
       return next();

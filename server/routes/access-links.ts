@@ -21,7 +21,7 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
         const { id } = params(req, { id: idField });
         const { expiresInDays } = body(req, createAccessLinkBody);
         const link = await createAccessLink(ctx.db, id, currentUser(req).id, expiresInDays);
-        res.status(201).json({ link: { ...link, url: `${appOrigin(ctx, req)}/links/${link.token}` } });
+        res.status(201).json({ link: { ...link, url: `${appOrigin(ctx)}/links/${link.token}` } });
       },
     },
     {

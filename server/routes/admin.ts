@@ -24,7 +24,7 @@ export function adminRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { userId } = params(req, { userId: idField });
         const changes = body(req, adminUserChangesBody);
-        res.json({ user: await updateUser(ctx.db, ctx.pool, currentUser(req).id, userId, changes) });
+        res.json({ user: await updateUser(ctx.db, currentUser(req).id, userId, changes) });
       },
     },
     {

@@ -62,7 +62,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
       handler: (req, res) => {
         const { email } = body(req, passwordResetBody);
         // Sent in the background so the answer takes as long whether or not the account exists.
-        requestPasswordReset(ctx, email, appOrigin(ctx, req))
+        requestPasswordReset(ctx, email, appOrigin(ctx))
           .catch((err: unknown) => ctx.log.error({ err }, 'password reset e-mail failed'));
         res.status(202).json({ message: 'If an account uses this e-mail, a reset link is on its way.' });
       },

@@ -25,7 +25,7 @@ export function invitationRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { email, role } = body(req, inviteBody);
         const invitation = await createInvitation(ctx, {
-          projectId: authorizedProject(res).projectId, actor: currentUser(req), email, role, origin: appOrigin(ctx, req),
+          projectId: authorizedProject(res).projectId, actor: currentUser(req), email, role, origin: appOrigin(ctx),
         });
         res.status(201).json({ invitation });
       },

@@ -51,13 +51,15 @@ export function describeAccess(access: Access): string {
   switch (access.kind) {
     case 'public': return 'public: anyone, signed in or not';
     case 'signed-in': return 'signed-in: any active account, by session or API token';
+    case 'session': return 'session: a signed-in browser session only; an API token gets 403';
     case 'admin': return 'admin: site admins only';
     case 'project': return `${access.role}: at least ${access.role} in the project the ${access.via} belongs to (others get 404)`;
   }
 }
 
 function security(access: Access): Record<string, string[]>[] {
-  return access.kind === 'public' ? [] : [{ session: [] }, { apiToken: [] }];
+  if (access.kind === 'public') return [];
+  return access.kind === 'session' ? [{ session: [] }] : [{ session: [] }, { apiToken: [] }];
 }
 
 function pathParameters(path: string, access: Access): JsonSchema[] {

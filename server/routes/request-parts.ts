@@ -1,5 +1,6 @@
 import type { Request } from 'express';
 import { z } from 'zod';
+import { linkOrigin } from '../config.ts';
 import type { AppContext } from '../context.ts';
 
 /** `:id` and friends: positive integers only. */
@@ -20,7 +21,7 @@ export function query<T extends z.ZodType>(req: Request, schema: T): z.infer<T> 
   return schema.parse(req.query);
 }
 
-/** Where users reach the app, for links in e-mails: PUBLIC_URL when set, else this request's origin. */
-export function appOrigin(ctx: AppContext, req: Request): string {
-  return (ctx.config.PUBLIC_URL ?? `${req.protocol}://${req.get('host') ?? 'localhost'}`).replace(/\/+$/, '');
+/** Where users reach the app, for links: from configuration only, never a request header (see `linkOrigin`). */
+export function appOrigin(ctx: AppContext): string {
+  return linkOrigin(ctx.config);
 }

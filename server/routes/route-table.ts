@@ -10,6 +10,8 @@ export type ResourceKind = 'project' | 'trajectory' | 'report' | 'job' | 'series
  * walks this table, so a route without a rule cannot be added.
  * - `public`: anyone, signed in or not;
  * - `signed-in`: any active user (session or API token);
+ * - `session`: an active user signed in through the browser, not an API token
+ *   (managing tokens: a token must not mint or revoke tokens);
  * - `admin`: site admins;
  * - `project`: members of the resource's project with at least `role`
  *   (viewer < editor < owner); site admins get no project rights by role alone.
@@ -19,6 +21,7 @@ export type ResourceKind = 'project' | 'trajectory' | 'report' | 'job' | 'series
 export type Access =
   | { kind: 'public' }
   | { kind: 'signed-in' }
+  | { kind: 'session' }
   | { kind: 'admin' }
   | { kind: 'project'; role: ProjectRole; via: ResourceKind; param?: string };
 

@@ -1,10 +1,10 @@
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import { newSecretToken, sha256Hex } from '../auth/secret-token.ts';
-import type { Database } from '../db/client.ts';
+import type { Database, Executor } from '../db/client.ts';
 import { accessLinks, reports, users } from '../db/schema/index.ts';
 import { notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
-import type { AccessLinkView, NewAccessLink } from '../../shared/sharing.ts';
+import type { AccessLinkRevocation, AccessLinkView, NewAccessLink } from '../../shared/sharing.ts';
 
 /** A new link: its token, which is never stored, and its expiry (the route adds the address). */
 export async function createAccessLink(
@@ -23,7 +23,7 @@ export async function createAccessLink(
 export async function listAccessLinks(db: Database, reportId: number): Promise<AccessLinkView[]> {
   const rows = await db.select({
     id: accessLinks.id, reportId: accessLinks.reportId, createdBy: users.displayName, createdAt: accessLinks.createdAt,
-    expiresAt: accessLinks.expiresAt, revokedAt: accessLinks.revokedAt, lastUsedAt: accessLinks.lastUsedAt,
+    expiresAt: accessLinks.expiresAt, revokedAt: accessLinks.revokedAt, revokedReason: accessLinks.revokedReason, lastUsedAt: accessLinks.lastUsedAt,
   }).from(accessLinks).innerJoin(users, eq(users.id, accessLinks.createdBy))
     .where(eq(accessLinks.reportId, reportId)).orderBy(desc(accessLinks.createdAt), desc(accessLinks.id));
   return rows.map((r) => ({
@@ -35,8 +35,25 @@ export async function listAccessLinks(db: Database, reportId: number): Promise<A
 export async function revokeAccessLink(db: Database, reportId: number, actorId: number, linkId: number): Promise<void> {
   const [link] = await db.select().from(accessLinks).where(and(eq(accessLinks.id, linkId), eq(accessLinks.reportId, reportId)));
   if (!link) throw notFound('Access link');
-  if (!link.revokedAt) await db.update(accessLinks).set({ revokedAt: new Date() }).where(eq(accessLinks.id, linkId));
+  if (!link.revokedAt) await db.update(accessLinks).set({ revokedAt: new Date(), revokedReason: 'revoked' }).where(eq(accessLinks.id, linkId));
   await recordAudit(db, { projectId: link.projectId, actorId, action: 'access_link.revoked', details: { reportId, linkId } });
+}
+
+/**
+ * Stops the working links one member made in one project (they left, were
+ * removed, or can no longer share), with one audit entry per link. One step
+ * of the membership change's transaction.
+ */
+export async function revokeLinksOfCreator(
+  tx: Executor, projectId: number, actorId: number, creatorId: number, reason: Exclude<AccessLinkRevocation, 'revoked'>, now = new Date(),
+): Promise<number> {
+  const live = await tx.select({ id: accessLinks.id, reportId: accessLinks.reportId }).from(accessLinks)
+    .where(and(eq(accessLinks.projectId, projectId), eq(accessLinks.createdBy, creatorId), isNull(accessLinks.revokedAt))).for('update');
+  for (const link of live) {
+    await tx.update(accessLinks).set({ revokedAt: now, revokedReason: reason }).where(eq(accessLinks.id, link.id));
+    await recordAudit(tx, { projectId, actorId, action: 'access_link.revoked', details: { reportId: link.reportId, linkId: link.id, reason, creatorId } });
+  }
+  return live.length;
 }
 
 /**

@@ -8,7 +8,6 @@ import { AppError, conflict, notFound } from '../errors.ts';
 import { INVITATION_DAYS } from '../../shared/account-rules.ts';
 import { invitationMail } from './account-mail.ts';
 import { recordAudit } from './audit.ts';
-import { touchProject } from './projects.ts';
 import type { InvitationFacts, PendingInvitation } from '../../shared/projects.ts';
 
 export interface NewInvitation {
@@ -29,13 +28,17 @@ export async function createInvitation(ctx: AppContext, invite: NewInvitation, n
   const [project] = await db.select({ name: projects.name }).from(projects).where(eq(projects.id, invite.projectId));
   if (!project) throw notFound('Project');
 
-  await db.update(invitations).set({ revokedAt: now }).where(and(eq(invitations.projectId, invite.projectId),
-    eq(invitations.email, invite.email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 86_400_000);
-  const [{ id }] = await db.insert(invitations).values({
-    projectId: invite.projectId, email: invite.email, role: invite.role, tokenHash: hash, invitedBy: invite.actor.id, expiresAt,
-  }).$returningId();
+  // The older pending invitation is withdrawn only together with the new one being made.
+  const id = await db.transaction(async (tx) => {
+    await tx.update(invitations).set({ revokedAt: now }).where(and(eq(invitations.projectId, invite.projectId),
+      eq(invitations.email, invite.email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
+    const [{ id: invitationId }] = await tx.insert(invitations).values({
+      projectId: invite.projectId, email: invite.email, role: invite.role, tokenHash: hash, invitedBy: invite.actor.id, expiresAt,
+    }).$returningId();
+    return invitationId;
+  });
   try {
     await ctx.mailer.send(invitationMail({
       to: invite.email, link: `${invite.origin}/invitations/${encodeURIComponent(token)}`, projectName: project.name,
@@ -99,8 +102,8 @@ export async function acceptInvitation(db: Database, token: string, user: Curren
     const [existing] = await tx.select({ role: projectMembers.role }).from(projectMembers)
       .where(and(eq(projectMembers.projectId, invitation.projectId), eq(projectMembers.userId, user.id)));
     if (!existing) await tx.insert(projectMembers).values({ projectId: invitation.projectId, userId: user.id, role: invitation.role });
+    await recordAudit(tx, { projectId: invitation.projectId, actorId: user.id, action: 'member.joined', details: { invitationId: invitation.id, role: invitation.role } });
+    await tx.update(projects).set({ lastActivityAt: now }).where(eq(projects.id, invitation.projectId));
   });
-  await recordAudit(db, { projectId: invitation.projectId, actorId: user.id, action: 'member.joined', details: { invitationId: invitation.id, role: invitation.role } });
-  await touchProject(db, invitation.projectId);
   return { projectId: invitation.projectId };
 }

@@ -1,10 +1,10 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Database } from '../db/client.ts';
-import { projectMembers, users, type ProjectRole } from '../db/schema/index.ts';
+import { projectMembers, projects, users, type ProjectRole } from '../db/schema/index.ts';
 import { conflict, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
-import { touchProject } from './projects.ts';
 import type { Member } from '../../shared/projects.ts';
+import { revokeLinksOfCreator } from './access-links.ts';
 
 export async function listMembers(db: Database, projectId: number): Promise<Member[]> {
   const rows = await db.select({
@@ -19,9 +19,12 @@ type Change = { kind: 'role'; role: ProjectRole } | { kind: 'remove' };
 /**
  * Applies a role change or removal with the project's owner rows locked, so
  * two owners demoting each other at once cannot leave the project ownerless.
+ * A member who leaves, is removed, or drops to viewer can no longer share,
+ * so the access links they made stop working in the same transaction, each
+ * with an audit entry.
  */
-async function changeMembership(db: Database, projectId: number, userId: number, change: Change): Promise<ProjectRole> {
-  return db.transaction(async (tx) => {
+async function changeMembership(db: Database, projectId: number, actorId: number, userId: number, change: Change): Promise<void> {
+  await db.transaction(async (tx) => {
     const rows = await tx.select({ userId: projectMembers.userId, role: projectMembers.role }).from(projectMembers)
       .where(eq(projectMembers.projectId, projectId)).for('update');
     const target = rows.find((r) => r.userId === userId);
@@ -32,21 +35,23 @@ async function changeMembership(db: Database, projectId: number, userId: number,
       throw conflict('A project needs at least one owner: make another member an owner first.');
     }
     const where = and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId));
-    if (change.kind === 'remove') await tx.delete(projectMembers).where(where);
-    else await tx.update(projectMembers).set({ role: change.role }).where(where);
-    return target.role;
+    if (change.kind === 'remove') {
+      await tx.delete(projectMembers).where(where);
+      await recordAudit(tx, { projectId, actorId, action: actorId === userId ? 'member.left' : 'member.removed', details: { userId, role: target.role } });
+      await revokeLinksOfCreator(tx, projectId, actorId, userId, 'creator_left');
+    } else {
+      await tx.update(projectMembers).set({ role: change.role }).where(where);
+      await recordAudit(tx, { projectId, actorId, action: 'member.role_changed', details: { userId, from: target.role, to: change.role } });
+      if (change.role === 'viewer' && target.role !== 'viewer') await revokeLinksOfCreator(tx, projectId, actorId, userId, 'creator_demoted');
+    }
+    await tx.update(projects).set({ lastActivityAt: new Date() }).where(eq(projects.id, projectId));
   });
 }
 
 export async function changeMemberRole(db: Database, projectId: number, actorId: number, userId: number, role: ProjectRole): Promise<void> {
-  const previous = await changeMembership(db, projectId, userId, { kind: 'role', role });
-  await recordAudit(db, { projectId, actorId, action: 'member.role_changed', details: { userId, from: previous, to: role } });
-  await touchProject(db, projectId);
+  await changeMembership(db, projectId, actorId, userId, { kind: 'role', role });
 }
 
 export async function removeMember(db: Database, projectId: number, actorId: number, userId: number): Promise<void> {
-  const previous = await changeMembership(db, projectId, userId, { kind: 'remove' });
-  const action = actorId === userId ? 'member.left' : 'member.removed';
-  await recordAudit(db, { projectId, actorId, action, details: { userId, role: previous } });
-  await touchProject(db, projectId);
+  await changeMembership(db, projectId, actorId, userId, { kind: 'remove' });
 }

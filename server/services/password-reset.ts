@@ -6,6 +6,8 @@ import type { AppContext } from '../context.ts';
 import { passwordResets, users } from '../db/schema/index.ts';
 import { AppError, badRequest } from '../errors.ts';
 import { passwordResetMail } from './account-mail.ts';
+import { revokeAllApiTokens } from './api-tokens.ts';
+import { recordAudit } from './audit.ts';
 import { hashPassword } from './passwords.ts';
 import { endSessionsOf } from './sessions.ts';
 import { clearSignInFailures } from './sign-in-limit.ts';
@@ -35,23 +37,34 @@ export async function requestPasswordReset(ctx: AppContext, email: string, origi
   await ctx.mailer.send(passwordResetMail(user.email, link, RESET_VALID_MINUTES));
 }
 
-/** Sets a new password with a reset token, which then stops working, and ends the account's other sessions. */
+/**
+ * Sets a new password with a reset token, which then stops working. In one
+ * transaction: the token is claimed, the password changed, the account's
+ * other reset links, sessions and API tokens are ended, and its failed
+ * sign-ins forgiven. Either all of it happens or none.
+ */
 export async function confirmPasswordReset(ctx: AppContext, token: string, password: string, now = new Date()): Promise<CurrentUser> {
   const tokenHash = sha256Hex(token);
   const [reset] = await ctx.db.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash));
   if (!reset) throw badRequest('This reset link is not valid. Ask for a new one.');
   if (reset.usedAt) throw new AppError(410, 'reset_used', 'This reset link was already used. Ask for a new one.');
   if (reset.expiresAt <= now) throw new AppError(410, 'reset_expired', 'This reset link has expired. Ask for a new one.');
-  // The guarded update makes the token single-use even when two requests race.
-  const [claimed] = await ctx.db.update(passwordResets).set({ usedAt: now })
-    .where(and(eq(passwordResets.id, reset.id), isNull(passwordResets.usedAt)));
-  if (claimed.affectedRows !== 1) throw new AppError(410, 'reset_used', 'This reset link was already used. Ask for a new one.');
-  const [user] = await ctx.db.select().from(users).where(eq(users.id, reset.userId));
-  if (!user || user.disabled) throw new AppError(403, 'account_disabled', 'This account is disabled. A site admin can enable it again.');
-  await ctx.db.update(users).set({ passwordHash: await hashPassword(password) }).where(eq(users.id, user.id));
-  await ctx.db.update(passwordResets).set({ usedAt: now })
-    .where(and(eq(passwordResets.userId, user.id), isNull(passwordResets.usedAt)));
-  await endSessionsOf(ctx.pool, user.id);
-  await clearSignInFailures(ctx.db, user.email);
-  return toCurrentUser(user);
+  // Hashed before the transaction, so no row stays locked for the length of a deliberately slow hash.
+  const passwordHash = await hashPassword(password);
+  return ctx.db.transaction(async (tx) => {
+    // The guarded update makes the token single-use even when two requests race.
+    const [claimed] = await tx.update(passwordResets).set({ usedAt: now })
+      .where(and(eq(passwordResets.id, reset.id), isNull(passwordResets.usedAt)));
+    if (claimed.affectedRows !== 1) throw new AppError(410, 'reset_used', 'This reset link was already used. Ask for a new one.');
+    const [user] = await tx.select().from(users).where(eq(users.id, reset.userId)).for('update');
+    if (!user || user.disabled) throw new AppError(403, 'account_disabled', 'This account is disabled. A site admin can enable it again.');
+    await tx.update(users).set({ passwordHash }).where(eq(users.id, user.id));
+    await tx.update(passwordResets).set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, user.id), isNull(passwordResets.usedAt)));
+    const revokedTokens = await revokeAllApiTokens(tx, user.id, 'password_reset', now);
+    await endSessionsOf(tx, user.id);
+    await clearSignInFailures(tx, user.email);
+    await recordAudit(tx, { projectId: null, actorId: user.id, action: 'user.password_reset', details: { revokedTokens } });
+    return toCurrentUser(user);
+  });
 }

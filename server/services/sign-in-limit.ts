@@ -1,5 +1,5 @@
 import { and, count, eq, gt, min } from 'drizzle-orm';
-import type { Database } from '../db/client.ts';
+import type { Database, Executor } from '../db/client.ts';
 import { signInAttempts } from '../db/schema/index.ts';
 import { AppError } from '../errors.ts';
 
@@ -41,6 +41,6 @@ export async function recordSignInFailure(db: Database, email: string, ip: strin
 }
 
 /** A successful sign-in forgives the account's earlier failures. */
-export async function clearSignInFailures(db: Database, email: string): Promise<void> {
+export async function clearSignInFailures(db: Executor, email: string): Promise<void> {
   await db.delete(signInAttempts).where(eq(signInAttempts.email, email));
 }

@@ -192,7 +192,7 @@ describe('API tokens', () => {
 });
 
 describe('disabled accounts', () => {
-  it('when an admin disables a user, then their session and tokens stop working and sign-in says the account is disabled', async () => {
+  it('when an admin disables a user, then their session ends, their tokens are revoked for good, and sign-in says the account is disabled', async () => {
     const admin = await signUp(app, 'admin');
     await makeAdmin(admin);
     const user = await signUp(app, 'to-disable');
@@ -208,9 +208,12 @@ describe('disabled accounts', () => {
     expect(login.status).toBe(403);
     expect(login.body.error.message).toMatch(/disabled/);
 
+    // Enabled again, the account signs in, but its old tokens stay revoked and say why.
     await admin.client.patch(`/api/admin/users/${user.id}`, { disabled: false });
-    await signIn(app, user.email, user.password);
-    expect((await ApiClient.withToken(app, token).get('/api/auth/me')).status).toBe(200);
+    const back = await signIn(app, user.email, user.password);
+    expect((await ApiClient.withToken(app, token).get('/api/auth/me')).status).toBe(401);
+    const listed = await back.get('/api/tokens');
+    expect(listed.body.tokens).toEqual([expect.objectContaining({ name: 'cli', revokedReason: 'account_disabled', revokedAt: expect.any(String) })]);
   });
 
   it('when the only active admin would lose admin rights, then it is refused with 409', async () => {

@@ -41,6 +41,9 @@ function expectedVerdict(route: RouteDef, persona: Persona): Verdict {
       return 'allowed';
     case 'signed-in':
       return anonymous ? 401 : 'allowed';
+    case 'session':
+      if (anonymous) return 401;
+      return persona === 'bearer token of the owner' ? 403 : 'allowed';
     case 'admin':
       if (anonymous) return 401;
       return persona === 'admin (not a member)' ? 'allowed' : 403;
@@ -178,7 +181,7 @@ beforeAll(async () => {
 describe('authorization matrix over the whole route table', () => {
   it('has routes of every access kind to walk', () => {
     const kinds = new Set(table.map((r) => r.access.kind));
-    expect([...kinds].sort()).toEqual(['admin', 'project', 'public', 'signed-in']);
+    expect([...kinds].sort()).toEqual(['admin', 'project', 'public', 'session', 'signed-in']);
   });
 
   for (const route of table) {

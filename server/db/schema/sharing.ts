@@ -1,4 +1,4 @@
-import { char, index, int, json, mysqlTable, primaryKey, varchar } from 'drizzle-orm/mysql-core';
+import { char, index, int, json, mysqlEnum, mysqlTable, primaryKey, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { reports } from './analyses.ts';
 import { projects } from './projects.ts';
@@ -14,9 +14,11 @@ export const accessLinks = mysqlTable('access_links', {
   createdBy: ref('created_by').references(() => users.id),
   expiresAt: timestamp('expires_at').notNull(),
   revokedAt: timestamp('revoked_at'),
+  /** Why it stopped: revoked by a member, or its creator left the project or lost the right to share. */
+  revokedReason: mysqlEnum('revoked_reason', ['revoked', 'creator_left', 'creator_demoted']),
   lastUsedAt: timestamp('last_used_at'),
   createdAt: createdAt(),
-}, (t) => [index('access_links_report').on(t.reportId)]);
+}, (t) => [index('access_links_report').on(t.reportId), index('access_links_creator').on(t.projectId, t.createdBy)]);
 
 /** A comparison: trajectories of one system, e.g. a temperature series. */
 export const series = mysqlTable('series', {

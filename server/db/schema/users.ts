@@ -22,8 +22,15 @@ export const apiTokens = mysqlTable('api_tokens', {
   prefix: varchar('prefix', { length: 16 }).notNull(),
   createdAt: createdAt(),
   lastUsedAt: timestamp('last_used_at'),
+  /** Optional: the token stops working at this time. */
+  expiresAt: timestamp('expires_at'),
   revokedAt: timestamp('revoked_at'),
+  /** Why it stopped: revoked by its owner, or by a password reset or the account being disabled. */
+  revokedReason: mysqlEnum('revoked_reason', ['owner', 'password_reset', 'account_disabled']),
 }, (t) => [index('api_tokens_user').on(t.userId)]);
+
+export const tokenRevocationReasons = ['owner', 'password_reset', 'account_disabled'] as const;
+export type TokenRevocationReason = (typeof tokenRevocationReasons)[number];
 
 export const passwordResets = mysqlTable('password_resets', {
   id: id(),

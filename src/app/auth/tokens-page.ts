@@ -9,22 +9,24 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import { apiTokenSchema, type ApiToken, type NewApiToken } from '../../../shared/accounts';
 import { unwrapList } from '../core/api-envelope';
-import { TokensApi } from './tokens-api';
+import { tokenState, TokensApi } from './tokens-api';
 
 @Component({
   selector: 'erg-tokens-page',
   imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatIconModule, MatInputModule,
-    MatProgressSpinnerModule, MatTableModule],
+    MatProgressSpinnerModule, MatSelectModule, MatTableModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page">
       <h1>API tokens</h1>
-      <p class="muted">A token lets a script act as you: send it as <code>Authorization: Bearer &lt;token&gt;</code>. Revoke it when the script no longer needs it.</p>
+      <p class="muted">A token lets a script act as you: send it as <code>Authorization: Bearer &lt;token&gt;</code>. Revoke it when the script no longer needs it.
+        Tokens are made and revoked only here, signed in; a password reset or a disabled account revokes them all.</p>
 
       <form class="create" [formGroup]="form" (ngSubmit)="create()" novalidate>
         <mat-form-field>
@@ -32,6 +34,12 @@ import { TokensApi } from './tokens-api';
           <input matInput formControlName="name" required maxlength="120">
           <mat-hint>Where it will be used, e.g. "cluster upload script".</mat-hint>
           @if (form.controls.name.hasError('required')) { <mat-error>Give the token a name.</mat-error> }
+        </mat-form-field>
+        <mat-form-field class="expiry">
+          <mat-label>Expires</mat-label>
+          <mat-select formControlName="expiresInDays">
+            @for (choice of expiryChoices; track choice.days) { <mat-option [value]="choice.days">{{ choice.label }}</mat-option> }
+          </mat-select>
         </mat-form-field>
         <button mat-flat-button type="submit" [disabled]="busy()">Create token</button>
       </form>
@@ -64,9 +72,13 @@ import { TokensApi } from './tokens-api';
           <ng-container matColumnDef="prefix"><th mat-header-cell *matHeaderCellDef>Starts with</th><td mat-cell *matCellDef="let t"><code>{{ t.prefix }}…</code></td></ng-container>
           <ng-container matColumnDef="created"><th mat-header-cell *matHeaderCellDef>Created</th><td mat-cell *matCellDef="let t">{{ t.createdAt | date: 'medium' }}</td></ng-container>
           <ng-container matColumnDef="used"><th mat-header-cell *matHeaderCellDef>Last used</th><td mat-cell *matCellDef="let t">{{ t.lastUsedAt ? (t.lastUsedAt | date: 'medium') : 'Never' }}</td></ng-container>
+          <ng-container matColumnDef="expires"><th mat-header-cell *matHeaderCellDef>Expires</th><td mat-cell *matCellDef="let t">{{ t.expiresAt ? (t.expiresAt | date: 'mediumDate') : 'Never' }}</td></ng-container>
+          <ng-container matColumnDef="state"><th mat-header-cell *matHeaderCellDef>State</th><td mat-cell *matCellDef="let t" [class.stopped]="!stateOf(t).active">{{ stateOf(t).label }}</td></ng-container>
           <ng-container matColumnDef="actions">
             <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
-            <td mat-cell *matCellDef="let t"><button mat-button type="button" (click)="revoke(t)" [attr.aria-label]="'Revoke token ' + t.name">Revoke</button></td>
+            <td mat-cell *matCellDef="let t">
+              @if (stateOf(t).active) { <button mat-button type="button" (click)="revoke(t)" [attr.aria-label]="'Revoke token ' + t.name">Revoke</button> }
+            </td>
           </ng-container>
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
@@ -77,6 +89,8 @@ import { TokensApi } from './tokens-api';
   styles: `
     .create { display: flex; gap: 12px; align-items: baseline; flex-wrap: wrap; }
     .create mat-form-field { flex: 1; min-width: 240px; }
+    .create mat-form-field.expiry { flex: 0 1 180px; min-width: 150px; }
+    td.stopped { color: var(--mat-sys-on-surface-variant); font-style: italic; }
     .fresh { margin: 16px 0; background: var(--mat-sys-tertiary-container); }
     .secret { display: flex; gap: 12px; align-items: center; flex-wrap: wrap; }
     .secret code { word-break: break-all; font-size: 0.95rem; }
@@ -87,13 +101,20 @@ export default class TokensPage {
   private readonly clipboard = inject(Clipboard);
 
   protected readonly tokens = httpResource(() => '/api/tokens', { parse: unwrapList('tokens', apiTokenSchema) });
-  protected readonly columns = ['name', 'prefix', 'created', 'used', 'actions'];
+  protected readonly columns = ['name', 'prefix', 'created', 'used', 'expires', 'state', 'actions'];
+  protected readonly expiryChoices = [
+    { days: 0, label: 'Never' }, { days: 30, label: 'In 30 days' }, { days: 90, label: 'In 90 days' }, { days: 365, label: 'In a year' },
+  ];
+  protected readonly stateOf = tokenState;
   private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly busy = signal(false);
   protected readonly error = signal('');
   protected readonly created = signal<NewApiToken | null>(null);
   protected readonly copied = signal(false);
-  protected readonly form = inject(FormBuilder).nonNullable.group({ name: ['', [Validators.required, Validators.maxLength(120)]] });
+  protected readonly form = inject(FormBuilder).nonNullable.group({
+    name: ['', [Validators.required, Validators.maxLength(120)]],
+    expiresInDays: [0],
+  });
 
   protected loadError(): string {
     return apiErrorMessage(this.tokens.error(), 'Your tokens could not be loaded.');
@@ -107,10 +128,11 @@ export default class TokensPage {
     this.busy.set(true);
     this.error.set('');
     try {
-      this.created.set(await firstValueFrom(this.api.create(this.form.getRawValue().name)));
+      const { name, expiresInDays } = this.form.getRawValue();
+      this.created.set(await firstValueFrom(this.api.create(name, expiresInDays || null)));
       this.copied.set(false);
       // Resetting through the directive also clears "submitted", so the empty field shows no error.
-      this.formDirective().resetForm();
+      this.formDirective().resetForm({ name: '', expiresInDays: 0 });
       this.tokens.reload();
     } catch (err) {
       this.error.set(apiErrorMessage(err));

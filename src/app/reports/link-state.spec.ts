@@ -3,7 +3,7 @@ import type { AccessLinkView } from '../../../shared/sharing';
 import { linkState } from './link-state';
 
 const link = (changes: Partial<AccessLinkView>): AccessLinkView => ({
-  id: 1, reportId: 1, createdBy: 'A', createdAt: '2026-01-01T00:00:00Z', expiresAt: '2026-01-08T00:00:00Z', revokedAt: null, lastUsedAt: null, ...changes,
+  id: 1, reportId: 1, createdBy: 'A', createdAt: '2026-01-01T00:00:00Z', expiresAt: '2026-01-08T00:00:00Z', revokedAt: null, revokedReason: null, lastUsedAt: null, ...changes,
 });
 
 describe('access link state', () => {
