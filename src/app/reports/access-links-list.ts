@@ -2,7 +2,7 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import type { AccessLinkView } from '../../../shared/sharing';
-import { linkState } from './link-state';
+import { linkState, revocationWords } from './link-state';
 
 /** Every link ever made for a report, newest first, with revoke on the ones still working. */
 @Component({
@@ -20,7 +20,7 @@ import { linkState } from './link-state';
               <span class="state-tag">{{ stateWords[row.state] }}</span>
               <span>made by {{ row.link.createdBy }} on {{ row.link.createdAt | date: 'mediumDate' }}</span>
               <span class="muted">
-                · {{ row.state === 'revoked' ? 'revoked ' + (row.link.revokedAt | date: 'mediumDate') : (row.state === 'expired' ? 'expired ' : 'expires ') + (row.link.expiresAt | date: 'medium') }}
+                · {{ row.state === 'revoked' ? revocationWords(row.link) + ' ' + (row.link.revokedAt | date: 'mediumDate') : (row.state === 'expired' ? 'expired ' : 'expires ') + (row.link.expiresAt | date: 'medium') }}
                 · {{ row.link.lastUsedAt ? 'last opened ' + (row.link.lastUsedAt | date: 'medium') : 'never opened' }}
               </span>
             </div>
@@ -45,5 +45,6 @@ export class AccessLinksList {
   readonly revoke = output<AccessLinkView>();
 
   protected readonly stateWords = { active: 'Active', expired: 'Expired', revoked: 'Revoked' } as const;
+  protected readonly revocationWords = revocationWords;
   protected readonly rows = computed(() => this.links().map((link) => ({ link, state: linkState(link) })));
 }

@@ -6,3 +6,10 @@ export function linkState(link: AccessLinkView, now = Date.now()): LinkState {
   if (link.revokedAt) return 'revoked';
   return new Date(link.expiresAt).getTime() <= now ? 'expired' : 'active';
 }
+
+/** Plain words for why a link was revoked, beside its date. */
+export function revocationWords(link: AccessLinkView): string {
+  if (link.revokedReason === 'creator_left') return 'revoked when its creator left the project';
+  if (link.revokedReason === 'creator_demoted') return 'revoked when its creator became a viewer';
+  return 'revoked';
+}
