@@ -44,9 +44,10 @@ export const analysisParamsSchema = z.object({
   qMaxInvA: z.number().positive().max(100).optional(),
   /** Temperature for heat capacity, entropy and zero-point energy; default the kinetic temperature. */
   temperatureK: z.number().positive().optional(),
-  /** Total degrees of freedom; default 3N − 3 − constraints. */
+  /** Total degrees of freedom; default 3N − constraints − 3 (centre of mass removed). */
   degreesOfFreedom: z.number().int().positive().optional(),
-  constraints: z.number().int().nonnegative().default(0),
+  /** Holonomic constraints of the whole system; absent means those stated with the trajectory (else 0). */
+  constraints: z.number().int().nonnegative().optional(),
   removeComDrift: z.boolean().default(true),
   /** Mass overrides in u, by species label or element symbol. */
   masses: z.record(z.string().min(1), z.number().positive()).default({}),

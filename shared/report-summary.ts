@@ -83,12 +83,21 @@ export interface DifferenceCorrectionSummary {
 export interface VdosSummary {
   /** Temperature the harmonic weights were evaluated at, K. */
   temperatureK: number;
-  /** Kinetic temperature of the (corrected) spectrum with the stated degrees of freedom, K. */
+  /** Where temperatureK came from: the kinetic temperature, or one chosen for the analysis. */
+  temperatureSource?: 'kinetic' | 'chosen';
+  /** Kinetic temperature of the (corrected) spectrum with the counted degrees of freedom, K. */
   kineticTemperatureK?: number;
+  /** The temperature the simulation states, K, or null. */
+  statedTemperatureK?: number | null;
+  /** Set when the kinetic temperature is more than 5 % from the stated one. */
+  temperatureWarning?: string | null;
+  /** Degrees of freedom of the analysed atoms, and how the whole system's were counted. */
+  degreesOfFreedom?: number;
+  degreesOfFreedomRule?: string;
   velocitySource?: 'stored-velocities' | 'central-differences';
   /** Null with stored velocities. */
   differenceCorrection?: DifferenceCorrectionSummary | null;
-  /** Things a reader must not miss. */
+  /** Things a reader must not miss about the spectrum (coarse sampling). */
   warnings?: string[];
   /** Largest peaks of the "all" group, by height. */
   peaks: VdosPeakSummary[];
@@ -117,6 +126,10 @@ export interface MeanWithError {
 
 export interface ThermoSummary {
   temperatureK: MeanWithError;
+  /** The temperature the simulation states, K, or null. */
+  statedTemperatureK?: number | null;
+  /** How the degrees of freedom were counted, e.g. "3·256 − 128 constraints − 3 (centre of mass) = 253". */
+  degreesOfFreedomRule?: string;
   velocitySource?: 'stored-velocities' | 'central-differences';
   /** Factor finite-difference kinetic energies were scaled by (1 with stored velocities). */
   differenceCorrection?: number;

@@ -19,6 +19,22 @@ export const UNIT_LABELS: Record<string, string> = {
   'angstrom/ps': 'Å/ps', 'angstrom/fs': 'Å/fs', 'nm/ps': 'nm/ps', 'm/s': 'm/s', 'bohr/au': 'bohr/a.u.', 'angstrom/au': 'Å/a.u.',
 };
 
+/**
+ * What a species label stands for. `exact`: the label is an element symbol,
+ * case and all ("Ca"); `assumed`: guessed from a case-exact symbol at its
+ * start ("CA" → C, "OW" → O, "Ar1" → Ar) and to be confirmed; `unknown`: no
+ * guess ("bead", "ca"), a mass must be given; `confirmed`: set by a user.
+ */
+export const SPECIES_ELEMENT_STATUSES = ['exact', 'assumed', 'unknown', 'confirmed'] as const;
+export const speciesElementSchema = z.object({
+  /** Element symbol, or null for a bead or pseudo-atom with its own mass. */
+  element: z.string().nullable(),
+  /** Mass in u used by every analysis; null only while unknown. */
+  massU: z.number().nullable(),
+  status: z.enum(SPECIES_ELEMENT_STATUSES),
+});
+export type SpeciesElement = z.infer<typeof speciesElementSchema>;
+
 const text = (max: number) => z.string().trim().max(max, `at most ${max} characters`);
 
 /** Fields the uploader may set or correct; every one optional in a PATCH. */
@@ -31,6 +47,8 @@ export const trajectoryMetadataSchema = z.object({
   lengthUnit: z.enum(LENGTH_UNITS),
   velocityUnit: z.enum(VELOCITY_UNITS),
   boundary: z.enum(BOUNDARIES),
+  /** Holonomic constraints of the whole system: 3 per rigid water, 2 per diatomic that does not rotate… */
+  constraints: z.number().int('must be a whole number').min(0, 'must be 0 or more').max(1e9).nullable(),
   potential: text(255),
   engine: text(255),
   notes: text(10_000),
@@ -74,6 +92,7 @@ export const trajectorySchema = z.object({
   temperatureK: z.number().nullable(),
   ensemble: z.string().nullable(),
   boundary: z.string(),
+  constraints: z.number().int().nullable(),
   potential: z.string(),
   engine: z.string(),
   notes: z.string(),

@@ -37,8 +37,22 @@ export interface AnalysisRun {
   engineVersion: string;
 }
 
-export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], paramsInput: AnalysisParamsInput, onProgress?: (fraction: number) => void): AnalysisRun {
-  const params = analysisParamsSchema.parse(paramsInput);
+/** What the trajectory's metadata states about the simulation; analyses take it as their defaults. */
+export interface SimulationFacts {
+  /** Thermostat target or the uploader's temperature, K: shown beside the kinetic one. */
+  statedTemperatureK?: number | null;
+  /** Holonomic constraints of the whole system (rigid bonds, frozen rotations). */
+  constraints?: number | null;
+}
+
+export function runAnalyses(
+  traj: Trajectory, keys: readonly AnalysisKey[], paramsInput: AnalysisParamsInput, onProgress?: (fraction: number) => void, facts: SimulationFacts = {},
+): AnalysisRun {
+  const asked = analysisParamsSchema.parse(paramsInput);
+  // Recorded with the constraints actually used, so the parameters alone reproduce the run.
+  const params: AnalysisParams = { ...asked, constraints: asked.constraints ?? facts.constraints ?? undefined };
+  if (params.constraints === undefined) delete params.constraints;
+  const stated = facts.statedTemperatureK ?? null;
   const wanted = ANALYSIS_KEYS.filter((k) => keys.includes(k));
   const run: AnalysisRun = { summary: {}, curves: {}, methods: { params }, caution: SIMULATION_CAUTION, engineVersion: ENGINE_VERSION };
   const species = params.species.length > 0 ? params.species : undefined;
@@ -53,9 +67,11 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
     const progress = (f: number): void => onProgress?.((index + Math.min(1, f)) / wanted.length);
     switch (key) {
       case 'thermo': {
-        const r = thermo(traj, { degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, masses, removeComDrift: params.removeComDrift }, progress);
+        const r = thermo(traj, { degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, masses, removeComDrift: params.removeComDrift, statedTemperatureK: stated }, progress);
         run.summary.thermo = {
           temperatureK: { mean: r.temperature.mean, stdError: r.temperature.stdError },
+          statedTemperatureK: r.statedTemperatureK,
+          degreesOfFreedomRule: r.degreesOfFreedomRule,
           velocitySource: r.velocitySource,
           differenceCorrection: r.differenceCorrection,
           warnings: r.warnings,
@@ -70,7 +86,7 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         ];
         if (r.densityGPerCm3) cols.push(['density', 'g/cm³', r.densityGPerCm3]);
         run.curves.thermo = curve(cols);
-        run.methods.thermo = { degreesOfFreedom: r.degreesOfFreedom, velocitySource: r.velocitySource, differenceCorrection: r.differenceCorrection, blockingPlateauLevel: r.temperature.plateauLevel, equilibration: r.equilibration };
+        run.methods.thermo = { degreesOfFreedom: r.degreesOfFreedom, degreesOfFreedomRule: r.degreesOfFreedomRule, statedTemperatureK: r.statedTemperatureK, velocitySource: r.velocitySource, differenceCorrection: r.differenceCorrection, blockingPlateauLevel: r.temperature.plateauLevel, equilibration: r.equilibration };
         break;
       }
       case 'msd': {
@@ -107,7 +123,10 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         break;
       }
       case 'vdos': {
-        const r = vdos(traj, { ...vacfOptions, window: params.window, zeroPadFactor: params.zeroPadFactor, degreesOfFreedom: params.degreesOfFreedom, thermoTemperatureK: params.temperatureK }, progress);
+        const r = vdos(traj, {
+          ...vacfOptions, window: params.window, zeroPadFactor: params.zeroPadFactor, degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints,
+          thermoTemperatureK: params.temperatureK, statedTemperatureK: stated,
+        }, progress);
         const all = r.groups[0];
         const { quantum, classical } = r.thermo;
         const cv = (h: typeof quantum) => ({ perAtomKB: h.cvPerAtomKB, jPerMolK: h.cvJPerMolK, jPerGK: h.cvJPerGK });
@@ -115,7 +134,12 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         const dc = r.differenceCorrection;
         run.summary.vdos = {
           temperatureK: r.thermo.temperatureK,
+          temperatureSource: r.temperature.source,
           kineticTemperatureK: all.kineticTemperatureK,
+          statedTemperatureK: r.temperature.statedK,
+          temperatureWarning: r.temperature.warning,
+          degreesOfFreedom: all.degreesOfFreedom,
+          degreesOfFreedomRule: r.degreesOfFreedomRule,
           velocitySource: r.velocitySource,
           differenceCorrection: dc ? { correctedUpToCm1: dc.correctedUpToThz * WAVENUMBER_PER_THZ, uncorrectableFraction: dc.uncorrectableFraction, factor: dc.correctedOverRaw } : null,
           warnings: r.warnings,
@@ -133,7 +157,8 @@ export function runAnalyses(traj: Trajectory, keys: readonly AnalysisKey[], para
         ]);
         run.methods.vdos = {
           method: r.method, window: r.window, fftLength: r.fftLength, segmentFrames: r.segmentFrames, segments: r.segments, binWidthThz: r.binWidthThz,
-          degreesOfFreedom: all.degreesOfFreedom, velocitySource: r.velocitySource, differenceCorrection: dc, thermoNote: r.thermoNote,
+          degreesOfFreedom: all.degreesOfFreedom, degreesOfFreedomRule: r.degreesOfFreedomRule, temperature: r.temperature,
+          velocitySource: r.velocitySource, differenceCorrection: dc, thermoNote: r.thermoNote,
         };
         break;
       }

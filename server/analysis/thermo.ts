@@ -1,10 +1,10 @@
 /**
  * Kinetic energy and temperature per frame by equipartition,
  * T = 2·KE/(N_dof·k_B), and density per frame, with block-averaged means.
- * N_dof defaults to 3N − 3 (centre-of-mass motion removed, as in periodic
- * MD); pass constraints or an explicit count for rigid molecules or frozen
- * rotations. With COM drift removal on, each frame's COM kinetic energy is
- * taken out before dividing by N_dof.
+ * N_dof follows the one rule of degrees-of-freedom.ts (3N − constraints − 3
+ * with the centre-of-mass motion removed); with COM drift removal on, each
+ * frame's COM kinetic energy is taken out before dividing by N_dof. A stated
+ * temperature is compared with the kinetic one (temperature-choice.ts).
  *
  * Without stored velocities, velocities are central differences of
  * positions on the interior frames, which read each mode's kinetic energy
@@ -17,6 +17,8 @@
  */
 import { massOf } from '../../shared/elements.ts';
 import { blockAverage, type BlockAverage } from './block-average.ts';
+import { degreesOfFreedom } from './degrees-of-freedom.ts';
+import { statedTemperatureWarning } from './temperature-choice.ts';
 import { cellFramesOf, minimumImage } from './cell-geometry.ts';
 import { BOLTZMANN_ENGINE, GRAM_PER_AMU, CM3_PER_A3, JOULE_PER_ENGINE_ENERGY, ELEMENTARY_CHARGE_C } from './constants.ts';
 import { frameIntervalPs } from './frame-timing.ts';
@@ -33,6 +35,8 @@ export interface ThermoOptions {
   /** Remove each frame's centre-of-mass motion, which subtracts 3 degrees of freedom (default true). */
   removeComDrift?: boolean;
   masses?: Readonly<Record<string, number>>;
+  /** Temperature the simulation states, K, compared with the kinetic one. */
+  statedTemperatureK?: number | null;
 }
 
 export interface EquilibrationCheck {
@@ -47,6 +51,9 @@ export interface ThermoResult {
   units: { time: 'ps'; kineticEnergy: 'eV'; temperature: 'K'; density: 'g/cm³'; numberDensity: 'atoms/Å³' };
   timesPs: Float64Array;
   degreesOfFreedom: number;
+  /** How the degrees of freedom were counted, in words. */
+  degreesOfFreedomRule: string;
+  statedTemperatureK: number | null;
   velocitySource: 'stored-velocities' | 'central-differences';
   /** Factor the finite-difference kinetic energy was scaled by (1 with stored velocities). */
   differenceCorrection: number;
@@ -63,16 +70,15 @@ export interface ThermoResult {
 }
 
 export function degreesOfFreedomFor(nAtoms: number, options: ThermoOptions): number {
-  if (options.degreesOfFreedom !== undefined) return options.degreesOfFreedom;
-  return 3 * nAtoms - (options.constraints ?? 0) - (options.removeComDrift ?? true ? 3 : 0);
+  return degreesOfFreedom({ nAtoms, removeComDrift: options.removeComDrift ?? true, constraints: options.constraints, degreesOfFreedom: options.degreesOfFreedom }).total;
 }
 
 export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress?: (fraction: number) => void): ThermoResult {
   const N = traj.nAtoms;
   const masses = Float64Array.from(traj.species, (s) => massOf(s, options.masses));
-  const dof = degreesOfFreedomFor(N, options);
-  if (!(dof > 0)) throw new Error('Degrees of freedom must be positive.');
   const removeCom = options.removeComDrift ?? true;
+  const counted = degreesOfFreedom({ nAtoms: N, removeComDrift: removeCom, constraints: options.constraints, degreesOfFreedom: options.degreesOfFreedom });
+  const dof = counted.total;
   const { frames, kinetic } = frameKineticEnergies(traj, masses, removeCom, onProgress);
   const warnings: string[] = [];
   let correction = 1;
@@ -93,12 +99,17 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
   for (let i = 0; i < N; i++) totalMass += masses[i];
   const densityGPerCm3 = geom ? Float64Array.from(frames, (f) => (totalMass * GRAM_PER_AMU) / (geom.volumes[f] * CM3_PER_A3)) : null;
   const numberDensityPerA3 = geom ? Float64Array.from(frames, (f) => N / geom.volumes[f]) : null;
+  const temperature = blockAverage(temperatureK);
+  const stated = statedTemperatureWarning(temperature.mean, options.statedTemperatureK);
+  if (stated) warnings.push(stated);
   const tCheck = equilibrationCheck(temperatureK);
   const dCheck = densityGPerCm3 ? equilibrationCheck(densityGPerCm3) : null;
   return {
     units: { time: 'ps', kineticEnergy: 'eV', temperature: 'K', density: 'g/cm³', numberDensity: 'atoms/Å³' },
     timesPs: Float64Array.from(frames, (f) => traj.times[f]),
     degreesOfFreedom: dof,
+    degreesOfFreedomRule: counted.rule,
+    statedTemperatureK: options.statedTemperatureK ?? null,
     velocitySource: traj.velocities ? 'stored-velocities' : 'central-differences',
     differenceCorrection: correction,
     warnings,
@@ -106,7 +117,7 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
     temperatureK,
     densityGPerCm3,
     numberDensityPerA3,
-    temperature: blockAverage(temperatureK),
+    temperature,
     density: densityGPerCm3 ? blockAverage(densityGPerCm3) : null,
     equilibration: { temperature: tCheck, density: dCheck, equilibrated: tCheck.equilibrated && (dCheck?.equilibrated ?? true) },
   };

@@ -26,6 +26,8 @@ import { frameIntervalPs, lagCount } from './frame-timing.ts';
 import { harmonicThermo, type HarmonicThermo } from './harmonic-thermo.ts';
 import { findPeaks } from './peaks.ts';
 import type { WindowFunction } from './spectral-windows.ts';
+import { degreesOfFreedom, groupShare } from './degrees-of-freedom.ts';
+import { chooseTemperature, type TemperatureChoice } from './temperature-choice.ts';
 import type { Trajectory } from './trajectory.ts';
 import { correctCentralDifferences, planSegments, VelocityPowerSpectrum, type DifferenceCorrection } from './velocity-spectrum.ts';
 
@@ -44,12 +46,16 @@ export interface VdosOptions {
   window?: WindowFunction;
   /** Transform length is the next power of two ≥ segment·zeroPadFactor. */
   zeroPadFactor?: number;
-  /** Degrees of freedom of the whole selection; default d·N − d when COM drift is removed. */
+  /** Degrees of freedom of the whole trajectory in 3-D, replacing the rule 3N − constraints − 3. */
   degreesOfFreedom?: number;
+  /** Holonomic constraints of the whole trajectory. */
+  constraints?: number | null;
   /** Temperature in S's normalisation; default the kinetic temperature. */
   normalisationTemperatureK?: number;
-  /** Temperature for heat capacity, entropy and zero-point energy (default the kinetic one). */
+  /** Temperature chosen for heat capacity, entropy and zero-point energy (default the kinetic one). */
   thermoTemperatureK?: number;
+  /** Temperature the simulation states, shown beside the one used. */
+  statedTemperatureK?: number | null;
 }
 
 export interface VdosPeak {
@@ -89,9 +95,13 @@ export interface VdosResult {
   velocitySource: 'stored-velocities' | 'central-differences';
   /** How the central-difference spectrum of the selection was corrected; null with stored velocities. */
   differenceCorrection: DifferenceCorrection | null;
-  /** Things a reader must not miss (coarse sampling). */
+  /** Things a reader must not miss about the spectrum (coarse sampling); the temperature's own warning is in `temperature`. */
   warnings: string[];
   groups: VdosGroupResult[];
+  /** How the degrees of freedom of the whole trajectory were counted. */
+  degreesOfFreedomRule: string;
+  /** Which temperature the harmonic thermodynamics used, and why. */
+  temperature: TemperatureChoice;
   /** Harmonic thermodynamics of the "all" group. */
   thermo: HarmonicThermo;
   thermoNote: string;
@@ -140,11 +150,11 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
   const freqTHz = spectrum.frequencies();
   const corrections = useStored ? null : power.map((p) => correctCentralDifferences(freqTHz, p, dt));
   const d = dims.length;
+  const counted = degreesOfFreedom({ nAtoms: traj.nAtoms, removeComDrift: removeCom, constraints: options.constraints, degreesOfFreedom: options.degreesOfFreedom });
   const groups = sel.groups.map((g, gi): VdosGroupResult => {
     // Σm⟨v²⟩ of the true velocities: the raw time average times what the correction restored.
     const kinetic = plain[gi] * (corrections?.[gi].correctedOverRaw ?? 1);
-    const removesCom = removeCom && g.atoms.length === traj.nAtoms;
-    const dof = g.label === 'all' && options.degreesOfFreedom !== undefined ? options.degreesOfFreedom : d * g.atoms.length - (removesCom ? d : 0);
+    const dof = groupShare(counted, g.atoms.length, traj.nAtoms, d);
     const kTkin = kinetic / dof;
     const kT = options.normalisationTemperatureK !== undefined ? BOLTZMANN_ENGINE * options.normalisationTemperatureK : kTkin;
     const scale = windowed[gi] > 0 ? (2 / kT) * (plain[gi] / windowed[gi]) : 0;
@@ -169,6 +179,7 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
     };
   });
   const all = groups[0];
+  const temperature = chooseTemperature(all.kineticTemperatureK, options.thermoTemperatureK, options.statedTemperatureK);
   let totalMass = 0;
   for (const a of sel.groups[0].atoms) totalMass += sel.masses[a];
   return {
@@ -186,7 +197,9 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
     differenceCorrection: corrections?.[0] ?? null,
     warnings: corrections ? coarseSamplingWarnings(corrections[0], dt) : [],
     groups,
-    thermo: harmonicThermo(freqTHz, all.dosPerThz, options.thermoTemperatureK ?? all.kineticTemperatureK, all.nAtoms, totalMass),
+    degreesOfFreedomRule: counted.rule,
+    temperature,
+    thermo: harmonicThermo(freqTHz, all.dosPerThz, temperature.usedK, all.nAtoms, totalMass),
     thermoNote:
       'Harmonic weights treat every mode as an oscillator; for liquids the ν→0 (diffusive) part makes the entropy approximate.',
   };

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { basename } from 'node:path';
 import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-params.ts';
-import { runAnalyses, type AnalysisRun } from '../analysis/index.ts';
+import { runAnalyses, type AnalysisRun, type SimulationFacts } from '../analysis/index.ts';
 import { assembleTrajectory } from '../formats/assemble.ts';
 import { inspectTrajectory, type InspectResult } from '../formats/inspect.ts';
 import { openTrajectory } from '../formats/open-trajectory.ts';
@@ -20,6 +20,8 @@ export interface AnalyzeFileOptions {
   /** Time between frames in `timeUnit`, when the file states none. */
   timeStep?: number;
   boundary?: 'periodic' | 'walls' | 'none';
+  /** What the simulation states (temperature, constraints), as a trajectory's metadata would. */
+  facts?: SimulationFacts;
 }
 
 /** The report document the API serves, less the ids that only exist on a server. */
@@ -51,7 +53,7 @@ export async function analyzeFile(path: string, options: AnalyzeFileOptions): Pr
     length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit,
     timeStepPs: timeStep ? timeStep * TIME_TO_PS[options.timeUnit] : undefined, boundary: options.boundary,
   }, { atoms: info.atoms, frames: info.frames }, name);
-  const run = runAnalyses(traj, options.analyses, options.params);
+  const run = runAnalyses(traj, options.analyses, options.params, undefined, options.facts);
   return {
     info,
     report: {

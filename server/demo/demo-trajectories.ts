@@ -59,6 +59,8 @@ export const DEMO_TRAJECTORIES: DemoTrajectory[] = [
     project: 'Small-molecule vibrations', fileName: 'model-diatomics-300K.extxyz', analyses: ['thermo', 'vacf', 'vdos'],
     metadata: {
       temperatureK: 300, ensemble: 'NVE', potential: 'Harmonic bond, 2143 cm⁻¹ model stretch (invented)', engine: ENGINE,
+      // The molecules never rotate: two rotational degrees of freedom per molecule are frozen.
+      constraints: 2 * 64,
       notes: 'Invented demo run: 64 non-rotating harmonic C–O model molecules, for a sharp VDOS line.',
     },
     simulate: () => simulateHarmonicDiatomics({

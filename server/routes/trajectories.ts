@@ -15,7 +15,7 @@ function metadataFromFields(fields: Record<string, unknown>) {
   const parsed: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(fields ?? {})) {
     if (typeof value !== 'string' || value.trim() === '') continue;
-    parsed[key] = ['temperatureK', 'timeStep'].includes(key) ? Number(value) : value;
+    parsed[key] = ['temperatureK', 'timeStep', 'constraints'].includes(key) ? Number(value) : value;
   }
   return trajectoryMetadataSchema.safeParse(parsed);
 }

@@ -20,7 +20,7 @@ export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string, projec
     atoms: row.atoms, frames: row.frames, speciesCounts: row.speciesCounts ?? null, cell: row.cell ?? null,
     cellChanges: row.cellChanges, hasVelocities: row.hasVelocities, timeStep: row.timeStep,
     timeUnit: row.timeUnit, lengthUnit: row.lengthUnit, velocityUnit: row.velocityUnit,
-    temperatureK: row.temperatureK, ensemble: row.ensemble, boundary: row.boundary,
+    temperatureK: row.temperatureK, ensemble: row.ensemble, boundary: row.boundary, constraints: row.constraints,
     potential: row.potential, engine: row.engine, notes: row.notes, fromFile: row.fromFile ?? [],
     fileValues: row.fileValues ?? [], fileQuantities: row.fileQuantities ?? null,
     interactionModelSource: row.interactionModel ? 'trajectory' : projectHasModel ? 'project' : null,

@@ -59,6 +59,12 @@ describe('the demo lab seed', () => {
       expect(energy.nveCheck).not.toBeNull();
     }
 
+    // The diatomics do not rotate: stated with 2 constraints per molecule they read their 300 K
+    // (a 64-molecule canonical sample, so within 5 %), not the 196 K that 3N − 3 would give.
+    const diatomics = (byFile.get('model-diatomics-300K.extxyz')!.summary as { thermo: { temperatureK: { mean: number }; degreesOfFreedom: number } }).thermo;
+    expect(diatomics.degreesOfFreedom).toBe(3 * 128 - 128 - 3);
+    expect(Math.abs(diatomics.temperatureK.mean / 300 - 1)).toBeLessThan(0.05);
+
     const again = await seedDemo(ctx, () => {});
     await again.ready;
     expect(await ctx.db.select().from(users).where(inArray(users.email, DEMO_ACCOUNTS.map((a) => a.email)))).toHaveLength(2);

@@ -175,6 +175,18 @@ describe('trajectory metadata, frames and cuts', () => {
     expect(res.body.trajectory.fromFile).not.toContain('timeStep');
   });
 
+  it('when the uploader states the constraints, then they are stored; a negative or fractional count is refused by name', async () => {
+    const res = await script.patch(`/api/trajectories/${id}`, { constraints: 12 });
+    expect(res.status).toBe(200);
+    expect(res.body.trajectory.constraints).toBe(12);
+    for (const bad of [-1, 2.5]) {
+      const refused = await script.patch(`/api/trajectories/${id}`, { constraints: bad });
+      expect(refused.status).toBe(400);
+      expect(refused.body.error.message).toMatch(/constraints/);
+    }
+    await script.patch(`/api/trajectories/${id}`, { constraints: null });
+  });
+
   it('when metadata values are out of range, then every bad field is named', async () => {
     const res = await script.patch(`/api/trajectories/${id}`, { temperatureK: -5, lengthUnit: 'furlong' });
     expect(res.status).toBe(400);

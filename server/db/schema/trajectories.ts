@@ -4,7 +4,7 @@ import type { InteractionModel } from '../../../shared/interaction-model.ts';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { projects } from './projects.ts';
 import { users } from './users.ts';
-import { BOUNDARIES, ENSEMBLES, TRAJECTORY_STATUSES } from '../../../shared/trajectory.ts';
+import { BOUNDARIES, ENSEMBLES, TRAJECTORY_STATUSES, type SpeciesElement } from '../../../shared/trajectory.ts';
 
 export const trajectoryStatuses = TRAJECTORY_STATUSES;
 export const ensembles = ENSEMBLES;
@@ -35,6 +35,12 @@ export const trajectories = mysqlTable('trajectories', {
   temperatureK: double('temperature_k'),
   ensemble: mysqlEnum('ensemble', ensembles),
   boundary: mysqlEnum('boundary', boundaries).notNull().default('periodic'),
+  /** Axes along which a periodic trajectory is periodic ("xyz", "xy" for a slab…); null means all three. */
+  periodicAxes: varchar('periodic_axes', { length: 3 }),
+  /** Holonomic constraints of the whole system (rigid bonds, frozen rotations); null means none stated. */
+  constraints: int('constraints'),
+  /** Element and mass per species label: read from the file, assumed by inspection, or confirmed by a user. */
+  speciesElements: json('species_elements').$type<Record<string, SpeciesElement>>(),
   potential: varchar('potential', { length: 255 }).notNull().default(''),
   engine: varchar('engine', { length: 255 }).notNull().default(''),
   notes: text('notes').notNull().default(''),

@@ -59,11 +59,12 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     for (const [i, stage] of stages.entries()) {
       await checkpoint(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * i) / stages.length, true);
       inEngine = true;
+      const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
       const part = runAnalyses(traj, stage, params, (f) => {
         // The engine is synchronous; progress is sent without waiting and the
         // cancellation check happens between stages.
         void job.updateProgress(Math.round(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * (i + f)) / stages.length));
-      });
+      }, facts);
       inEngine = false;
       result = result ? merge(result, part) : part;
     }
@@ -134,7 +135,7 @@ function inputDescription(t: TrajectoryRow) {
   return {
     file: t.name, sha256: t.sha256, format: t.format, compression: t.compression, atoms: t.atoms, frames: t.frames,
     timeStep: t.timeStep, timeUnit: t.timeUnit, lengthUnit: t.lengthUnit, velocityUnit: t.velocityUnit,
-    boundary: t.boundary, ensemble: t.ensemble, temperatureK: t.temperatureK, potential: t.potential, engine: t.engine,
+    boundary: t.boundary, ensemble: t.ensemble, temperatureK: t.temperatureK, constraints: t.constraints, potential: t.potential, engine: t.engine,
   };
 }
 

@@ -54,4 +54,21 @@ describe('headline cards', () => {
     expect(card!.detail).toContain('velocities from positions, finite-difference damping corrected (×1.97)');
     expect(card!.warning).toBe('Frames are 5.00 fs apart and carry no velocities …');
   });
+
+  it('when the heat capacity card is built, then it names the temperature used, the stated one, and carries the 5 % warning', () => {
+    const zero = { perAtomKB: 0, jPerMolK: 0, jPerGK: 0 };
+    const vdos: NonNullable<ReportSummary['vdos']> = {
+      temperatureK: 196.2, temperatureSource: 'kinetic', kineticTemperatureK: 196.2, statedTemperatureK: 300,
+      temperatureWarning: 'The kinetic temperature 196.2 K is 35 % below the stated 300.0 K: check the constraints.',
+      peaks: [], cv: { quantum: { perAtomKB: 1.1, jPerMolK: 9.1, jPerGK: 0.3 }, classical: zero }, entropy: { quantum: zero, classical: zero },
+      zeroPoint: { evPerAtom: 0.06, kJPerMol: 6 }, modes: 381,
+    };
+    const cv = headlineCards({ vdos }, 'a2PerPs').find((c) => c.id === 'cv')!;
+    expect(cv.title).toBe('Heat capacity Cv at 196.2 K');
+    expect(cv.detail).toContain('at 196.2 K, the kinetic temperature; stated 300 K');
+    expect(cv.warning).toMatch(/35 % below the stated 300\.0 K/);
+    const chosen = headlineCards({ vdos: { ...vdos, temperatureSource: 'chosen', temperatureK: 250, temperatureWarning: null } }, 'a2PerPs').find((c) => c.id === 'cv')!;
+    expect(chosen.detail).toContain('at 250 K, the temperature chosen for this analysis; kinetic 196.2 K; stated 300 K');
+    expect(chosen.warning).toBeNull();
+  });
 });

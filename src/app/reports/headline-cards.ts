@@ -54,11 +54,20 @@ function fromPositions(source: string | undefined, factor: number | undefined): 
 
 function thermoCard(s: NonNullable<ReportSummary['thermo']>): HeadlineCard {
   const density = s.densityGPerCm3 ? ` · density ${formatWithError(s.densityGPerCm3.mean, s.densityGPerCm3.stdError)} g/cm³` : '';
+  const stated = s.statedTemperatureK ? ` · stated ${formatNumber(s.statedTemperatureK, 4)} K` : '';
   return {
     id: 'thermo', title: 'Mean temperature', value: formatWithError(s.temperatureK.mean, s.temperatureK.stdError), unit: 'K',
-    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${density}`,
+    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${stated}${density}`,
     warning: joined([...(s.warnings ?? []), s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.']),
   };
+}
+
+/** Names the temperature a harmonic quantity was evaluated at, and the stated one beside it. */
+function temperatureUsed(s: NonNullable<ReportSummary['vdos']>): string {
+  const source = s.temperatureSource === 'chosen' ? 'the temperature chosen for this analysis' : s.temperatureSource === 'kinetic' ? 'the kinetic temperature' : 'the analysis temperature';
+  const stated = s.statedTemperatureK ? `; stated ${formatNumber(s.statedTemperatureK, 4)} K` : '';
+  const kinetic = s.temperatureSource === 'chosen' && s.kineticTemperatureK !== undefined ? `; kinetic ${formatNumber(s.kineticTemperatureK, 4)} K` : '';
+  return `at ${formatNumber(s.temperatureK, 4)} K, ${source}${kinetic}${stated}`;
 }
 
 function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
@@ -72,8 +81,8 @@ function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
     },
     {
       id: 'cv', title: `Heat capacity Cv at ${T} K`, value: formatNumber(s.cv.quantum.perAtomKB, 4), unit: 'k_B per atom',
-      detail: `Quantum harmonic; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom`,
-      warning: null,
+      detail: `Quantum harmonic ${temperatureUsed(s)}; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom`,
+      warning: joined([s.temperatureWarning, ...(s.warnings ?? [])]),
     },
   ];
 }

@@ -47,7 +47,9 @@ function thermoParagraph(s: NonNullable<ReportSummary['thermo']>, m: Json): Meth
       `so the series was scaled by ${f(factor, 4)}, the ratio of the corrected to the raw velocity spectrum of the run`;
   return {
     heading: 'Temperature',
-    body: `Instantaneous temperature from the kinetic energy by equipartition, T = 2K/(f·k_B), with f = ${s.degreesOfFreedom} degrees of freedom, from ${source}. ` +
+    body: `Instantaneous temperature from the kinetic energy by equipartition, T = 2K/(f·k_B), with f = ${s.degreesOfFreedomRule ?? s.degreesOfFreedom} degrees of freedom ` +
+      `(3N − constraints − 3 with the centre-of-mass motion removed, unless given), from ${source}. ` +
+      (s.statedTemperatureK ? `The simulation states ${f(s.statedTemperatureK)} K. ` : '') +
       `Errors of ensemble averages by Flyvbjerg–Petersen blocking (plateau at blocking level ${f(num(m, 'blockingPlateauLevel'), 3)}). ` +
       `Equilibration judged by comparing the first and last thirds of the run: ${s.equilibrated ? 'no significant drift' : 'a significant drift was found'}.` +
       warned(s.warnings),
@@ -75,6 +77,14 @@ function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsP
   };
 }
 
+/** Which temperature the harmonic quantities used, by the one rule: kinetic unless one was chosen, the stated one beside. */
+function temperatureChoice(s: NonNullable<ReportSummary['vdos']>): string {
+  const used = s.temperatureSource === 'chosen'
+    ? `chosen for this analysis; the kinetic temperature was ${f(s.kineticTemperatureK ?? null)} K`
+    : `the kinetic temperature of the spectrum with ${s.degreesOfFreedomRule ?? 'the counted'} degrees of freedom`;
+  return s.statedTemperatureK ? `${used}; the simulation states ${f(s.statedTemperatureK)} K` : used;
+}
+
 function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: Json): MethodsParagraph {
   const dc = s.differenceCorrection;
   const correction = dc
@@ -88,8 +98,8 @@ function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: J
     body: `VDOS as the mass-weighted power spectrum of the atoms' windowed velocities, S(ν) = (2/k_BT)·Σ m·|Σ_t w(t)·v(t)·e^{−2πiνt}|²·Δt/Σw², ` +
       `non-negative at every frequency (${windowName(text(m, 'window') ?? text(params, 'window'))}, ${averaged}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
       `bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
-      `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K, beside the classical (Dulong–Petit) limit.` +
-      `${correction}${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}${warned(s.warnings)}`,
+      `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K (${temperatureChoice(s)}), beside the classical (Dulong–Petit) limit.` +
+      `${correction}${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}${warned([...(s.temperatureWarning ? [s.temperatureWarning] : []), ...(s.warnings ?? [])])}`,
   };
 }
 

@@ -97,16 +97,17 @@ import { TrajectoriesApi } from './trajectories-api';
             <mat-form-field appearance="outline">
               <mat-label>Temperature for Cv (K)</mat-label>
               <input matInput type="number" formControlName="temperatureK" min="0" step="any">
-              <mat-hint>Empty: the kinetic temperature</mat-hint>
+              <mat-hint>Empty: the kinetic temperature{{ t.temperatureK !== null ? '; stated ' + t.temperatureK + ' K is shown beside it' : '' }}</mat-hint>
             </mat-form-field>
             <mat-form-field appearance="outline">
               <mat-label>Degrees of freedom</mat-label>
               <input matInput type="number" formControlName="degreesOfFreedom" min="1" step="1">
-              <mat-hint>Empty: 3N − 3 − constraints</mat-hint>
+              <mat-hint>Empty: 3N − constraints − 3</mat-hint>
             </mat-form-field>
             <mat-form-field appearance="outline">
               <mat-label>Constraints</mat-label>
               <input matInput type="number" formControlName="constraints" min="0" step="1">
+              <mat-hint>Empty: as stated with the trajectory ({{ t.constraints ?? 0 }})</mat-hint>
             </mat-form-field>
             <h3>Structure (g(r), S(q))</h3>
             <mat-form-field appearance="outline">
@@ -170,8 +171,8 @@ export class AnalysisDialog {
   protected readonly form = inject(FormBuilder).nonNullable.group({
     species: [[] as string[]], maxLagPs: null as number | null, removeComDrift: true, fitMode: 'auto' as AdvancedSettings['fitMode'], fitStartPs: null as number | null, fitEndPs: null as number | null,
     gkMode: 'auto' as AdvancedSettings['gkMode'], gkStartPs: null as number | null, gkEndPs: null as number | null,
-    window: 'hann' as AdvancedSettings['window'], zeroPadFactor: 1, temperatureK: this.t.temperatureK as number | null,
-    degreesOfFreedom: null as number | null, constraints: 0, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
+    window: 'hann' as AdvancedSettings['window'], zeroPadFactor: 1, temperatureK: null as number | null,
+    degreesOfFreedom: null as number | null, constraints: null as number | null, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
     sqWindow: 'lorch' as AdvancedSettings['sqWindow'],
   });
 

@@ -5,7 +5,7 @@ import { buildParams, type AdvancedSettings } from './analysis-params-form';
 const defaults: AdvancedSettings = {
   species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null,
   gkMode: 'auto', gkStartPs: null, gkEndPs: null, window: 'hann', zeroPadFactor: 1, temperatureK: null,
-  degreesOfFreedom: null, constraints: 0, rMaxA: null, binWidthA: 0.05, pair: null, sqWindow: 'lorch',
+  degreesOfFreedom: null, constraints: null, rMaxA: null, binWidthA: 0.05, pair: null, sqWindow: 'lorch',
 };
 
 describe('advanced analysis settings', () => {
@@ -23,5 +23,11 @@ describe('advanced analysis settings', () => {
   });
   it('when a species pair is chosen, then it is sent as two species', () => {
     expect(buildParams({ ...defaults, pair: 'Na–Cl' }).params.pair).toEqual(['Na', 'Cl']);
+  });
+  it('when temperature and constraints are left empty, then neither is sent, so the kinetic temperature and the trajectory\'s constraints apply', () => {
+    const { params } = buildParams(defaults);
+    expect(params).not.toHaveProperty('temperatureK');
+    expect(params).not.toHaveProperty('constraints');
+    expect(buildParams({ ...defaults, constraints: 0, temperatureK: 250 }).params).toMatchObject({ constraints: 0, temperatureK: 250 });
   });
 });

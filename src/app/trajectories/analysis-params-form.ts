@@ -15,7 +15,8 @@ export interface AdvancedSettings {
   zeroPadFactor: number;
   temperatureK: number | null;
   degreesOfFreedom: number | null;
-  constraints: number;
+  /** Null: the constraints stated with the trajectory. */
+  constraints: number | null;
   rMaxA: number | null;
   binWidthA: number;
   /** "A–B" or null for every pair. */
@@ -43,13 +44,13 @@ export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput;
     greenKuboWindow: window(s.gkMode, s.gkStartPs, s.gkEndPs, 'Green–Kubo plateau window'),
     window: s.window,
     zeroPadFactor: s.zeroPadFactor,
-    constraints: s.constraints,
     binWidthA: s.binWidthA,
     sqWindow: s.sqWindow,
   };
   if (given(s.maxLagPs)) params.maxLagPs = s.maxLagPs;
   if (given(s.temperatureK)) params.temperatureK = s.temperatureK;
   if (given(s.degreesOfFreedom)) params.degreesOfFreedom = s.degreesOfFreedom;
+  if (given(s.constraints)) params.constraints = s.constraints;
   if (given(s.rMaxA)) params.rMaxA = s.rMaxA;
   if (s.pair) {
     const [a, b] = s.pair.split('–');

@@ -73,6 +73,12 @@ import { TrajectoriesApi } from './trajectories-api';
           </mat-select>
           @if (fromFile('boundary')) { <span matSuffix class="from-file">from file</span> }
         </mat-form-field>
+        <mat-form-field appearance="outline">
+          <mat-label>Constraints</mat-label>
+          <input matInput type="number" formControlName="constraints" min="0" step="1">
+          <mat-hint>Rigid bonds and frozen rotations: 3 per rigid water, 2 per non-rotating diatomic</mat-hint>
+          @if (form.controls.constraints.hasError('min') || form.controls.constraints.hasError('pattern')) { <mat-error>Constraints are a whole number, 0 or more.</mat-error> }
+        </mat-form-field>
         <mat-form-field appearance="outline" class="wide">
           <mat-label>Potential or force field</mat-label>
           <input matInput formControlName="potential">
@@ -122,6 +128,7 @@ export class MetadataDialog {
     lengthUnit: [this.t.lengthUnit as NonNullable<TrajectoryMetadata['lengthUnit']>],
     velocityUnit: [this.t.velocityUnit as NonNullable<TrajectoryMetadata['velocityUnit']>],
     boundary: [this.t.boundary as NonNullable<TrajectoryMetadata['boundary']>],
+    constraints: [this.t.constraints, [Validators.min(0), Validators.pattern(/^\d+$/)]],
     potential: [this.t.potential],
     engine: [this.t.engine],
     notes: [this.t.notes],
