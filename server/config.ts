@@ -57,6 +57,8 @@ const configSchema = z.object({
   STATIC_DIR: z.string().default('dist/ergodic/browser'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   TRUST_PROXY: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  /** Multiplies every API rate limit; 1 in production, raised for test and load-test runs. */
+  RATE_LIMIT_FACTOR: z.coerce.number().positive().default(1),
 });
 
 export type Config = z.infer<typeof configSchema>;

@@ -11,7 +11,9 @@ export async function startTestStack(log: (m: string) => void = () => {}): Promi
   try {
     const stack = await startStack({ dataDir, ports, persistent: false, dbPassword: 'ergodic-test', log });
     return {
-      env: { ...stack.env, SESSION_SECRET: 'ergodic-test-session-secret-0123456789', NODE_ENV: 'test', LOG_LEVEL: 'warn' },
+      env: { ...stack.env, SESSION_SECRET: 'ergodic-test-session-secret-0123456789', NODE_ENV: 'test', LOG_LEVEL: 'warn',
+        // Suites sign up hundreds of accounts from one address; the rate-limit tests set their own factor.
+        RATE_LIMIT_FACTOR: '1000' },
       async stop() {
         await stack.stop();
         rmSync(dataDir, { recursive: true, force: true });

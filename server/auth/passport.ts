@@ -18,7 +18,7 @@ export function passportFor(ctx: AppContext): Authenticator {
   instance = new passport.Passport();
   instance.use('local', new LocalStrategy({ usernameField: 'email', passwordField: 'password', passReqToCallback: true },
     (req, email, password, done) => {
-      checkCredentials(ctx.db, { email, password, ip: req.ip ?? 'unknown' }).then((user) => done(null, user), done);
+      checkCredentials(ctx, { email, password, ip: req.ip ?? 'unknown' }).then((user) => done(null, user), done);
     }));
   instance.serializeUser((user, done) => done(null, user.id));
   // Re-read on every request: a disabled account loses its sessions at once.

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { currentUser } from '../auth/authorize.ts';
+import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { createAccessLink, listAccessLinks, resolveAccessLink, revokeAccessLink } from '../services/access-links.ts';
 import { getReport } from '../services/reports.ts';
@@ -12,6 +13,7 @@ import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 
 /** Read-only, expiring, revocable links to one report, for readers outside the project. */
 export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
+  const limits = apiRateLimits(ctx);
   return [
     {
       method: 'post', path: '/reports/:id/access-link', access: { kind: 'project', role: 'editor', via: 'report' },
@@ -47,6 +49,7 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/links/:token', access: { kind: 'public' },
       summary: 'The report behind a valid, unexpired, unrevoked link, read only, and when the link expires.',
       response: wrapped('link', linkedReportSchema),
+      before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
@@ -57,6 +60,7 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/links/:token/export.json', access: { kind: 'public' },
       summary: 'The report document behind a link, as a download.',
       response: download('application/json', 'The report document: the same object as `report` in GET /api/reports/{id}.', reportSchema),
+      before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
@@ -68,6 +72,7 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/links/:token/curves/:curve.csv', access: { kind: 'public' },
       summary: 'One curve of the report behind a link, as CSV with units in the header.',
       response: download('text/csv', 'The curve as CSV: a header row of columns with units, then one row per point.'),
+      before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token, curve } = params(req, { token: secretTokenField, curve: curveField });
         const link = await resolveAccessLink(ctx.db, token);

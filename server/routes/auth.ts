@@ -2,6 +2,7 @@ import { currentUser } from '../auth/authorize.ts';
 import { issueXsrfCookie } from '../auth/csrf.ts';
 import { endSession, signInWithPassword, startSession } from '../auth/passport.ts';
 import { cookiesAreSecure, SESSION_COOKIE } from '../auth/session.ts';
+import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { registerUser } from '../services/accounts.ts';
 import { confirmPasswordReset, requestPasswordReset } from '../services/password-reset.ts';
@@ -12,12 +13,14 @@ import { appOrigin, body } from './request-parts.ts';
 import { noContent, wrapped, type RouteDef } from './route-table.ts';
 
 export function authRoutes(ctx: AppContext): RouteDef[] {
+  const limits = apiRateLimits(ctx);
   const secure = cookiesAreSecure(ctx);
   return [
     {
       method: 'post', path: '/auth/register', access: { kind: 'public' },
       summary: 'Creates an account (the first account of an instance is its admin) and signs in.',
       request: { body: registerBody }, response: wrapped('user', signedInUserSchema, 201),
+      before: [limits.registration],
       handler: async (req, res) => {
         const user = await registerUser(ctx.db, body(req, registerBody));
         await startSession(req, user);
@@ -59,6 +62,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
       method: 'post', path: '/auth/password-reset', access: { kind: 'public' },
       summary: 'Mails a single-use reset link valid 60 minutes; answers 202 whether or not the account exists.',
       request: { body: passwordResetBody }, response: wrapped('message', noticeSchema, 202),
+      before: [limits.passwordReset],
       handler: (req, res) => {
         const { email } = body(req, passwordResetBody);
         // Sent in the background so the answer takes as long whether or not the account exists.
@@ -71,6 +75,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
       method: 'post', path: '/auth/password-reset/confirm', access: { kind: 'public' },
       summary: "Sets a new password with a reset token, ends the account's other sessions and signs in.",
       request: { body: passwordResetConfirmBody }, response: wrapped('user', signedInUserSchema),
+      before: [limits.passwordResetConfirm],
       handler: async (req, res) => {
         const { token, password } = body(req, passwordResetConfirmBody);
         const user = await confirmPasswordReset(ctx, token, password);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { authorizedProject, currentUser } from '../auth/authorize.ts';
+import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { getProject } from '../services/projects.ts';
 import { acceptInvitation, createInvitation, describeInvitation, listPendingInvitations, revokeInvitation } from '../services/invitations.ts';
@@ -9,6 +10,7 @@ import { appOrigin, body, idField, params } from './request-parts.ts';
 import { noContent, wrapped, type RouteDef } from './route-table.ts';
 
 export function invitationRoutes(ctx: AppContext): RouteDef[] {
+  const limits = apiRateLimits(ctx);
   return [
     {
       method: 'get', path: '/projects/:id/invitations', access: { kind: 'project', role: 'owner', via: 'project' },
@@ -22,6 +24,7 @@ export function invitationRoutes(ctx: AppContext): RouteDef[] {
       method: 'post', path: '/projects/:id/invitations', access: { kind: 'project', role: 'owner', via: 'project' },
       summary: 'Mails a single-use invitation link valid 7 days.',
       request: { body: inviteBody }, response: wrapped('invitation', pendingInvitationSchema, 201),
+      before: [limits.invitationsToOneAddress, limits.invitations],
       handler: async (req, res) => {
         const { email, role } = body(req, inviteBody);
         const invitation = await createInvitation(ctx, {
@@ -44,6 +47,7 @@ export function invitationRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/invitations/:invitationToken', access: { kind: 'public' },
       summary: 'What an invitation offers: project, role, address.',
       response: wrapped('invitation', invitationFactsSchema),
+      before: [limits.invitationReads],
       handler: async (req, res) => {
         const { invitationToken } = params(req, { invitationToken: secretTokenField });
         res.json({ invitation: await describeInvitation(ctx.db, invitationToken) });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
+import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { badRequest } from '../errors.ts';
 import {
@@ -21,6 +22,7 @@ function metadataFromFields(fields: Record<string, unknown>) {
 }
 
 export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
+  const limits = apiRateLimits(ctx);
   return [
     {
       method: 'get', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'viewer', via: 'project' },
@@ -37,7 +39,7 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
       request: { upload: { fileField: 'file', fields: trajectoryMetadataSchema } },
       response: wrapped('trajectory', trajectorySchema, 201),
       // Streams while multer reads the body; `before` runs after the access check, so nothing is stored for a caller without rights.
-      before: [trajectoryUpload(ctx)],
+      before: [limits.uploads, trajectoryUpload(ctx)],
       handler: async (req, res) => {
         const file = req.file;
         if (!file?.trajectoryId || !file.objectKey || file.sizeBytes === undefined || !file.sha256) {

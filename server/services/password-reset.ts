@@ -10,7 +10,7 @@ import { revokeAllApiTokens } from './api-tokens.ts';
 import { recordAudit } from './audit.ts';
 import { hashPassword } from './passwords.ts';
 import { endSessionsOf } from './sessions.ts';
-import { clearSignInFailures } from './sign-in-limit.ts';
+import { forgiveAccount } from './sign-in-limit.ts';
 
 export const RESET_VALID_MINUTES = 60;
 /** Caps reset e-mails per account, so the form cannot be used to flood someone's inbox. */
@@ -41,7 +41,7 @@ export async function requestPasswordReset(ctx: AppContext, email: string, origi
  * Sets a new password with a reset token, which then stops working. In one
  * transaction: the token is claimed, the password changed, the account's
  * other reset links, sessions and API tokens are ended, and its failed
- * sign-ins forgiven. Either all of it happens or none.
+ * sign-ins forgiven afterwards. Either all of it happens or none.
  */
 export async function confirmPasswordReset(ctx: AppContext, token: string, password: string, now = new Date()): Promise<CurrentUser> {
   const tokenHash = sha256Hex(token);
@@ -63,8 +63,10 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
       .where(and(eq(passwordResets.userId, user.id), isNull(passwordResets.usedAt)));
     const revokedTokens = await revokeAllApiTokens(tx, user.id, 'password_reset', now);
     await endSessionsOf(tx, user.id);
-    await clearSignInFailures(tx, user.email);
     await recordAudit(tx, { projectId: null, actorId: user.id, action: 'user.password_reset', details: { revokedTokens } });
     return toCurrentUser(user);
+  }).then(async (user) => {
+    await forgiveAccount(ctx.counters, user.email).catch(() => {});
+    return user;
   });
 }

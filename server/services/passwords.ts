@@ -1,3 +1,4 @@
+import { passwordHashGate } from './hash-gate.ts';
 import { randomBytes, scrypt as scryptCallback, timingSafeEqual, type ScryptOptions } from 'node:crypto';
 
 /** scrypt cost parameters: 64 MiB of memory per hash makes guessing expensive. */
@@ -6,8 +7,8 @@ const KEY_LENGTH = 64;
 
 function scrypt(password: string, salt: Buffer, params: { N: number; r: number; p: number }): Promise<Buffer> {
   const options: ScryptOptions = { ...params, maxmem: 256 * params.N * params.r };
-  return new Promise((resolve, reject) =>
-    scryptCallback(password.normalize('NFKC'), salt, KEY_LENGTH, options, (err, key) => (err ? reject(err) : resolve(key))));
+  return passwordHashGate.run(() => new Promise((resolve, reject) =>
+    scryptCallback(password.normalize('NFKC'), salt, KEY_LENGTH, options, (err, key) => (err ? reject(err) : resolve(key)))));
 }
 
 /** `scrypt$N$r$p$salt$hash` (base64): the parameters travel with the hash so they can be raised later. */
