@@ -30,6 +30,12 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
 export function errorHandler(log: Logger): ErrorRequestHandler {
   return (error, _req, res, _next) => {
     let err: unknown = error;
+    // A streamed answer that fails half-way cannot become an error document: the connection is cut instead.
+    if (res.headersSent) {
+      log.warn({ err: error instanceof Error ? error.message : String(error) }, 'answer failed while streaming');
+      res.destroy();
+      return;
+    }
     if (err instanceof ZodError) {
       const details = err.issues.map((i) => ({ field: i.path.join('.'), message: i.message }));
       const message = details.map((d) => (d.field ? `${d.field}: ${d.message}` : d.message)).join('; ');

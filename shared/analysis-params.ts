@@ -19,8 +19,29 @@ export type SqWindow = (typeof SQ_WINDOWS)[number];
 export const COMPONENT_SETS = ['xyz', 'xy', 'xz', 'yz', 'x', 'y', 'z'] as const;
 export type ComponentSet = (typeof COMPONENT_SETS)[number];
 
+/**
+ * Bounds on every setting, so a value that would make a job run for hours,
+ * a report of hundreds of megabytes or a typed-array error is refused with
+ * 400 before any job starts. They are generous for real systems: 1 ms of
+ * simulated time, 10 000 Å, 20 000 bins.
+ */
+export const PARAM_LIMITS = {
+  maxTimePs: 1e9,
+  maxLengthA: 10_000,
+  minBinWidthA: 0.005,
+  maxBins: 20_000,
+  maxSpecies: 64,
+  maxLabelLength: 32,
+  maxTemperatureK: 1e6,
+  maxDegreesOfFreedom: 3e9,
+  maxMassU: 1e6,
+} as const;
+
+const label = z.string().min(1).max(PARAM_LIMITS.maxLabelLength, `must be at most ${PARAM_LIMITS.maxLabelLength} characters`);
+const timePs = z.number().max(PARAM_LIMITS.maxTimePs, `must be at most ${PARAM_LIMITS.maxTimePs} ps`);
+
 const timeWindow = z
-  .object({ startPs: z.number().nonnegative(), endPs: z.number().positive() })
+  .object({ startPs: timePs.nonnegative(), endPs: timePs.positive() })
   .refine((w) => w.endPs > w.startPs, { message: 'The window must end after it starts.' });
 
 /** Fit window for D: automatic, or start/end in ps. */
@@ -29,28 +50,29 @@ export type FitWindow = z.infer<typeof fitWindowSchema>;
 
 export const analysisParamsSchema = z.object({
   /** Species to include; empty means all. */
-  species: z.array(z.string().min(1)).default([]),
+  species: z.array(label).max(PARAM_LIMITS.maxSpecies, `must list at most ${PARAM_LIMITS.maxSpecies} species`).default([]),
   /** Species pair for g(r) beside the total; absent means every pair. */
-  pair: z.tuple([z.string().min(1), z.string().min(1)]).optional(),
+  pair: z.tuple([label, label]).optional(),
   components: z.enum(COMPONENT_SETS).default('xyz'),
-  maxLagPs: z.number().positive().optional(),
+  maxLagPs: timePs.positive().optional(),
   fitWindow: fitWindowSchema.default({ mode: 'auto' }),
   greenKuboWindow: fitWindowSchema.default({ mode: 'auto' }),
   window: z.enum(SPECTRAL_WINDOWS).default('hann'),
   zeroPadFactor: z.number().int().min(1).max(16).default(1),
-  rMaxA: z.number().positive().optional(),
-  binWidthA: z.number().positive().max(1).default(0.05),
+  rMaxA: z.number().min(0.1, 'must be at least 0.1 Å').max(PARAM_LIMITS.maxLengthA, `must be at most ${PARAM_LIMITS.maxLengthA} Å`).optional(),
+  binWidthA: z.number().min(PARAM_LIMITS.minBinWidthA, `must be at least ${PARAM_LIMITS.minBinWidthA} Å`).max(1, 'must be at most 1 Å').default(0.05),
   sqWindow: z.enum(SQ_WINDOWS).default('lorch'),
-  qMaxInvA: z.number().positive().max(100).optional(),
+  qMaxInvA: z.number().min(0.1, 'must be at least 0.1 Å⁻¹').max(100, 'must be at most 100 Å⁻¹').optional(),
   /** Temperature for heat capacity, entropy and zero-point energy; default the kinetic temperature. */
-  temperatureK: z.number().positive().optional(),
+  temperatureK: z.number().positive().max(PARAM_LIMITS.maxTemperatureK, `must be at most ${PARAM_LIMITS.maxTemperatureK} K`).optional(),
   /** Total degrees of freedom; default 3N − constraints − 3 (centre of mass removed). */
-  degreesOfFreedom: z.number().int().positive().optional(),
+  degreesOfFreedom: z.number().int().positive().max(PARAM_LIMITS.maxDegreesOfFreedom).optional(),
   /** Holonomic constraints of the whole system; absent means those stated with the trajectory (else 0). */
-  constraints: z.number().int().nonnegative().optional(),
+  constraints: z.number().int().nonnegative().max(PARAM_LIMITS.maxDegreesOfFreedom).optional(),
   removeComDrift: z.boolean().default(true),
   /** Mass overrides in u, by species label or element symbol. */
-  masses: z.record(z.string().min(1), z.number().positive()).default({}),
+  masses: z.record(label, z.number().positive().max(PARAM_LIMITS.maxMassU, `must be at most ${PARAM_LIMITS.maxMassU} u`))
+    .refine((m) => Object.keys(m).length <= PARAM_LIMITS.maxSpecies, `must give at most ${PARAM_LIMITS.maxSpecies} masses`).default({}),
   /** Pair potentials for the energy analysis; by default the trajectory's (or its project's) stored model. */
   interactionModel: interactionModelSchema.optional(),
   /** Which per-frame file numbers are energies, pressure, temperature; by default the trajectory's metadata. */
@@ -61,6 +83,8 @@ export const analysisParamsSchema = z.object({
   driftThresholdKTPerNs: z.number().positive().max(1000).optional(),
   /** Barostat pressure for the NPT enthalpy, bar; default the mean virial pressure. */
   externalPressureBar: z.number().min(-1e7).max(1e7).optional(),
+}).refine((p) => p.rMaxA === undefined || p.rMaxA / p.binWidthA <= PARAM_LIMITS.maxBins, {
+  message: `rMaxA / binWidthA must be at most ${PARAM_LIMITS.maxBins} bins: widen the bins or shorten the range`, path: ['binWidthA'],
 });
 
 /** Parsed settings, defaults filled in. */

@@ -3,7 +3,8 @@ import { currentUser } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { createAccessLink, listAccessLinks, resolveAccessLink, revokeAccessLink } from '../services/access-links.ts';
-import { getReport } from '../services/reports.ts';
+import { getReportHead } from '../services/reports.ts';
+import { curvesPlaceholder, sendWithStoredCurves } from '../services/report-stream.ts';
 import { secretTokenField } from '../../shared/accounts.ts';
 import { linkedReportSchema, reportSchema } from '../../shared/report.ts';
 import { accessLinkSchema, createAccessLinkBody, newAccessLinkSchema } from '../../shared/sharing.ts';
@@ -53,7 +54,8 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
-        res.json({ link: { expiresAt: link.expiresAt.toISOString(), report: await getReport(ctx, link.reportId) } });
+        const { report, curvesKey } = await getReportHead(ctx, link.reportId);
+        await sendWithStoredCurves(ctx, req, res, { link: { expiresAt: link.expiresAt.toISOString(), report: { ...report, curves: curvesPlaceholder } } }, curvesKey);
       },
     },
     {
@@ -64,8 +66,9 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
+        const { report, curvesKey } = await getReportHead(ctx, link.reportId);
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${link.reportId}.json"`);
-        res.json(await getReport(ctx, link.reportId));
+        await sendWithStoredCurves(ctx, req, res, { ...report, curves: curvesPlaceholder }, curvesKey);
       },
     },
     {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context.ts';
-import { getReport, listReports } from '../services/reports.ts';
+import { getReportHead, listReports } from '../services/reports.ts';
+import { curvesPlaceholder, sendWithStoredCurves } from '../services/report-stream.ts';
 import { reportListItemSchema, reportSchema } from '../../shared/report.ts';
 import { curveField, sendCurveCsv } from './curve-csv.ts';
 import { idField, params } from './request-parts.ts';
@@ -23,7 +24,8 @@ export function reportRoutes(ctx: AppContext): RouteDef[] {
       response: wrapped('report', reportSchema),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        res.json({ report: await getReport(ctx, id) });
+        const { report, curvesKey } = await getReportHead(ctx, id);
+        await sendWithStoredCurves(ctx, req, res, { report: { ...report, curves: curvesPlaceholder } }, curvesKey);
       },
     },
     {
@@ -32,8 +34,9 @@ export function reportRoutes(ctx: AppContext): RouteDef[] {
       response: download('application/json', 'The report document: the same object as `report` in GET /api/reports/{id}.', reportSchema),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
+        const { report, curvesKey } = await getReportHead(ctx, id);
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${id}.json"`);
-        res.json(await getReport(ctx, id));
+        await sendWithStoredCurves(ctx, req, res, { ...report, curves: curvesPlaceholder }, curvesKey);
       },
     },
     {

@@ -12,7 +12,23 @@ async function reportRow(ctx: AppContext, id: number) {
   return row;
 }
 
-/** The whole report with its curves, as members and access-link holders read it. */
+/**
+ * A report without its curves, and where they are stored: routes stream the
+ * curves from the store into the answer (see `sendWithStoredCurves`).
+ */
+export async function getReportHead(ctx: AppContext, id: number): Promise<{ report: Omit<ReportDto, 'curves'>; curvesKey: string }> {
+  const { r, trajectoryName } = await reportRow(ctx, id);
+  return {
+    curvesKey: r.curvesKey,
+    report: {
+      id: r.id, projectId: r.projectId, trajectoryId: r.trajectoryId, trajectoryName, runId: r.runId, title: r.title,
+      analyses: r.analyses, params: r.params, summary: r.summary as ReportDto['summary'], methods: r.methods,
+      engineVersion: r.engineVersion, inputSha256: r.inputSha256, createdAt: r.createdAt.toISOString(),
+    },
+  };
+}
+
+/** The whole report with its curves, parsed: for code that needs the numbers, not for answering requests. */
 export async function getReport(ctx: AppContext, id: number): Promise<ReportDto> {
   const { r, trajectoryName } = await reportRow(ctx, id);
   const curves = decodeCurves(await ctx.store.getBytes(r.curvesKey));

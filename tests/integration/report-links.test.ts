@@ -80,3 +80,24 @@ describe('a report read through an access link', () => {
     expect((await holder.get('/api/links/not-a-token/curves/msd.csv')).status).toBe(404);
   });
 });
+
+describe('reports are streamed from the stored curves', () => {
+  it('when a browser asks with Accept-Encoding gzip, then the answer is gzip and holds exactly the stored curves, for members and link holders alike', async () => {
+    const owner = await signUp(app, 'stream');
+    const reportId = await projectWithReport(owner);
+    const { token } = await linkFor(owner, reportId);
+    const member = await owner.client.raw('get', `/api/reports/${reportId}`).set('Accept-Encoding', 'gzip');
+    expect(member.status).toBe(200);
+    expect(member.headers['content-encoding']).toBe('gzip');
+    expect(member.headers['content-type']).toMatch(/application\/json/);
+    expect(member.body.report.curves.msd).toEqual({ columns: FIXTURE_MSD_CURVE.columns, units: FIXTURE_MSD_CURVE.units, data: FIXTURE_MSD_CURVE.data.map((c) => Array.from(c)) });
+    const plain = await owner.client.raw('get', `/api/reports/${reportId}`).set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body).toEqual(member.body);
+    const holder = await new ApiClient(app).send('get', `/api/links/${token}`, undefined, { 'Accept-Encoding': 'gzip' });
+    expect(holder.body.link.report).toEqual(member.body.report);
+    const exported = await owner.client.raw('get', `/api/reports/${reportId}/export.json`).buffer(true);
+    expect(exported.headers['content-disposition']).toMatch(/ergodic-report-\d+\.json/);
+    expect(JSON.parse(exported.text)).toEqual(member.body.report);
+  });
+});
