@@ -19,6 +19,6 @@ export function identityMiddleware(ctx: AppContext): RequestHandler[] {
     authenticator.initialize(),
     authenticator.session(),
     bearerIdentity(ctx),
-    csrfProtection(cookiesAreSecure(ctx)),
+    csrfProtection(ctx.config.SESSION_SECRET, cookiesAreSecure(ctx)),
   ];
 }

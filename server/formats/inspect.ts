@@ -5,6 +5,7 @@
  * soon as they are checked, so memory does not grow with the file.
  */
 import { createHash } from 'node:crypto';
+import { assertFiniteFrame } from './finite-values.ts';
 import { TrajectoryFormatError, type Compression, type Frame, type FrameOffset, type TrajectoryFormat } from './frame.ts';
 import { openTrajectory, type ByteSource } from './open-trajectory.ts';
 import type { ReaderLimits } from './limits.ts';
@@ -86,7 +87,10 @@ export async function inspectTrajectory(
   const valueKeys = new Set<string>();
   const file = opened.entryName ? `${name}/${opened.entryName}` : name;
 
+  let frameStartLine = 1;
   for await (const frame of opened.frames) {
+    assertFiniteFrame(frame, { file, format: opened.format, frameStartLine });
+    frameStartLine += frame.species.length + 2;
     if (frame.byteOffset !== undefined) index.add(frame.index, frame.byteOffset);
     if (species === null) {
       species = frame.species;

@@ -24,7 +24,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const user = await registerUser(ctx.db, body(req, registerBody));
         await startSession(req, user);
-        issueXsrfCookie(res, secure);
+        issueXsrfCookie(req, res, ctx.config.SESSION_SECRET, secure);
         res.status(201).json({ user });
       },
     },
@@ -36,7 +36,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
         body(req, signInBody);
         const user = await signInWithPassword(ctx, req, res);
         // A new session gets a new CSRF token too, so one seen before sign-in is worth nothing after.
-        issueXsrfCookie(res, secure);
+        issueXsrfCookie(req, res, ctx.config.SESSION_SECRET, secure);
         res.json({ user });
       },
     },
@@ -80,7 +80,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
         const { token, password } = body(req, passwordResetConfirmBody);
         const user = await confirmPasswordReset(ctx, token, password);
         await startSession(req, user);
-        issueXsrfCookie(res, secure);
+        issueXsrfCookie(req, res, ctx.config.SESSION_SECRET, secure);
         res.json({ user });
       },
     },

@@ -1,4 +1,5 @@
 import { eq, inArray } from 'drizzle-orm';
+import request from 'supertest';
 import { inject } from 'vitest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { passwordResets, users } from '../../server/db/schema/index.ts';
@@ -42,6 +43,25 @@ describe('CSRF protection', () => {
     const res = await script.post('/api/projects', { name: 'From a script' });
     expect(res.status).toBe(201);
     expect(script.xsrfToken).toBeUndefined();
+  });
+
+  it('when a signed-in write carries a token the attacker planted in both cookie and header, then it is refused: the token is bound to the session', async () => {
+    const victim = await signUp(app, 'csrf-bound');
+    const login = await request(app).post('/api/auth/login').set('Cookie', 'XSRF-TOKEN=' + 'p'.repeat(43)).set('X-XSRF-TOKEN', 'p'.repeat(43))
+      .send({ email: victim.email, password: victim.password });
+    expect(login.status).toBe(200);
+    const cookies = ([] as string[]).concat(login.headers['set-cookie'] ?? []);
+    const session = cookies.find((c) => c.startsWith('ergodic.sid='))!.split(';')[0]!;
+    const bound = decodeURIComponent(cookies.find((c) => c.startsWith('XSRF-TOKEN='))!.split(';')[0]!.slice('XSRF-TOKEN='.length));
+    const planted = 'q'.repeat(43);
+    const forged = await request(app).post('/api/projects').set('Cookie', `${session}; XSRF-TOKEN=${planted}`).set('X-XSRF-TOKEN', planted).send({ name: 'Planted' });
+    expect(forged.status).toBe(403);
+    const genuine = await request(app).post('/api/projects').set('Cookie', `${session}; XSRF-TOKEN=${bound}`).set('X-XSRF-TOKEN', bound).send({ name: 'Bound' });
+    expect(genuine.status).toBe(201);
+    // Another session's token does not work here either.
+    const other = await signUp(app, 'csrf-other');
+    const borrowed = await request(app).post('/api/projects').set('Cookie', `${session}; XSRF-TOKEN=${other.client.xsrfToken}`).set('X-XSRF-TOKEN', other.client.xsrfToken!).send({ name: 'Borrowed' });
+    expect(borrowed.status).toBe(403);
   });
 
   it('when an anonymous caller signs in without the header, then it is refused too (no login CSRF)', async () => {

@@ -347,3 +347,32 @@ describe('H5MD structure', () => {
     expect(message).toMatch(/^species\.h5, HDF5 path \/particles\/all\/species: species has shape \[2\] but there are 3 atoms/);
   });
 });
+
+describe('values a 32-bit float cannot hold', () => {
+  it('when an atom in frame 2 has x = 1e39, then inspection refuses it naming the file, frame, line, atom and value', async () => {
+    // Frame 2 (f = 1) starts at line 7; its third atom is on line 7 + 2 + 2 = 11.
+    const data = withLines((lines) => {
+      const parts = lines[10]!.trim().split(/\s+/);
+      parts[1] = '1e39';
+      lines[10] = parts.join(' ');
+    });
+    const message = await inspect(data, 'far-away.xyz');
+    expect(message).toMatch(/^far-away\.xyz, frame 2, line 11: atom 3 has position x = 1e\+39, which is not a finite number a 32-bit float can hold/);
+  });
+
+  it('when a velocity overflows a 32-bit float in extended XYZ, then it is refused naming the atom\'s line', async () => {
+    const data = extLines(() => `${good.replace('pos:R:3', 'pos:R:3:vel:R:3')}`, (f, a) => `${xyzLines[6 * f + 2 + a]} 0 ${f === 2 && a === 0 ? '-2e40' : '0'} 0`);
+    const message = await inspect(data, 'hot.extxyz');
+    expect(message).toMatch(/hot\.extxyz, frame 3, line 15: atom 1 has velocity y = -2e\+40/);
+  });
+
+  it('when every value is large but finite as a 32-bit float, then inspection accepts it', async () => {
+    const data = withLines((lines) => {
+      const parts = lines[2]!.trim().split(/\s+/);
+      parts[1] = '3e38';
+      lines[2] = parts.join(' ');
+    });
+    const result = await inspectTrajectory(chunked(data), 'big.xyz', {});
+    expect(result.frames).toBe(3);
+  });
+});
