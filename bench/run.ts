@@ -3,6 +3,7 @@
  * same run on the same machine, so the figures mean something on any host.
  */
 import type { BenchRow } from './bench-row.ts';
+import { benchEnergy } from './energy.ts';
 import { benchEngine } from './engine.ts';
 import { benchPipeline } from './pipeline.ts';
 import { benchReaders } from './readers.ts';
@@ -11,6 +12,7 @@ import { benchViewer } from './viewer.ts';
 const suites: [string, () => Promise<BenchRow[]>][] = [
   ['readers', benchReaders],
   ['engine', benchEngine],
+  ['energy', benchEnergy],
   ['pipeline', benchPipeline],
   ['viewer', benchViewer],
 ];

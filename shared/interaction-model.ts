@@ -119,8 +119,8 @@ export const pairSchema = z.discriminatedUnion('form', [ljPair, morsePair, bucki
       }
     }
     const cut = cutoffOf(pair);
-    const last = pair.points[pair.points.length - 1][0];
-    if (cut !== undefined && cut > last + 1e-9) {
+    const last = pair.points.length ? pair.points[pair.points.length - 1][0] : undefined;
+    if (cut !== undefined && last !== undefined && cut > last + 1e-9) {
       ctx.addIssue({ code: 'custom', path: ['cutoffA'], message: `the cut-off (${cut} Å) lies beyond the table's last point (${last} Å)` });
     }
   }

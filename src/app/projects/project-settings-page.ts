@@ -11,13 +11,14 @@ import { DeleteProjectPanel } from './delete-project-panel';
 import { InvitationsPanel } from './invitations-panel';
 import { MembersPanel } from './members-panel';
 import { ProjectDetailsForm } from './project-details-form';
+import { ProjectModelPanel } from '../interaction-model/project-model-panel';
 import { projectSchema } from '../../../shared/projects';
 import { unwrap } from '../core/api-envelope';
 
 @Component({
   selector: 'erg-project-settings-page',
   imports: [RouterLink, MatButtonModule, MatCardModule, MatIconModule, MatProgressSpinnerModule,
-    AuditPanel, DeleteProjectPanel, InvitationsPanel, MembersPanel, ProjectDetailsForm],
+    AuditPanel, DeleteProjectPanel, InvitationsPanel, MembersPanel, ProjectDetailsForm, ProjectModelPanel],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page">
@@ -34,6 +35,10 @@ import { unwrap } from '../core/api-envelope';
           <mat-card appearance="outlined">
             <mat-card-header><h2 mat-card-title>Name and description</h2></mat-card-header>
             <mat-card-content><erg-project-details-form [project]="p" (changed)="project.reload()" /></mat-card-content>
+          </mat-card>
+          <mat-card appearance="outlined">
+            <mat-card-header><h2 mat-card-title>Interaction model</h2></mat-card-header>
+            <mat-card-content><erg-project-model-panel [projectId]="p.id" [projectName]="p.name" /></mat-card-content>
           </mat-card>
           <mat-card appearance="outlined">
             <mat-card-header><h2 mat-card-title>Members</h2></mat-card-header>

@@ -1,10 +1,11 @@
 import type { DiffusionValue, MsdGroupSummary, ReportSummary } from '../../../shared/report-summary';
+import { energyCards } from './energy-cards';
 import { formatNumber, formatWithError } from './number-format';
 import { diffusionLabel, type DiffusionUnit } from './report-units';
 
 /** One headline number as the cards show it. */
 export interface HeadlineCard {
-  id: 'msd' | 'vacf' | 'thermo' | 'vdos-peaks' | 'cv' | 'coordination' | 'lindemann';
+  id: 'msd' | 'vacf' | 'thermo' | 'vdos-peaks' | 'cv' | 'coordination' | 'lindemann' | 'energy-potential' | 'energy-pressure' | 'energy-drift' | 'energy-cv';
   title: string;
   value: string;
   unit: string;
@@ -116,5 +117,6 @@ export function headlineCards(summary: ReportSummary, unit: DiffusionUnit): Head
     ...(summary.vdos ? vdosCards(summary.vdos) : []),
     ...(summary.rdf?.pairs.length ? [coordinationCard(summary.rdf)] : []),
     ...(summary.lindemann ? [lindemannCard(summary.lindemann)] : []),
+    ...energyCards(summary),
   ];
 }

@@ -1,5 +1,6 @@
 import type { ReportDto } from '../../../shared/report';
 import type { ReportSummary } from '../../../shared/report-summary';
+import { energyParagraph } from './energy-methods';
 import { formatNumber } from './number-format';
 import { flag, num, record, text, type Json } from './record-read';
 
@@ -148,6 +149,7 @@ export function methodsParagraphs(report: ReportDto): MethodsParagraph[] {
   if (s.sq) out.push(sqParagraph(record(m, 'sq')));
   if (s.lindemann) out.push(lindemannParagraph(s.lindemann, record(m, 'lindemann')));
   if (s.ngp) out.push(ngpParagraph(record(m, 'ngp')));
+  if (s.energy) out.push(energyParagraph(s.energy, record(m, 'energy')));
   out.push({
     heading: 'Software',
     body: `Computed with the Ergodic analysis engine ${report.engineVersion} on ${report.createdAt.slice(0, 10)}. Units: lengths in Å, times in ps, D in Å²/ps (1 Å²/ps = 10⁻⁸ m²/s = 10⁻⁴ cm²/s); physical constants from CODATA.`,

@@ -12,11 +12,13 @@ import {
 } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { TrajectoriesApi } from './trajectories-api';
+import { FileQuantitiesFields } from './file-quantities-fields';
+import type { FileQuantities } from '../../../shared/file-quantities';
 
 /** What the uploader knows that the file may not say: temperature, ensemble, units, potential… */
 @Component({
   selector: 'erg-metadata-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, FileQuantitiesFields],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h2 mat-dialog-title>Metadata of {{ t.name }}</h2>
@@ -91,6 +93,9 @@ import { TrajectoriesApi } from './trajectories-api';
           <mat-label>Notes</mat-label>
           <textarea matInput formControlName="notes" rows="3"></textarea>
         </mat-form-field>
+        @if (t.fileValues.length) {
+          <erg-file-quantities-fields class="wide" [keys]="t.fileValues" [value]="quantities()" (valueChange)="quantities.set($event); quantitiesChanged.set(true)" />
+        }
         @if (error()) { <p class="error wide" role="alert">{{ error() }}</p> }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
@@ -118,6 +123,8 @@ export class MetadataDialog {
   protected readonly boundaries = BOUNDARIES;
   protected readonly saving = signal(false);
   protected readonly error = signal('');
+  protected readonly quantities = signal<FileQuantities | null>(this.t.fileQuantities);
+  protected readonly quantitiesChanged = signal(false);
 
   protected readonly form = inject(FormBuilder).group({
     name: [this.t.name, Validators.required],
@@ -146,7 +153,8 @@ export class MetadataDialog {
     if (this.form.invalid) return;
     const raw = this.form.getRawValue();
     // Only what the user changed is sent, so untouched values stay marked as read from the file.
-    const changed = Object.fromEntries(Object.entries(raw).filter(([key]) => this.form.get(key)?.dirty));
+    const changed: Record<string, unknown> = Object.fromEntries(Object.entries(raw).filter(([key]) => this.form.get(key)?.dirty));
+    if (this.quantitiesChanged()) changed['fileQuantities'] = this.quantities();
     const parsed = trajectoryMetadataSchema.safeParse(changed);
     if (!parsed.success) {
       this.error.set(parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; '));

@@ -15,6 +15,7 @@ import { DropZone } from './drop-zone';
 import { ProjectRuns } from './project-runs';
 import { JobTracker } from './job-tracker';
 import { MetadataDialog } from './metadata-dialog';
+import { InteractionModelDialog, type InteractionModelDialogData } from '../interaction-model/interaction-model-dialog';
 import { TrajectoriesApi } from './trajectories-api';
 import { TrajectoriesTable, type TrajectoryAction } from './trajectories-table';
 import { UploadList } from './upload-list';
@@ -97,6 +98,13 @@ export class ProjectTrajectories {
           if (updated) this.replace(updated);
         });
         break;
+      case 'model': {
+        const data: InteractionModelDialogData = { target: { kind: 'trajectory', id: t.id }, name: t.name, species: Object.keys(t.speciesCounts ?? {}), canEdit: this.canEdit() };
+        this.dialog.open(InteractionModelDialog, { data, width: '880px', maxWidth: '96vw' }).afterClosed().subscribe((saved?: boolean) => {
+          if (saved) this.api.get(t.id).subscribe((updated) => this.replace(updated));
+        });
+        break;
+      }
       case 'analyse':
         this.dialog.open(AnalysisDialog, { data: t, width: '720px' }).afterClosed().subscribe((run?: AnalysisRunDto) => {
           if (run) this.jobs.track(run, t.name);

@@ -14,7 +14,7 @@ import type { TrajectoryDto } from '../../../shared/trajectory';
 import { StatusChip } from './status-chip';
 import { filterText, formatText, speciesText } from './trajectory-format';
 
-export type TrajectoryAction = 'analyse' | 'edit' | 'cut' | 'delete';
+export type TrajectoryAction = 'analyse' | 'edit' | 'model' | 'cut' | 'delete';
 
 /** The project's trajectories: sortable, filterable, paged, with per-row actions. */
 @Component({
@@ -85,6 +85,7 @@ export type TrajectoryAction = 'analyse' | 'edit' | 'cut' | 'delete';
               @if (canEdit()) {
                 <button mat-menu-item type="button" (click)="action.emit({ kind: 'edit', trajectory: t })"><mat-icon>edit_note</mat-icon>Edit metadata</button>
               }
+              <button mat-menu-item type="button" (click)="action.emit({ kind: 'model', trajectory: t })"><mat-icon>function</mat-icon>Interaction model</button>
               <button mat-menu-item type="button" [disabled]="t.status !== 'ready'" (click)="action.emit({ kind: 'cut', trajectory: t })"><mat-icon>content_cut</mat-icon>Download a cut</button>
               @if (canEdit()) {
                 <button mat-menu-item type="button" (click)="action.emit({ kind: 'delete', trajectory: t })"><mat-icon>delete</mat-icon>Delete</button>

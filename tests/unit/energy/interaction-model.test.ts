@@ -122,3 +122,24 @@ describe('the interaction model schema', () => {
     expect(forceShiftOf(p)).toBeGreaterThan(0);
   });
 });
+
+describe('hostile interaction models', () => {
+  it('when a table has no points, points of the wrong shape, or numbers that are not finite, then each is refused with its field named and nothing throws', () => {
+    const cases: unknown[] = [
+      { pairs: [{ species: ['Ar', 'Ar'], form: 'table', energyUnit: 'eV', points: [], cutoffA: 5 }] },
+      { pairs: [{ species: ['Ar', 'Ar'], form: 'table', energyUnit: 'eV', points: [[1, 2, 3]], cutoffA: 5 }] },
+      { pairs: [{ species: ['Ar', 'Ar'], form: 'lj', epsilonEV: Infinity, sigmaA: 3, cutoffA: 5 }] },
+      { pairs: [{ species: ['Ar'], form: 'lj', epsilonEV: 1, sigmaA: 3, cutoffA: 5 }] },
+      { pairs: 'many' },
+      null,
+      { pairs: [{ species: ['Ar', 'Ar'], form: 'lj', epsilonEV: 1, sigmaA: 3, cutoffA: 500 }] },
+    ];
+    for (const input of cases) {
+      const r = parseInteractionModel(input);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.issues.every((m) => /: /.test(m))).toBe(true);
+    }
+    const far = parseInteractionModel(cases[6]);
+    expect(far.ok ? '' : far.issues.join()).toMatch(/cutoffA: the cut-off must be at most 60 Å/);
+  });
+});
