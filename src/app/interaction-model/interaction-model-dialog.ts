@@ -32,7 +32,7 @@ export interface InteractionModelDialogData {
     <mat-dialog-content>
       <p class="status" role="status">{{ status() }}</p>
       <div class="top">
-        <mat-form-field appearance="outline" class="grow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="grow">
           <mat-label>Start from a published set</mat-label>
           <mat-select (selectionChange)="applyPreset($event.value)" [disabled]="!data.canEdit">
             @for (p of presets(); track p.id) {
@@ -40,18 +40,18 @@ export interface InteractionModelDialogData {
             }
           </mat-select>
         </mat-form-field>
-        <mat-form-field appearance="outline" class="grow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="grow">
           <mat-label>Name</mat-label>
           <input matInput [value]="draft().name" (input)="patch({ name: value($event) })">
         </mat-form-field>
-        <mat-form-field appearance="outline" class="grow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="grow">
           <mat-label>Unlike LJ pairs not listed</mat-label>
           <mat-select [value]="draft().mixing" (selectionChange)="patch({ mixing: $event.value })">
             <mat-option value="lorentz-berthelot">Lorentz–Berthelot mixing</mat-option>
             <mat-option value="none">No mixing: list every pair</mat-option>
           </mat-select>
         </mat-form-field>
-        <mat-form-field appearance="outline" class="full">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="full">
           <mat-label>Source of the parameters</mat-label>
           <input matInput [value]="draft().source" (input)="patch({ source: value($event) })" placeholder="Citation, or how they were fitted">
         </mat-form-field>
@@ -83,7 +83,7 @@ export interface InteractionModelDialogData {
   `,
   styles: `
     .status { margin-top: 0; color: var(--mat-sys-on-surface-variant); }
-    .top { display: flex; flex-wrap: wrap; gap: 0 12px; }
+    .top { display: flex; flex-wrap: wrap; gap: 12px; margin-bottom: 12px; }
     .top .grow { flex: 1 1 220px; }
     .top .full { flex: 1 1 100%; }
     .tag { font-size: 11px; margin-left: 6px; padding: 0 6px; border-radius: 999px; background: var(--mat-sys-secondary-container); }

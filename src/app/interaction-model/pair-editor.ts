@@ -24,15 +24,15 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
         <button mat-icon-button type="button" (click)="remove.emit()" [attr.aria-label]="'Remove pair ' + (index() + 1)"><mat-icon>delete</mat-icon></button>
       </header>
       <div class="fields">
-        <mat-form-field appearance="outline" class="narrow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
           <mat-label>Species</mat-label>
           <input matInput [value]="draft().a" (input)="set({ a: value($event) })" aria-label="First species">
         </mat-form-field>
-        <mat-form-field appearance="outline" class="narrow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
           <mat-label>with species</mat-label>
           <input matInput [value]="draft().b" (input)="set({ b: value($event) })" aria-label="Second species">
         </mat-form-field>
-        <mat-form-field appearance="outline">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>Form</mat-label>
           <mat-select [value]="draft().form" (selectionChange)="set({ form: $event.value })">
             @for (f of forms; track f) { <mat-option [value]="f">{{ formLabels[f] }}</mat-option> }
@@ -40,39 +40,39 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
         </mat-form-field>
         @if (draft().form !== 'none') {
           @if (draft().form !== 'table') {
-            <mat-form-field appearance="outline" class="narrow">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
               <mat-label>Energy unit</mat-label>
               <mat-select [value]="draft().energy" (selectionChange)="set({ energy: $event.value })">
                 @for (e of energySuffixes; track e) { <mat-option [value]="e">{{ suffixLabels[e] }}</mat-option> }
               </mat-select>
             </mat-form-field>
           } @else {
-            <mat-form-field appearance="outline" class="narrow">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
               <mat-label>U unit in the table</mat-label>
               <mat-select [value]="draft().tableUnit" (selectionChange)="set({ tableUnit: $event.value })">
                 @for (e of energyUnits; track e) { <mat-option [value]="e">{{ e }}</mat-option> }
               </mat-select>
             </mat-form-field>
           }
-          <mat-form-field appearance="outline" class="narrow">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
             <mat-label>Length unit</mat-label>
             <mat-select [value]="draft().length" (selectionChange)="set({ length: $event.value })">
               @for (l of lengthSuffixes; track l) { <mat-option [value]="l">{{ suffixLabels[l] }}</mat-option> }
             </mat-select>
           </mat-form-field>
           @for (p of parameters(); track p.key) {
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>{{ p.label }}</mat-label>
               <input matInput type="number" step="any" [value]="draft()[p.key] ?? ''" (input)="setNumber(p.key, $event)">
               <span matTextSuffix>{{ unitOf(p.unit) }}</span>
             </mat-form-field>
           }
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Cut-off</mat-label>
             <input matInput type="number" step="any" [value]="draft().cutoff ?? ''" (input)="setNumber('cutoff', $event)">
             <span matTextSuffix>{{ suffixLabels[draft().length] }}</span>
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>At the cut-off</mat-label>
             <mat-select [value]="draft().truncation" (selectionChange)="set({ truncation: $event.value })">
               @for (t of truncations; track t) { <mat-option [value]="t">{{ truncationLabels[t] }}</mat-option> }
@@ -82,7 +82,7 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
             <mat-checkbox [checked]="draft().tail" (change)="set({ tail: $event.checked })">Analytic tail correction (homogeneous fluid)</mat-checkbox>
           }
           @if (draft().form === 'table') {
-            <mat-form-field appearance="outline" class="wide">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="wide">
               <mat-label>Table: one "r, U" per line, r in Å</mat-label>
               <textarea matInput rows="5" [value]="draft().csv" (input)="set({ csv: value($event) })"></textarea>
               <mat-hint>Paste a CSV or read a file; U(r) is interpolated by a natural cubic spline, forces from its derivative.</mat-hint>
@@ -107,10 +107,8 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
     .pair { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 8px 16px 12px; background: var(--mat-sys-surface-container-lowest); }
     header { display: flex; align-items: center; justify-content: space-between; }
     h3 { margin: 0; font: var(--mat-sys-title-small); }
-    .fields { display: flex; flex-wrap: wrap; gap: 0 12px; align-items: center; }
-    .fields mat-form-field { flex: 1 1 170px; }
-    .fields .narrow { flex: 1 1 120px; }
-    .fields .wide { flex: 1 1 100%; }
+    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); gap: 12px; align-items: center; margin-top: 8px; }
+    .fields .wide, .fields mat-checkbox, .fields .file { grid-column: 1 / -1; }
     .issues { margin: 4px 0; padding-left: 20px; color: var(--mat-sys-error); font: var(--mat-sys-body-small); }
     .file { font: var(--mat-sys-body-small); }
   `,
@@ -149,8 +147,9 @@ export class PairEditor {
 
   protected unitOf(kind: 'energy' | 'length' | 'inverse' | 'c6'): string {
     const d = this.draft();
+    // Short forms beside a number; the unit list says "K (as E/k_B)" in full.
     const e = d.energy === 'K' ? 'K' : SUFFIX_LABELS[d.energy], l = SUFFIX_LABELS[d.length];
-    return kind === 'energy' ? SUFFIX_LABELS[d.energy] : kind === 'length' ? l : kind === 'inverse' ? `${l}⁻¹` : `${e}·${l}⁶`;
+    return kind === 'energy' ? e : kind === 'length' ? l : kind === 'inverse' ? `${l}⁻¹` : `${e}·${l}⁶`;
   }
 
   protected readTable(event: Event): void {

@@ -24,6 +24,10 @@ export function pairSentence(p: Json): string {
   return `${species}: ${params}, ${cut}${origin}`;
 }
 
+const POTENTIAL_WORDS: Record<string, string> = {
+  model: 'from the interaction model', file: 'as the file states it', 'file total minus kinetic': 'as the file’s total energy minus the kinetic energy',
+};
+
 export function energyParagraph(s: EnergySummary, m: Json): MethodsParagraph {
   const model = record(m, 'interactionModel');
   const pairs = Array.isArray(m['resolvedPairs']) ? (m['resolvedPairs'] as unknown[]).filter(isRecord) : [];
@@ -45,7 +49,7 @@ export function energyParagraph(s: EnergySummary, m: Json): MethodsParagraph {
     : `Heat capacity from fluctuations: ${s.heatCapacityNote ?? 'not computed'}.`;
   return {
     heading: 'Energy and pressure',
-    body: `${modelText}${fileText}Kinetic energy from ${s.sources.kinetic}; potential energy ${s.sources.potential ?? 'not available'}. ${pressure}`
+    body: `${modelText}${fileText}Kinetic energy from ${s.sources.kinetic}; potential energy ${POTENTIAL_WORDS[s.sources.potential ?? ''] ?? 'not available'}. ${pressure}`
       + `Means with ${text(m, 'averages') ?? 'block errors'}. ${drift}${cv}`,
   };
 }

@@ -1,4 +1,5 @@
 import type { AnalysisKey } from '../../../shared/analysis-params';
+import { GUESSED_POTENTIAL_KEYS } from '../../../shared/file-quantities';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 
 export interface AnalysisChoice {
@@ -28,7 +29,11 @@ export function defaultAnalyses(t: Pick<TrajectoryDto, 'cell' | 'boundary' | 'fr
 }
 
 /** Why an analysis cannot run on this trajectory, or null. */
-export function unavailableReason(key: AnalysisKey, t: Pick<TrajectoryDto, 'cell' | 'boundary' | 'frames'>): string | null {
+export function unavailableReason(key: AnalysisKey, t: Pick<TrajectoryDto, 'cell' | 'boundary' | 'frames'> & Partial<Pick<TrajectoryDto, 'interactionModelSource' | 'fileValues' | 'fileQuantities'>>): string | null {
+  if (key === 'energy' && t.interactionModelSource === null) {
+    const fileEnergy = Boolean(t.fileQuantities?.potentialEnergy || t.fileQuantities?.totalEnergy) || (t.fileValues ?? []).some((k) => (GUESSED_POTENTIAL_KEYS as readonly string[]).includes(k));
+    if (!fileEnergy) return 'needs an interaction model (row menu → Interaction model) or energies in the file';
+  }
   if ((key === 'rdf' || key === 'sq') && !t.cell) return 'needs a periodic cell, and this file states none';
   if ((key === 'msd' || key === 'vacf' || key === 'vdos' || key === 'ngp') && (t.frames ?? 0) < 3) return 'needs at least 3 frames';
   return null;

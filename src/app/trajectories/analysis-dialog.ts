@@ -109,6 +109,17 @@ import { TrajectoriesApi } from './trajectories-api';
               <input matInput type="number" formControlName="constraints" min="0" step="1">
               <mat-hint>Empty: as stated with the trajectory ({{ t.constraints ?? 0 }})</mat-hint>
             </mat-form-field>
+            <h3>Energy</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>NVE drift threshold (k_BT per atom per ns)</mat-label>
+              <input matInput type="number" formControlName="driftThresholdKTPerNs" min="0" step="any">
+              <mat-hint>Empty: 0.01, a rule of thumb of the trade</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Barostat pressure for C_P (bar)</mat-label>
+              <input matInput type="number" formControlName="externalPressureBar" step="any">
+              <mat-hint>Empty: the mean virial pressure (NPT runs)</mat-hint>
+            </mat-form-field>
             <h3>Structure (g(r), S(q))</h3>
             <mat-form-field appearance="outline">
               <mat-label>r_max (Å)</mat-label>
@@ -173,7 +184,7 @@ export class AnalysisDialog {
     gkMode: 'auto' as AdvancedSettings['gkMode'], gkStartPs: null as number | null, gkEndPs: null as number | null,
     window: 'hann' as AdvancedSettings['window'], zeroPadFactor: 1, temperatureK: null as number | null,
     degreesOfFreedom: null as number | null, constraints: null as number | null, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
-    sqWindow: 'lorch' as AdvancedSettings['sqWindow'],
+    sqWindow: 'lorch' as AdvancedSettings['sqWindow'], driftThresholdKTPerNs: null as number | null, externalPressureBar: null as number | null,
   });
 
   protected significant(value: number): string {

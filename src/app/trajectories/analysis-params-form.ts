@@ -22,6 +22,10 @@ export interface AdvancedSettings {
   /** "A–B" or null for every pair. */
   pair: string | null;
   sqWindow: SqWindow;
+  /** NVE drift threshold, k_B·T per atom per ns; null for the default. */
+  driftThresholdKTPerNs?: number | null;
+  /** Barostat pressure for the NPT enthalpy, bar; null for the mean virial pressure. */
+  externalPressureBar?: number | null;
 }
 
 const given = (v: number | null | undefined): v is number => v !== null && v !== undefined && !Number.isNaN(v);
@@ -52,6 +56,8 @@ export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput;
   if (given(s.degreesOfFreedom)) params.degreesOfFreedom = s.degreesOfFreedom;
   if (given(s.constraints)) params.constraints = s.constraints;
   if (given(s.rMaxA)) params.rMaxA = s.rMaxA;
+  if (given(s.driftThresholdKTPerNs)) params.driftThresholdKTPerNs = s.driftThresholdKTPerNs;
+  if (given(s.externalPressureBar)) params.externalPressureBar = s.externalPressureBar;
   if (s.pair) {
     const [a, b] = s.pair.split('–');
     if (a && b) params.pair = [a, b];

@@ -5,11 +5,11 @@ import { BAND, GUIDE, LABEL_BACKGROUND, baseOption, line, xAxis, yAxis, type Cha
 import { column, points } from './curve-columns';
 
 /**
- * Energies per atom against time: potential and total on the left axis,
- * kinetic on the right (its scale differs), the file's potential energy
- * beside the model's when both exist, and the drift line over the total.
+ * Potential energy per atom (the model's, and the file's dashed beside it when
+ * both exist) on the left axis, kinetic energy on the right: they trade places
+ * frame by frame.
  */
-export function energyChart(curve: ReportCurve, summary: EnergySummary | undefined): ChartOption {
+export function energyChart(curve: ReportCurve): ChartOption {
   const t = column(curve, 'time') ?? [];
   const series: LineSeries[] = [];
   const add = (name: string, label: string, axis: 0 | 1, extra: Partial<LineSeries> = {}) => {
@@ -17,24 +17,29 @@ export function energyChart(curve: ReportCurve, summary: EnergySummary | undefin
     if (c) series.push(line(label, points(t, c), { yAxisIndex: axis, ...extra }));
   };
   add('potential energy', 'potential', 0);
-  add('total energy', 'total', 0);
   add('file potential energy', 'potential (file)', 0, { lineStyle: { width: 1.2, type: 'dashed' } });
   add('kinetic energy', 'kinetic (right axis)', 1);
-  const total = series.find((s) => s.name === 'total');
-  const d = summary?.drift;
-  const times = t.filter((x): x is number => x !== null);
-  if (total && d && times.length > 1 && summary?.totalPerAtomEV) {
-    // Draw the fitted line through the mean at the mid time; slope in eV/atom/ps.
-    const t0 = times[0]!, t1 = times[times.length - 1]!, mid = 0.5 * (t0 + t1), slope = d.perAtomEVPerNs / 1000;
-    const at = (x: number) => summary.totalPerAtomEV!.mean + slope * (x - mid);
-    series.push(line(`drift ${formatWithError(d.perAtomEVPerNs, d.stdError)} eV/atom/ns`, [[t0, at(t0)], [t1, at(t1)]], { lineStyle: { width: 1.4, type: 'dotted', color: GUIDE }, sampling: undefined }));
-  }
   return {
     ...baseOption(),
     xAxis: xAxis('time (ps)'),
-    yAxis: [yAxis('potential, total (eV/atom)', 'value', { nameGap: 56 }), yAxis('kinetic (eV/atom)', 'value', { nameGap: 56, splitLine: { show: false } })],
+    yAxis: [yAxis('potential (eV/atom)', 'value', { nameGap: 60 }), yAxis('kinetic (eV/atom)', 'value', { nameGap: 60, splitLine: { show: false } })],
     series,
   };
+}
+
+/** Total energy per atom on its own scale, with the fitted drift line: what conservation looks like. */
+export function totalEnergyChart(curve: ReportCurve, summary: EnergySummary | undefined): ChartOption {
+  const t = column(curve, 'time') ?? [];
+  const series: LineSeries[] = [line('total', points(t, column(curve, 'total energy') ?? []))];
+  const d = summary?.drift;
+  const times = t.filter((x): x is number => x !== null);
+  if (d && times.length > 1 && summary?.totalPerAtomEV) {
+    // The fitted line through the mean at the mid time; slope in eV/atom/ps.
+    const t0 = times[0]!, t1 = times[times.length - 1]!, mid = 0.5 * (t0 + t1), slope = d.perAtomEVPerNs / 1000;
+    const at = (x: number) => summary.totalPerAtomEV!.mean + slope * (x - mid);
+    series.push(line(`drift ${formatWithError(d.perAtomEVPerNs, d.stdError)} eV/atom/ns`, [[t0, at(t0)], [t1, at(t1)]], { lineStyle: { width: 1.6, type: 'dashed', color: GUIDE }, sampling: undefined }));
+  }
+  return { ...baseOption(), grid: { left: 96, right: 24, top: 48, bottom: 56 }, xAxis: xAxis('time (ps)'), yAxis: yAxis('total (eV/atom)', 'value', { nameGap: 80 }), series };
 }
 
 /** Pressure against time with its mean ± standard error band, and the diagonal tensor components. */

@@ -2,7 +2,7 @@ import type { ReportDto } from '../../../../shared/report';
 import { num, record } from '../record-read';
 import type { DiffusionUnit, FrequencyUnit } from '../report-units';
 import type { ChartOption } from './chart-option';
-import { energyChart, pressureChart } from './energy-charts';
+import { energyChart, pressureChart, totalEnergyChart } from './energy-charts';
 import { lindemannChart, ngpChart } from './melting-charts';
 import { msdChart } from './msd-chart';
 import { rdfChart } from './rdf-chart';
@@ -53,8 +53,12 @@ export function reportChartSpecs(report: ReportDto, units: ChartUnits): ChartSpe
   add('ngp', 'ngp', 'Non-Gaussian parameter', 'α₂ against lag time on a log axis, its peak marked.', () => ngpChart(curves['ngp']!, summary.ngp));
   add('lindemann', 'lindemann', 'Lindemann index per atom', 'Each atom’s Lindemann index, with the melting threshold.',
     () => lindemannChart(curves['lindemann']!, summary.lindemann));
-  add('energy', 'energy', 'Energy per atom', 'Potential, total and kinetic energy per atom against time, with the fitted drift of the total energy.',
-    () => energyChart(curves['energy']!, summary.energy));
+  add('energy', 'energy', 'Potential and kinetic energy', 'Potential energy per atom (and the file’s, when it has one) and kinetic energy per atom against time.',
+    () => energyChart(curves['energy']!));
+  if (curves['energy']?.columns.includes('total energy')) {
+    add('total-energy', 'energy', 'Total energy and drift', 'Total energy per atom against time on its own scale, with the fitted drift line.',
+      () => totalEnergyChart(curves['energy']!, summary.energy));
+  }
   if (curves['energy']?.columns.includes('pressure')) {
     add('pressure', 'energy', 'Pressure', 'Pressure against time with its mean and standard error band, and the diagonal components of the pressure tensor.',
       () => pressureChart(curves['energy']!, summary.energy));
