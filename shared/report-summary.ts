@@ -22,7 +22,10 @@ export interface MsdGroupSummary {
   /** Einstein D; null when the motion is bounded or the run too short for the automatic window. */
   d: DiffusionValue | null;
   dStdError: DiffusionValue | null;
-  uncertaintyMethod: 'atom-blocks' | 'fit-residuals' | 'none';
+  /** How dStdError was found ('fit-residuals' only in reports before engine 0.2). */
+  uncertaintyMethod: 'atom-blocks' | 'time-blocks' | 'fit-residuals' | 'none';
+  /** Independent blocks behind dStdError. */
+  uncertaintyBlocks?: number;
   /** Log–log slope of the MSD over the fit window (1 diffusive, 2 ballistic, 0 bounded). */
   slopeExponent: number;
   fitWindowPs: { start: number; end: number; source: 'auto' | 'manual' };
@@ -40,7 +43,11 @@ export interface VacfGroupSummary {
   atoms: number;
   /** D = (1/d)∫⟨v(0)·v(t)⟩dt over the plateau of the running integral. */
   dGreenKubo: DiffusionValue;
-  /** Spread of the running integral over the plateau window. */
+  /** Standard error from independent blocks of atoms or of time origins; null when neither is possible. */
+  dStdError?: DiffusionValue | null;
+  uncertaintyMethod?: 'atom-blocks' | 'time-blocks' | 'none';
+  uncertaintyBlocks?: number;
+  /** Spread of the running integral over the plateau window: how flat the plateau is, not an error bar. */
   spread: DiffusionValue;
   converged: boolean;
   plateauWindowPs: { start: number; end: number; source: 'auto' | 'manual' };
@@ -56,6 +63,18 @@ export interface VdosPeakSummary {
   cm1: number;
   meV: number;
   fwhmCm1: number;
+  /** Standard error of the position from independent atom blocks, cm⁻¹; null when too few blocks show the peak. */
+  cm1StdError?: number | null;
+}
+
+/** Standard errors from independent groups of atoms (the number of groups given). */
+export interface VdosStdErrors {
+  blocks: number;
+  kineticTemperatureK: number;
+  /** Quantum harmonic values, per atom. */
+  cvPerAtomKB: number;
+  entropyPerAtomKB: number;
+  zeroPointEvPerAtom: number;
 }
 
 /** Harmonic heat capacity, entropy or zero-point energy in the units a reader looks for. */
@@ -101,6 +120,8 @@ export interface VdosSummary {
   warnings?: string[];
   /** Largest peaks of the "all" group, by height. */
   peaks: VdosPeakSummary[];
+  /** Null with fewer than 5 atoms. */
+  stdErrors?: VdosStdErrors | null;
   cv: { quantum: HeatCapacityValue; classical: HeatCapacityValue };
   entropy: { quantum: EntropyValue; classical: EntropyValue };
   zeroPoint: { evPerAtom: number; kJPerMol: number };

@@ -6,6 +6,7 @@
  * growth is small compared with its height is bounded (a solid, a trapped
  * particle): no D is reported for it, only the plateau.
  */
+import { blockStandardError, MIN_BLOCKS } from './independent-blocks.ts';
 import { fitLine } from './least-squares.ts';
 import { diffusionUnits, type DiffusionUnits } from './units.ts';
 
@@ -24,7 +25,10 @@ export interface DiffusionFit {
   /** D with its standard error, or null when the motion is bounded / too short (auto window). */
   d: DiffusionUnits | null;
   dStdError: DiffusionUnits | null;
-  uncertaintyMethod: 'atom-blocks' | 'fit-residuals' | 'none';
+  /** How dStdError was found: independent atom groups or stretches of time origins; none when neither is possible. */
+  uncertaintyMethod: 'atom-blocks' | 'time-blocks' | 'none';
+  /** Independent blocks behind dStdError. */
+  uncertaintyBlocks: number;
   /** Log–log slope of the MSD over the window (1 diffusive, 2 ballistic, 0 bounded). */
   slopeExponent: number;
   /** Mean MSD over the late window when bounded, Å². */
@@ -34,7 +38,7 @@ export interface DiffusionFit {
 export interface FitRequest {
   lagPs: Float64Array;
   msd: Float64Array;
-  /** Independent atom blocks' MSDs for the uncertainty. */
+  /** Independent atom blocks' MSDs for the uncertainty (fewer than MIN_BLOCKS: none). */
   blocks: Float64Array[];
   dimensions: number;
   /** Last lag index the automatic window may use. */
@@ -51,6 +55,7 @@ export function fitDiffusion(req: FitRequest): DiffusionFit {
     d: null,
     dStdError: null,
     uncertaintyMethod: 'none',
+    uncertaintyBlocks: 0,
     slopeExponent: NaN,
     plateauA2: null,
   });
@@ -65,7 +70,7 @@ export function fitDiffusion(req: FitRequest): DiffusionFit {
   if (end < 4) return empty('too-short');
   const half = Math.max(1, Math.floor(end / 2));
   if (growthRatio(lagPs, msd, half, end) < BOUNDED_GROWTH_RATIO) {
-    return { ...finish(req, half, end, 'bounded', 'auto', true), d: null, dStdError: null, uncertaintyMethod: 'none' };
+    return { ...finish(req, half, end, 'bounded', 'auto', true), d: null, dStdError: null, uncertaintyMethod: 'none', uncertaintyBlocks: 0 };
   }
   const grid = logGrid(end);
   const beta = (j: number): number => {
@@ -84,17 +89,9 @@ export function fitDiffusion(req: FitRequest): DiffusionFit {
 
 function finish(req: FitRequest, i0: number, i1: number, regime: MotionRegime, source: 'auto' | 'manual', bounded: boolean): DiffusionFit {
   const { lagPs, msd, dimensions, blocks } = req;
-  const fit = fitLine(lagPs, msd, i0, i1);
-  const dValue = fit.slope / (2 * dimensions);
-  let se = fit.slopeStdError / (2 * dimensions);
-  let method: DiffusionFit['uncertaintyMethod'] = 'fit-residuals';
-  if (blocks.length >= 4) {
-    const ds = blocks.map((b) => fitLine(lagPs, b, i0, i1).slope / (2 * dimensions));
-    const mean = ds.reduce((s, v) => s + v, 0) / ds.length;
-    const variance = ds.reduce((s, v) => s + (v - mean) ** 2, 0) / (ds.length - 1);
-    se = Math.sqrt(variance / ds.length);
-    method = 'atom-blocks';
-  }
+  const dValue = diffusionOverWindow(lagPs, msd, i0, i1, dimensions);
+  const useBlocks = blocks.length >= MIN_BLOCKS;
+  const se = useBlocks ? blockStandardError(blocks.map((b) => diffusionOverWindow(lagPs, b, i0, i1, dimensions))) : NaN;
   let plateau = 0;
   for (let i = i0; i <= i1; i++) plateau += msd[i];
   plateau /= i1 - i0 + 1;
@@ -102,11 +99,17 @@ function finish(req: FitRequest, i0: number, i1: number, regime: MotionRegime, s
     regime,
     window: { startPs: lagPs[i0], endPs: lagPs[i1], source },
     d: diffusionUnits(dValue),
-    dStdError: diffusionUnits(se),
-    uncertaintyMethod: method,
+    dStdError: useBlocks ? diffusionUnits(se) : null,
+    uncertaintyMethod: useBlocks ? 'atom-blocks' : 'none',
+    uncertaintyBlocks: useBlocks ? blocks.length : 0,
     slopeExponent: logLogSlope(lagPs, msd, i0, i1),
     plateauA2: bounded ? plateau : null,
   };
+}
+
+/** D = slope/(2d) of a least-squares line through the MSD over lags i0..i1. */
+export function diffusionOverWindow(lagPs: ArrayLike<number>, msd: ArrayLike<number>, i0: number, i1: number, dimensions: number): number {
+  return fitLine(lagPs, msd, i0, i1).slope / (2 * dimensions);
 }
 
 function classify(lagPs: Float64Array, msd: Float64Array, i0: number, i1: number): MotionRegime {

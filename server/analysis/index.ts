@@ -94,12 +94,12 @@ export function runAnalyses(
         run.summary.msd = {
           dimensions: r.dimensions,
           groups: r.groups.map(({ label, nAtoms, diffusion: f }) => ({
-            label, atoms: nAtoms, regime: f.regime, d: f.d, dStdError: f.dStdError, uncertaintyMethod: f.uncertaintyMethod,
+            label, atoms: nAtoms, regime: f.regime, d: f.d, dStdError: f.dStdError, uncertaintyMethod: f.uncertaintyMethod, uncertaintyBlocks: f.uncertaintyBlocks,
             slopeExponent: f.slopeExponent, fitWindowPs: { start: f.window.startPs, end: f.window.endPs, source: f.window.source }, plateauA2: f.plateauA2,
           })),
         };
         run.curves.msd = curve([['lag', 'ps', r.lagPs], ...r.groups.map((g): [string, string, Float64Array] => [`MSD ${g.label}`, 'Å²', g.msdA2])]);
-        run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod })) };
+        run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod, blocks: g.diffusion.uncertaintyBlocks })) };
         break;
       }
       case 'vacf': {
@@ -107,7 +107,8 @@ export function runAnalyses(
         run.summary.vacf = {
           velocitySource: v.velocitySource,
           groups: v.groups.map(({ label, nAtoms, greenKubo: gk }) => ({
-            label, atoms: nAtoms, dGreenKubo: gk.d, spread: gk.dSpread, converged: gk.converged,
+            label, atoms: nAtoms, dGreenKubo: gk.d, dStdError: gk.dStdError, uncertaintyMethod: gk.uncertaintyMethod, uncertaintyBlocks: gk.uncertaintyBlocks,
+            spread: gk.dSpread, converged: gk.converged,
             plateauWindowPs: { start: gk.window.startPs, end: gk.window.endPs, source: gk.window.source },
           })),
         };
@@ -119,7 +120,7 @@ export function runAnalyses(
             [`running D ${g.label}`, 'Å²/ps', g.runningDA2PerPs],
           ]),
         ]);
-        run.methods.vacf = { velocitySource: v.velocitySource, comDriftRemoved: v.comDriftRemoved, plateaus: v.groups.map((g) => ({ group: g.label, window: g.greenKubo.window })) };
+        run.methods.vacf = { velocitySource: v.velocitySource, comDriftRemoved: v.comDriftRemoved, plateaus: v.groups.map((g) => ({ group: g.label, window: g.greenKubo.window, uncertainty: g.greenKubo.uncertaintyMethod, blocks: g.greenKubo.uncertaintyBlocks })) };
         break;
       }
       case 'vdos': {
@@ -143,7 +144,14 @@ export function runAnalyses(
           velocitySource: r.velocitySource,
           differenceCorrection: dc ? { correctedUpToCm1: dc.correctedUpToThz * WAVENUMBER_PER_THZ, uncorrectableFraction: dc.uncorrectableFraction, factor: dc.correctedOverRaw } : null,
           warnings: r.warnings,
-          peaks: all.peaks.slice(0, 5).map((p) => ({ thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1 })),
+          peaks: all.peaks.slice(0, 5).map((p, i) => {
+            const se = r.errors?.peakThz[i];
+            return { thz: p.thz, cm1: p.cm1, meV: p.meV, fwhmCm1: p.fwhmCm1, cm1StdError: se === null || se === undefined ? null : se * WAVENUMBER_PER_THZ };
+          }),
+          stdErrors: r.errors ? {
+            blocks: r.errors.blocks, kineticTemperatureK: r.errors.kineticTemperatureK, cvPerAtomKB: r.errors.cvPerAtomKB,
+            entropyPerAtomKB: r.errors.entropyPerAtomKB, zeroPointEvPerAtom: r.errors.zeroPointPerAtomEV,
+          } : null,
           cv: { quantum: cv(quantum), classical: cv(classical) },
           entropy: { quantum: entropy(quantum), classical: entropy(classical) },
           zeroPoint: { evPerAtom: quantum.zeroPointPerAtomEV, kJPerMol: quantum.zeroPointKJPerMol },

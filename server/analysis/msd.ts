@@ -2,10 +2,17 @@
  * Mean-squared displacement per species and over the selection, from
  * unwrapped positions, over all time origins (FFT algorithm), with Einstein
  * diffusion coefficients fitted on the diffusive window.
+ *
+ * The standard error of each D comes from independent blocks
+ * (independent-blocks.ts): up to 16 contiguous groups of atoms, each fitted
+ * over the same window; a group of fewer than 5 atoms is instead cut into
+ * consecutive stretches of the run, each long enough for the window.
  */
 import { AtomSeriesReader } from './atom-series.ts';
 import { componentIndices, selectAtoms, type Components } from './atom-groups.ts';
-import { fitDiffusion, type DiffusionFit } from './diffusion-fit.ts';
+import { diffusionOverWindow, fitDiffusion, type DiffusionFit } from './diffusion-fit.ts';
+import { atomBlockIndex, blockStandardError, timeSegments } from './independent-blocks.ts';
+import { diffusionUnits } from './units.ts';
 import { FftMsd } from './fft-msd.ts';
 import { frameIntervalPs, lagCount } from './frame-timing.ts';
 import type { Trajectory } from './trajectory.ts';
@@ -43,8 +50,6 @@ export interface MsdResult {
   groups: MsdGroupResult[];
 }
 
-/** Atom blocks for the uncertainty of D: atoms are dealt round-robin into this many blocks. */
-export const DIFFUSION_BLOCKS = 8;
 /** The automatic fit window ends at lag ≤ run length / this. */
 export const AUTO_FIT_END_FRACTION_INVERSE = 4;
 
@@ -65,8 +70,9 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
   const groupOf = new Map<number, number[]>();
   sel.groups.forEach((g, gi) => g.atoms.forEach((a) => groupOf.set(a, [...(groupOf.get(a) ?? []), gi])));
   const sums = sel.groups.map(() => new Float64Array(nLags));
-  const blocks = sel.groups.map((g) => Array.from({ length: Math.min(DIFFUSION_BLOCKS, g.atoms.length) }, () => new Float64Array(nLags)));
-  const blockCount = sel.groups.map(() => new Float64Array(DIFFUSION_BLOCKS));
+  const blockPlans = sel.groups.map((g) => atomBlockIndex(g.atoms.length));
+  const blocks = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => new Float64Array(nLags)));
+  const blockCount = blockPlans.map((plan) => new Float64Array(plan?.blocks ?? 0));
   const seen = sel.groups.map(() => 0);
 
   sel.atoms.forEach((atom, k) => {
@@ -76,8 +82,10 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
     for (const gi of groupOf.get(atom) ?? []) {
       const sum = sums[gi];
       for (let m = 0; m < nLags; m++) sum[m] += perAtom[m];
-      const nb = blocks[gi].length;
-      const b = seen[gi]++ % nb;
+      const plan = blockPlans[gi];
+      const member = seen[gi]++;
+      if (!plan) continue;
+      const b = plan.of(member);
       const block = blocks[gi][b];
       for (let m = 0; m < nLags; m++) block[m] += perAtom[m];
       blockCount[gi][b]++;
@@ -91,12 +99,34 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
     const n = g.atoms.length;
     const curve = sums[gi].map((v) => v / n);
     const blockCurves = blocks[gi].map((b, bi) => b.map((v) => v / blockCount[gi][bi]));
-    return {
-      label: g.label,
-      nAtoms: n,
-      msdA2: curve,
-      diffusion: fitDiffusion({ lagPs, msd: curve, blocks: blockCurves, dimensions: dims.length, endIndex, window: options.fitWindowPs }),
-    };
+    let diffusion = fitDiffusion({ lagPs, msd: curve, blocks: blockCurves, dimensions: dims.length, endIndex, window: options.fitWindowPs });
+    if (diffusion.d && diffusion.uncertaintyMethod === 'none') diffusion = withTimeBlocks(diffusion, g.atoms, reader, dt, dims);
+    return { label: g.label, nAtoms: n, msdA2: curve, diffusion };
   });
   return { units: { lag: 'ps', msd: 'Å²' }, lagPs, dimensions: dims.length, components, unwrapped: reader.unwraps, comDriftRemoved: removeCom, groups };
+}
+
+/**
+ * For a group too small for atom blocks: D over the same lag window for each
+ * of its atoms in each consecutive stretch of the run, and the spread of those.
+ */
+function withTimeBlocks(fit: DiffusionFit, atoms: Int32Array, reader: AtomSeriesReader, dt: number, dims: number[]): DiffusionFit {
+  const i0 = Math.round(fit.window.startPs / dt), i1 = Math.round(fit.window.endPs / dt);
+  const plan = timeSegments(reader.nFrames, i1, atoms.length);
+  if (!plan || i1 - i0 < 2) return fit;
+  const T = reader.nFrames, S = plan.length;
+  const engine = new FftMsd(S, i1 + 1);
+  const series = new Float64Array(3 * T);
+  const curve = new Float64Array(i1 + 1);
+  const lagPs = Float64Array.from({ length: i1 + 1 }, (_, m) => m * dt);
+  const values: number[] = [];
+  for (const atom of atoms) {
+    reader.unwrapped(atom, series);
+    for (let b = 0; b < plan.segments; b++) {
+      curve.fill(0);
+      for (const c of dims) engine.accumulate(series, c * T + b * S, curve);
+      values.push(diffusionOverWindow(lagPs, curve, i0, i1, dims.length));
+    }
+  }
+  return { ...fit, dStdError: diffusionUnits(blockStandardError(values)), uncertaintyMethod: 'time-blocks', uncertaintyBlocks: values.length };
 }

@@ -6,12 +6,16 @@
  * The Green–Kubo plateau is read automatically where the normalised VACF has
  * decayed for good: from the first lag after which |C/C(0)| stays below
  * GK_DECAY_THRESHOLD up to the analysis end (lag ≤ a quarter of the run), the
- * plateau value is the mean of D(t) over [t_p, min(2·t_p, end)] and its
- * spread is the standard deviation there. A manual window overrides it.
+ * plateau value is the mean of D(t) over [t_p, min(2·t_p, end)]. A manual
+ * window overrides it. Its standard error comes from independent blocks
+ * (independent-blocks.ts): the same plateau mean taken in up to 16 groups of
+ * atoms, or, for fewer than 5 atoms, in consecutive stretches of the run. The
+ * spread of D(t) across the window is kept too, but it is not an error bar.
  */
 import { AtomSeriesReader } from './atom-series.ts';
 import { componentIndices, selectAtoms, type Components } from './atom-groups.ts';
 import { Autocorrelator } from './fft.ts';
+import { atomBlockIndex, blockStandardError, timeSegments } from './independent-blocks.ts';
 import { frameIntervalPs, lagCount } from './frame-timing.ts';
 import type { Trajectory } from './trajectory.ts';
 import { diffusionUnits, type DiffusionUnits } from './units.ts';
@@ -32,7 +36,11 @@ export interface VacfOptions {
 
 export interface GreenKubo {
   d: DiffusionUnits;
-  /** Spread of D(t) across the plateau window. */
+  /** Standard error from independent blocks; null when there are too few atoms and too short a run. */
+  dStdError: DiffusionUnits | null;
+  uncertaintyMethod: 'atom-blocks' | 'time-blocks' | 'none';
+  uncertaintyBlocks: number;
+  /** Spread of D(t) across the plateau window (not an error bar). */
   dSpread: DiffusionUnits;
   window: { startPs: number; endPs: number; source: 'auto' | 'manual' };
   converged: boolean;
@@ -86,6 +94,10 @@ export function vacf(traj: Trajectory, options: VacfOptions = {}, onProgress?: (
   const sums = sel.groups.map(() => new Float64Array(nLags));
   const weighted = sel.groups.map(() => new Float64Array(nLags));
   const memberOf = sel.groups.map((g) => new Set(g.atoms));
+  const blockPlans = sel.groups.map((g) => atomBlockIndex(g.atoms.length));
+  const blockSums = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => new Float64Array(nLags)));
+  const blockCount = blockPlans.map((plan) => new Float64Array(plan?.blocks ?? 0));
+  const seen = sel.groups.map(() => 0);
 
   sel.atoms.forEach((atom, k) => {
     reader.velocities(atom, velocities, dt, scratch);
@@ -102,6 +114,14 @@ export function vacf(traj: Trajectory, options: VacfOptions = {}, onProgress?: (
         s[m] += perAtom[m];
         w[m] += mass * perAtom[m];
       }
+      const plan = blockPlans[gi];
+      const member = seen[gi]++;
+      if (plan) {
+        const b = plan.of(member);
+        const block = blockSums[gi][b];
+        for (let m = 0; m < nLags; m++) block[m] += perAtom[m];
+        blockCount[gi][b]++;
+      }
     });
     onProgress?.((k + 1) / sel.atoms.length);
   });
@@ -115,13 +135,21 @@ export function vacf(traj: Trajectory, options: VacfOptions = {}, onProgress?: (
     const running = runningIntegral(c, dt, dims.length);
     let totalMass = 0;
     for (const a of g.atoms) totalMass += sel.masses[a];
+    const gk = plateau(normalised, running, lagPs, end, options.gkWindowPs);
+    const blockValues = blockSums[gi].map((b, bi) => windowMean(runningIntegral(b.map((v) => v / blockCount[gi][bi]), dt, dims.length), gk.indices));
+    const error = blockValues.length > 0
+      ? { se: blockStandardError(blockValues), method: 'atom-blocks' as const, blocks: blockValues.length }
+      : timeBlockError(g.atoms, reader, dt, dims, gk.indices);
     return {
       label: g.label,
       nAtoms: n,
       vacfA2PerPs2: c,
       normalised,
       runningDA2PerPs: running,
-      greenKubo: plateau(normalised, running, lagPs, end, options.gkWindowPs),
+      greenKubo: {
+        d: gk.d, dSpread: gk.dSpread, window: gk.window, converged: gk.converged,
+        dStdError: error ? diffusionUnits(error.se) : null, uncertaintyMethod: error?.method ?? 'none', uncertaintyBlocks: error?.blocks ?? 0,
+      },
       massWeightedSum: weighted[gi],
       totalMassU: totalMass,
     };
@@ -149,7 +177,41 @@ function runningIntegral(c: Float64Array, dt: number, d: number): Float64Array {
   return out;
 }
 
-function plateau(norm: Float64Array, running: Float64Array, lagPs: Float64Array, end: number, manual?: { startPs: number; endPs: number }): GreenKubo {
+/** Mean of a running integral over lags i0..i1. */
+function windowMean(running: Float64Array, [i0, i1]: [number, number]): number {
+  let mean = 0;
+  for (let i = i0; i <= i1; i++) mean += running[i];
+  return mean / (i1 - i0 + 1);
+}
+
+/**
+ * For a group too small for atom blocks: the plateau mean of the VACF
+ * integral for each of its atoms in each consecutive stretch of the run.
+ */
+function timeBlockError(atoms: Int32Array, reader: AtomSeriesReader, dt: number, dims: number[], window: [number, number]): { se: number; method: 'time-blocks'; blocks: number } | null {
+  const L = reader.velocityLength;
+  const plan = timeSegments(L, window[1], atoms.length);
+  if (!plan) return null;
+  const S = plan.length, nLags = window[1] + 1;
+  const correlator = new Autocorrelator(S);
+  const lagSums = new Float64Array(nLags), curve = new Float64Array(nLags);
+  const velocities = new Float64Array(3 * L), scratch = new Float64Array(3 * reader.nFrames);
+  const values: number[] = [];
+  for (const atom of atoms) {
+    reader.velocities(atom, velocities, dt, scratch);
+    for (let b = 0; b < plan.segments; b++) {
+      curve.fill(0);
+      for (const c of dims) {
+        correlator.correlate(velocities, lagSums, c * L + b * S);
+        for (let m = 0; m < nLags; m++) curve[m] += lagSums[m] / (S - m);
+      }
+      values.push(windowMean(runningIntegral(curve, dt, dims.length), window));
+    }
+  }
+  return { se: blockStandardError(values), method: 'time-blocks', blocks: values.length };
+}
+
+function plateau(norm: Float64Array, running: Float64Array, lagPs: Float64Array, end: number, manual?: { startPs: number; endPs: number }): Omit<GreenKubo, 'dStdError' | 'uncertaintyMethod' | 'uncertaintyBlocks'> & { indices: [number, number] } {
   const dt = lagPs.length > 1 ? lagPs[1] - lagPs[0] : 1;
   let i0: number, i1: number, converged = true;
   if (manual) {
@@ -177,5 +239,6 @@ function plateau(norm: Float64Array, running: Float64Array, lagPs: Float64Array,
     dSpread: diffusionUnits(Math.sqrt(variance)),
     window: { startPs: lagPs[i0], endPs: lagPs[i1], source: manual ? 'manual' : 'auto' },
     converged,
+    indices: [i0, i1],
   };
 }

@@ -27,7 +27,9 @@ import { harmonicThermo, type HarmonicThermo } from './harmonic-thermo.ts';
 import { findPeaks } from './peaks.ts';
 import type { WindowFunction } from './spectral-windows.ts';
 import { degreesOfFreedom, groupShare } from './degrees-of-freedom.ts';
+import { atomBlockIndex } from './independent-blocks.ts';
 import { chooseTemperature, type TemperatureChoice } from './temperature-choice.ts';
+import { vdosErrors, type VdosErrors } from './vdos-errors.ts';
 import type { Trajectory } from './trajectory.ts';
 import { correctCentralDifferences, planSegments, VelocityPowerSpectrum, type DifferenceCorrection } from './velocity-spectrum.ts';
 
@@ -104,6 +106,8 @@ export interface VdosResult {
   temperature: TemperatureChoice;
   /** Harmonic thermodynamics of the "all" group. */
   thermo: HarmonicThermo;
+  /** Standard errors of the "all" group's kinetic temperature, Cv, S, ZPE and peaks from independent atom blocks; null with fewer than 5 atoms. */
+  errors: VdosErrors | null;
   thermoNote: string;
 }
 
@@ -125,6 +129,10 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
   const windowed = new Float64Array(sel.groups.length);
   const memberOf = sel.groups.map((g) => new Set(g.atoms));
   const atomPower = new Float64Array(nFreq);
+  // Independent atom blocks of the first ("all") group, for the error bars.
+  const blockPlan = atomBlockIndex(sel.groups[0].atoms.length);
+  const blocks = Array.from({ length: blockPlan?.blocks ?? 0 }, () => ({ power: new Float64Array(nFreq), plain: 0, windowed: 0, atoms: 0 }));
+  let member = 0;
   const velocities = new Float64Array(3 * L);
   const scratch = new Float64Array(3 * traj.nFrames);
   sel.atoms.forEach((atom, k) => {
@@ -144,6 +152,13 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
       plain[gi] += mass * p;
       windowed[gi] += mass * w;
     });
+    if (blockPlan) {
+      const block = blocks[blockPlan.of(member++)];
+      for (let f = 0; f < nFreq; f++) block.power[f] += mass * atomPower[f];
+      block.plain += mass * p;
+      block.windowed += mass * w;
+      block.atoms++;
+    }
     onProgress?.((k + 1) / sel.atoms.length);
   });
 
@@ -182,6 +197,13 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
   const temperature = chooseTemperature(all.kineticTemperatureK, options.thermoTemperatureK, options.statedTemperatureK);
   let totalMass = 0;
   for (const a of sel.groups[0].atoms) totalMass += sel.masses[a];
+  const errors = vdosErrors({
+    freqTHz, degreesOfFreedom: all.degreesOfFreedom, nAtoms: all.nAtoms, totalMassU: totalMass, chosenK: options.thermoTemperatureK, peaks: all.peaks.slice(0, 5),
+    blocks: blocks.map((b) => {
+      const ratio = useStored ? 1 : correctCentralDifferences(freqTHz, b.power, dt).correctedOverRaw;
+      return { power: b.power, kinetic: b.plain * ratio, atoms: b.atoms };
+    }),
+  });
   return {
     units: { frequency: 'THz', dos: 'modes/THz' },
     freqTHz,
@@ -200,6 +222,7 @@ export function vdos(traj: Trajectory, options: VdosOptions = {}, onProgress?: (
     degreesOfFreedomRule: counted.rule,
     temperature,
     thermo: harmonicThermo(freqTHz, all.dosPerThz, temperature.usedK, all.nAtoms, totalMass),
+    errors,
     thermoNote:
       'Harmonic weights treat every mode as an oscillator; for liquids the ν→0 (diffusive) part makes the entropy approximate.',
   };

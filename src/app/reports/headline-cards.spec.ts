@@ -27,6 +27,17 @@ describe('headline cards', () => {
     expect(headlineCards({}, 'a2PerPs')).toEqual([]);
   });
 
+  it('when D has a block error, then the card says where it came from; an old Green–Kubo spread is not shown as ±', () => {
+    const cards = headlineCards(liquid, 'a2PerPs');
+    expect(cards.find((c) => c.id === 'msd')!.detail).toContain('± from independent groups of atoms');
+    const oldGk = cards.find((c) => c.id === 'vacf')!;
+    expect(oldGk.value).toBe('0.154');
+    expect(oldGk.detail).toContain('its spread there is 0.013 (not an error bar)');
+    const gk = headlineCards({ vacf: { ...liquid.vacf!, groups: [{ ...liquid.vacf!.groups[0]!, dStdError: D(0.004), uncertaintyMethod: 'atom-blocks', uncertaintyBlocks: 16 }] } }, 'a2PerPs')[0]!;
+    expect(gk.value).toBe('0.1540 ± 0.0040');
+    expect(gk.detail).toContain('± from 16 independent groups of atoms');
+  });
+
   it('when the Green–Kubo integral has not converged or the run melted, then the card carries a warning', () => {
     const cards = headlineCards(liquid, 'a2PerPs');
     expect(cards.find((c) => c.id === 'vacf')!.warning).toMatch(/not settled/);

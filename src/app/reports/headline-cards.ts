@@ -25,10 +25,21 @@ function withError(d: DiffusionValue | null, err: DiffusionValue | null, unit: D
   return d ? formatWithError(d[unit], err?.[unit]) : '—';
 }
 
+/** Where a ± came from, in a few words. */
+export function errorSource(method: string | undefined, blocks: number | undefined): string {
+  const n = blocks ? `${blocks} ` : '';
+  switch (method) {
+    case 'atom-blocks': return `± from ${n}independent groups of atoms`;
+    case 'time-blocks': return `± from ${n}independent stretches of atoms and time origins`;
+    case 'fit-residuals': return '± from the fit residuals';
+    default: return 'no statistical error available';
+  }
+}
+
 function msdCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): HeadlineCard {
   const g = s.groups[0]!;
   const detail = g.d
-    ? `Einstein fit over ${span(g.fitWindowPs)}, log–log slope ${formatNumber(g.slopeExponent, 2)}, ${REGIME_WORDS[g.regime]}`
+    ? `Einstein fit over ${span(g.fitWindowPs)}, log–log slope ${formatNumber(g.slopeExponent, 2)}, ${REGIME_WORDS[g.regime]}; ${errorSource(g.uncertaintyMethod, g.uncertaintyBlocks)}`
     : g.plateauA2 !== null ? `MSD levels off near ${formatNumber(g.plateauA2, 3)} Å²: ${REGIME_WORDS[g.regime]}` : REGIME_WORDS[g.regime];
   const warning = g.d && g.regime !== 'diffusive' ? `The MSD is ${g.regime} over the fit window; D may not be a long-time value.` : null;
   return { id: 'msd', title: 'D from MSD (Einstein)', value: withError(g.d, g.dStdError, unit), unit: g.d ? diffusionLabel(unit) : '', detail, warning };
@@ -36,9 +47,11 @@ function msdCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): Hea
 
 function vacfCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): HeadlineCard {
   const g = s.groups[0]!;
+  // Reports before engine 0.2 carry only the plateau's spread, which is not an error bar: show no ± for them.
+  const error = g.dStdError === undefined ? null : g.dStdError;
   return {
-    id: 'vacf', title: 'D from VACF (Green–Kubo)', value: withError(g.dGreenKubo, g.spread, unit), unit: diffusionLabel(unit),
-    detail: `Running integral read over ${span(g.plateauWindowPs)}; ± is its spread there`,
+    id: 'vacf', title: 'D from VACF (Green–Kubo)', value: withError(g.dGreenKubo, error, unit), unit: diffusionLabel(unit),
+    detail: `Running integral read over ${span(g.plateauWindowPs)}; ${g.dStdError === undefined ? `its spread there is ${formatNumber(g.spread[unit], 2)} (not an error bar)` : errorSource(g.uncertaintyMethod, g.uncertaintyBlocks)}`,
     warning: g.converged ? null : 'The running integral has not settled to a plateau.',
   };
 }
@@ -74,15 +87,17 @@ function temperatureUsed(s: NonNullable<ReportSummary['vdos']>): string {
 function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
   const peaks = s.peaks.slice(0, 3);
   const T = formatNumber(s.temperatureK, 4);
+  const e = s.stdErrors ?? null;
+  const blocks = e ? `; ± from ${e.blocks} independent groups of atoms` : '';
   return [
     {
-      id: 'vdos-peaks', title: 'VDOS peaks', value: peaks.length ? peaks.map((p) => formatNumber(p.cm1, 4)).join(', ') : '—', unit: peaks.length ? 'cm⁻¹' : '',
-      detail: peaks.length ? `${peaks.map((p) => formatNumber(p.thz, 3)).join(', ')} THz · ${peaks.map((p) => formatNumber(p.meV, 3)).join(', ')} meV` : 'No peak stands out of the spectrum',
+      id: 'vdos-peaks', title: 'VDOS peaks', value: peaks.length ? peaks.map((p) => formatWithError(p.cm1, p.cm1StdError)).join(', ') : '—', unit: peaks.length ? 'cm⁻¹' : '',
+      detail: peaks.length ? `${peaks.map((p) => formatNumber(p.thz, 3)).join(', ')} THz · ${peaks.map((p) => formatNumber(p.meV, 3)).join(', ')} meV${blocks}` : 'No peak stands out of the spectrum',
       warning: joined(s.warnings ?? []),
     },
     {
-      id: 'cv', title: `Heat capacity Cv at ${T} K`, value: formatNumber(s.cv.quantum.perAtomKB, 4), unit: 'k_B per atom',
-      detail: `Quantum harmonic ${temperatureUsed(s)}; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom`,
+      id: 'cv', title: `Heat capacity Cv at ${T} K`, value: formatWithError(s.cv.quantum.perAtomKB, e?.cvPerAtomKB), unit: 'k_B per atom',
+      detail: `Quantum harmonic ${temperatureUsed(s)}; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom${blocks}`,
       warning: joined([s.temperatureWarning, ...(s.warnings ?? [])]),
     },
   ];

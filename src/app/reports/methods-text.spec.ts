@@ -41,7 +41,7 @@ describe('methods text', () => {
     expect(msd!.body).toContain('FFT (Wiener–Khinchin)');
     expect(msd!.body).toContain('MSD(t) = 2·3·D·t');
     expect(msd!.body).toContain('0.9–1.7 ps (chosen automatically)');
-    expect(msd!.body).toContain('independent blocks of atoms');
+    expect(msd!.body).toContain('standard error from the spread of D over independent groups of atoms');
   });
 
   it('when an analysis did not run, then it has no paragraph', () => {

@@ -57,8 +57,19 @@ function thermoParagraph(s: NonNullable<ReportSummary['thermo']>, m: Json): Meth
   };
 }
 
+/** How a standard error was found, for the methods text (SCIENCE item 30). */
+function uncertaintyWords(method: string | undefined, blocks: number | undefined): string {
+  const n = blocks ? `${blocks} ` : '';
+  switch (method) {
+    case 'atom-blocks': return `standard error from the spread of D over ${n}independent groups of atoms`;
+    case 'time-blocks': return `standard error from the spread of D over ${n}independent blocks, each atom in consecutive stretches of the run (time origins)`;
+    case 'fit-residuals': return 'uncertainty from the fit residuals';
+    default: return 'no statistical error (too few atoms and too short a run for independent blocks)';
+  }
+}
+
 function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Json): MethodsParagraph {
-  const fits = s.groups.map((g) => `${g.label}: ${span(g.fitWindowPs)}, uncertainty from ${g.uncertaintyMethod === 'atom-blocks' ? 'independent blocks of atoms' : g.uncertaintyMethod === 'fit-residuals' ? 'the fit residuals' : 'nothing (none available)'}`);
+  const fits = s.groups.map((g) => `${g.label}: ${span(g.fitWindowPs)}, ${uncertaintyWords(g.uncertaintyMethod, g.uncertaintyBlocks)}`);
   return {
     heading: 'Mean-square displacement and diffusion',
     body: `MSD by the FFT (Wiener–Khinchin) algorithm averaged over all time origins, on positions ${flag(m, 'unwrapped') === false ? 'as stored' : 'unwrapped across periodic boundaries'}` +
@@ -70,11 +81,14 @@ function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Jso
 function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsParagraph {
   const source = s.velocitySource === 'stored-velocities' ? 'stored velocities'
     : 'central differences of unwrapped positions (which damp fast modes by sin(ωΔt)/(ωΔt), lowering the VACF at short lags but not its integral)';
-  const windows = s.groups.map((g) => `${g.label}: ${span(g.plateauWindowPs)}`).join('; ');
+  const windows = s.groups.map((g) => `${g.label}: ${span(g.plateauWindowPs)}${g.dStdError !== undefined ? `, ${uncertaintyWords(g.uncertaintyMethod, g.uncertaintyBlocks)}` : ''}`).join('; ');
+  const errorNote = s.groups.some((g) => g.dStdError !== undefined)
+    ? 'the spread of the running integral across the window measures how flat the plateau is and is not used as an error bar'
+    : 'the quoted spread of the running integral there is not a standard error';
   return {
     heading: 'Velocity autocorrelation and Green–Kubo diffusion',
     body: `VACF ⟨v(0)·v(t)⟩ by FFT over all time origins from ${source}${flag(m, 'comDriftRemoved') ? ', centre-of-mass motion removed' : ''}. ` +
-      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau — ${windows}; the quoted ± is the spread of the running integral there.`,
+      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau — ${windows}; ${errorNote}.`,
   };
 }
 
@@ -100,6 +114,7 @@ function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: J
       `non-negative at every frequency (${windowName(text(m, 'window') ?? text(params, 'window'))}, ${averaged}, FFT length ${f(num(m, 'fftLength'), 12)}, ` +
       `bin ${f(num(m, 'binWidthThz'), 3)} THz), normalised to ${f(s.modes, 6)} modes; 1 THz = 33.356 cm⁻¹ = 4.1357 meV. ` +
       `Heat capacity, entropy and zero-point energy from the VDOS with quantum harmonic weights at ${f(s.temperatureK)} K (${temperatureChoice(s)}), beside the classical (Dulong–Petit) limit.` +
+      (s.stdErrors ? ` Standard errors of the kinetic temperature, heat capacity, entropy, zero-point energy and peak positions from ${s.stdErrors.blocks} independent groups of atoms, each spectrum normalised to the same modes; peak positions add a tenth of a bin for the reading between samples.` : '') +
       `${correction}${text(m, 'thermoNote') ? ` ${text(m, 'thermoNote')}` : ''}${warned([...(s.temperatureWarning ? [s.temperatureWarning] : []), ...(s.warnings ?? [])])}`,
   };
 }
