@@ -97,3 +97,22 @@ describe('ideal gas: P = ρ·k_B·T (SCIENCE item 27, COMMON PRACTICE)', () => {
     expect(r.potentialPerAtomEV!.every((u) => u === 0)).toBe(true);
   });
 });
+
+describe('LJ tail corrections (SCIENCE item 27; Allen & Tildesley, FROM MEMORY)', () => {
+  it('when a truncated LJ pair asks for tail corrections, then U_tail/N = (8/3)πρεσ³[(σ/rc)⁹/3 − (σ/rc)³] and P_tail = (16/3)πρ²εσ³[(2/3)(σ/rc)⁹ − (σ/rc)³]; a mixture sums over ordered species pairs', () => {
+    const sigma = 3.405, eps = 0.0103236, rc = 2.5 * sigma, L = 30;
+    const rng = new SeededRandom(5);
+    const n = 400;
+    const positions = Float64Array.from({ length: 3 * n }, () => rng.uniform() * L);
+    const e = frame({ pairs: [{ species: ['Ar', 'Ar'], form: 'lj', epsilonEV: eps, sigmaA: sigma, cutoffA: rc, tailCorrection: true }] }, positions, [L, 0, 0, 0, L, 0, 0, 0, L]);
+    const rho = n / L ** 3, x = sigma / rc;
+    expect(e.tailEV / n).toBeCloseTo((8 / 3) * Math.PI * rho * eps * sigma ** 3 * (x ** 9 / 3 - x ** 3), 14);
+    expect(e.tailPressureEVPerA3).toBeCloseTo((16 / 3) * Math.PI * rho ** 2 * eps * sigma ** 3 * ((2 / 3) * x ** 9 - x ** 3), 16);
+    // Two species with identical parameters must give the one-species answer (ordered pairs counted once each).
+    const species = Array.from({ length: n }, (_, i) => (i % 3 === 0 ? 'Kr' : 'Ar'));
+    const model = interactionModelSchema.parse({ pairs: ['Ar', 'Kr'].map((s) => ({ species: [s, s], form: 'lj', epsilonEV: eps, sigmaA: sigma, cutoffA: rc, tailCorrection: true })) });
+    const mixed = new FrameEnergyEvaluator(compileModel(model, species), species).evaluate(positions, 0, [L, 0, 0, 0, L, 0, 0, 0, L]);
+    expect(mixed.tailEV).toBeCloseTo(e.tailEV, 12);
+    expect(mixed.pairEV).toBeCloseTo(e.pairEV, 9);
+  });
+});
