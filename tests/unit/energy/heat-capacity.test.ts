@@ -87,3 +87,33 @@ describe('heat capacity from fluctuations of a classical harmonic crystal (SCIEN
     expect(r.heatCapacityNote).toMatch(/ensemble/);
   });
 });
+
+describe('isobaric heat capacity from enthalpy fluctuations (SCIENCE item 28)', () => {
+  it('when an ideal gas samples the NPT ensemble exactly, then C_P = ⟨δH²⟩/(k_B T²) gives (5/2 + 1/N) k_B per atom within its error [exact: V ~ Gamma(N+1, k_BT/P), COMMON PRACTICE]', async () => {
+    const { interactionModelSchema } = await import('../../../shared/interaction-model.ts');
+    const { BAR_PER_EV_PER_A3 } = await import('../../../shared/energy-units.ts');
+    const N = 100, frames = 3000, T = 150, pBar = 200;
+    const rng = new SeededRandom(31);
+    const kT = BOLTZMANN_EV_PER_K * T, pEV = pBar / BAR_PER_EV_PER_A3;
+    const positions = new Float32Array(3 * N * frames), velocities = new Float32Array(3 * N * frames), cells = new Float64Array(9 * frames);
+    const sv = Math.sqrt((BOLTZMANN_ENGINE * T) / MASS);
+    for (let f = 0; f < frames; f++) {
+      let gamma = 0;
+      for (let k = 0; k <= N; k++) gamma -= Math.log(1 - rng.uniform());
+      const L = Math.cbrt((gamma * kT) / pEV);
+      cells[9 * f] = cells[9 * f + 4] = cells[9 * f + 8] = L;
+      for (let k = 0; k < 3 * N; k++) {
+        positions[3 * N * f + k] = rng.uniform() * L;
+        velocities[3 * N * f + k] = sv * rng.normal();
+      }
+    }
+    const traj: Trajectory = { nAtoms: N, nFrames: frames, species: new Array(N).fill('Ar'), positions, velocities, cells, times: Float64Array.from({ length: frames }, (_, f) => f * 0.05), boundary: 'periodic' };
+    const model = interactionModelSchema.parse({ pairs: [{ species: ['Ar', 'Ar'], form: 'none' }] });
+    const r = energy(traj, { model, ensemble: 'NPT', temperatureK: T, externalPressureBar: pBar, degreesOfFreedom: 3 * N, masses: { Ar: MASS } });
+    const c = r.heatCapacity!;
+    expect(c.quantity).toBe('C_P');
+    expect(c.pressureBar).toBe(pBar);
+    expect(Math.abs(c.perAtomKB - (2.5 + 1 / N))).toBeLessThan(3 * c.perAtomKBStdError);
+    expect(c.perAtomKBStdError).toBeLessThan(0.15);
+  });
+});
