@@ -20,7 +20,7 @@ const mean = (b: BlockAverage): MeanWithError => ({ mean: b.mean, stdError: b.st
 export function energySection(traj: Trajectory, params: AnalysisParams, onProgress?: (fraction: number) => void): EnergySection {
   const r = energy(traj, {
     model: params.interactionModel ?? null, fileQuantities: params.fileQuantities ?? null, masses: params.masses,
-    degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints, ensemble: params.ensemble ?? null,
+    degreesOfFreedom: params.degreesOfFreedom, constraints: params.constraints ?? undefined, removeComDrift: params.removeComDrift, ensemble: params.ensemble ?? null,
     temperatureK: params.temperatureK, externalPressureBar: params.externalPressureBar, driftThresholdKTPerNs: params.driftThresholdKTPerNs,
   }, onProgress);
   return { summary: summaryOf(r, params), curve: curveOf(r), methods: methodsOf(r, traj, params) };

@@ -46,6 +46,11 @@ export interface EnergyOptions {
   masses?: Readonly<Record<string, number>>;
   degreesOfFreedom?: number;
   constraints?: number;
+  /**
+   * Temperature and the kinetic part of the pressure leave out the centre-of-mass
+   * motion (matching f = 3N − N_c − 3); the total energy keeps all of it. Default true.
+   */
+  removeComDrift?: boolean;
   ensemble?: Ensemble | null;
   /** Thermostat temperature for C_V/C_P (NVT, NPT); default the mean kinetic temperature. */
   temperatureK?: number;
@@ -135,7 +140,8 @@ export interface EnergyResult {
 export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress?: (fraction: number) => void): EnergyResult {
   const N = traj.nAtoms, T = traj.nFrames;
   const masses = Float64Array.from(traj.species, (s) => massOf(s, options.masses));
-  const dof = degreesOfFreedomFor(N, { degreesOfFreedom: options.degreesOfFreedom, constraints: options.constraints });
+  const removeCom = options.removeComDrift ?? true;
+  const dof = degreesOfFreedomFor(N, { degreesOfFreedom: options.degreesOfFreedom, constraints: options.constraints, removeComDrift: removeCom });
   if (!(dof > 0)) throw new Error('Degrees of freedom must be positive.');
   const periodic = traj.boundary === 'periodic';
   if (periodic && (!traj.cells || traj.cells.length !== 9 * T)) throw new Error('A periodic trajectory needs one cell (9 numbers) per frame.');
@@ -147,13 +153,17 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
 
   // Kinetic energy and its tensor (u·Å²/ps²) per frame.
   const kinetic = new Float64Array(T);
+  /** Kinetic energy without the centre-of-mass motion when that is removed (temperature, pressure). */
+  const internal = new Float64Array(T);
   const kineticTensor = new Float64Array(6 * T);
+  let totalMass = 0;
+  for (let i = 0; i < N; i++) totalMass += masses[i];
   let kineticSource: EnergyResult['sources']['kinetic'];
   const v = traj.velocities;
   if (v) {
     kineticSource = 'stored velocities';
     for (let f = 0; f < T; f++) {
-      let xx = 0, yy = 0, zz = 0, xy = 0, xz = 0, yz = 0;
+      let xx = 0, yy = 0, zz = 0, xy = 0, xz = 0, yz = 0, px = 0, py = 0, pz = 0;
       const base = 3 * N * f;
       for (let i = 0; i < N; i++) {
         const p = base + 3 * i, m = masses[i];
@@ -164,27 +174,38 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
         xy += m * vx * vy;
         xz += m * vx * vz;
         yz += m * vy * vz;
+        px += m * vx;
+        py += m * vy;
+        pz += m * vz;
       }
       kinetic[f] = 0.5 * (xx + yy + zz);
+      if (removeCom) {
+        // Take out P⊗P/M, the centre-of-mass part of Σ m v⊗v.
+        const M = totalMass;
+        xx -= (px * px) / M, yy -= (py * py) / M, zz -= (pz * pz) / M, xy -= (px * py) / M, xz -= (px * pz) / M, yz -= (py * pz) / M;
+      }
+      internal[f] = 0.5 * (xx + yy + zz);
       kineticTensor.set([xx, yy, zz, xy, xz, yz], 6 * f);
     }
   } else if (file.temperatureK) {
     kineticSource = 'file temperature';
     for (let f = 0; f < T; f++) {
       kinetic[f] = (0.5 * dof * BOLTZMANN_EV_PER_K * file.temperatureK[f]) / EV_PER_ENGINE_ENERGY;
+      internal[f] = kinetic[f];
       const iso = (2 * kinetic[f]) / 3;
       kineticTensor.set([iso, iso, iso, 0, 0, 0], 6 * f);
     }
   } else {
     kineticSource = 'finite differences';
     kinetic.set(kineticEnergies(traj, masses));
+    internal.set(kinetic);
     for (let f = 0; f < T; f++) {
       const iso = (2 * kinetic[f]) / 3;
       kineticTensor.set([iso, iso, iso, 0, 0, 0], 6 * f);
     }
   }
   const kineticPerAtomEV = kinetic.map((k) => (k * EV_PER_ENGINE_ENERGY) / N);
-  const temperatureK = kinetic.map((k) => (2 * k * EV_PER_ENGINE_ENERGY) / (dof * BOLTZMANN_EV_PER_K));
+  const temperatureK = internal.map((k) => (2 * k * EV_PER_ENGINE_ENERGY) / (dof * BOLTZMANN_EV_PER_K));
 
   // Potential energy and virial from the model, frame by frame.
   let modelPotential: Float64Array | null = null;
