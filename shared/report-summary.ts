@@ -169,9 +169,20 @@ export interface LindemannSummary {
   displacementRatio: number;
 }
 
-export interface NgpSummary {
+export interface NgpGroupSummary {
+  /** A species, or "all" when the selection holds one species. */
+  label: string;
+  atoms: number;
   peakLagPs: number | null;
   peakAlpha2: number | null;
+}
+
+export interface NgpSummary {
+  /** The peak of the single species analysed; null for a mixture, whose species are in `groups` (unlike atoms are never pooled). */
+  peakLagPs: number | null;
+  peakAlpha2: number | null;
+  /** One per species (absent in reports before engine 0.2). */
+  groups?: NgpGroupSummary[];
 }
 
 export interface SqSummary {

@@ -214,8 +214,13 @@ export function runAnalyses(
       }
       case 'ngp': {
         const r = ngp(traj, { species, masses, components: params.components, maxLagPs: params.maxLagPs, removeComDrift: params.removeComDrift }, progress);
-        run.summary.ngp = { peakLagPs: r.peak?.lagPs ?? null, peakAlpha2: r.peak?.alpha2 ?? null };
-        run.curves.ngp = curve([['lag', 'ps', r.lagPs], ['alpha2', '1', r.alpha2], ['MSD', 'Å²', r.msdA2]]);
+        const groups = r.groups.map((g) => ({ label: g.label, atoms: g.nAtoms, peakLagPs: g.peak?.lagPs ?? null, peakAlpha2: g.peak?.alpha2 ?? null }));
+        const single = groups.length === 1 ? groups[0] : null;
+        run.summary.ngp = { peakLagPs: single?.peakLagPs ?? null, peakAlpha2: single?.peakAlpha2 ?? null, groups };
+        run.curves.ngp = curve([
+          ['lag', 'ps', r.lagPs],
+          ...r.groups.flatMap((g): [string, string, Float64Array][] => [[`alpha2 ${g.label}`, '1', g.alpha2], [`MSD ${g.label}`, 'Å²', g.msdA2]]),
+        ]);
         run.methods.ngp = { originStride: r.originStride };
         break;
       }

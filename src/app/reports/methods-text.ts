@@ -146,7 +146,8 @@ function lindemannParagraph(s: NonNullable<ReportSummary['lindemann']>, m: Json)
 function ngpParagraph(m: Json): MethodsParagraph {
   return {
     heading: 'Non-Gaussian parameter',
-    body: `α₂(t) = d·⟨Δr⁴⟩/((d+2)·⟨Δr²⟩²) − 1 (3⟨Δr⁴⟩/(5⟨Δr²⟩²) − 1 in 3-D) from unwrapped displacements, time origins every ${f(num(m, 'originStride'), 6)} frame(s).`,
+    body: `α₂(t) = d·⟨Δr⁴⟩/((d+2)·⟨Δr²⟩²) − 1 (3⟨Δr⁴⟩/(5⟨Δr²⟩²) − 1 in 3-D) from unwrapped displacements, time origins every ${f(num(m, 'originStride'), 6)} frame(s), ` +
+      'for each species separately: unlike atoms are never pooled, since a mixture of Gaussian walkers with different D is not Gaussian.',
   };
 }
 

@@ -2,9 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { BOLTZMANN_ENGINE } from '../../../server/analysis/constants.ts';
 import { lindemann } from '../../../server/analysis/lindemann.ts';
 import { msd } from '../../../server/analysis/msd.ts';
+import { runAnalyses } from '../../../server/analysis/index.ts';
 import { ngp } from '../../../server/analysis/ngp.ts';
 import { fccLattice } from '../../../server/simulate/fcc-lattice.ts';
 import { SeededRandom } from '../../../server/simulate/random.ts';
+import { randomWalkMixture } from './known-answer-systems.ts';
 import { cubicCells, makeTrajectory, randomWalk } from './synthetic.ts';
 
 // SCIENCE item 17 [DERIVED]: two atoms at separation d with independent Gaussian jitter s per component
@@ -105,11 +107,28 @@ describe('Non-Gaussian parameter', () => {
       for (let c = 0; c < 3; c++) out[c] = 2 * dirs[i][c] * f * 0.1;
     });
     const r = ngp(traj, { removeComDrift: false });
-    r.alpha2.forEach((v) => expect(v).toBeCloseTo(-0.4, 5));
+    r.groups[0].alpha2.forEach((v) => expect(v).toBeCloseTo(-0.4, 5));
   });
 
   it('when atoms take Gaussian random steps, then α₂ ≈ 0 at every lag', () => {
     const r = ngp(randomWalk(500, 1000, 0.1, 0.3, 6), { removeComDrift: false });
-    r.alpha2.forEach((v) => expect(Math.abs(v)).toBeLessThan(0.05));
+    r.groups[0].alpha2.forEach((v) => expect(Math.abs(v)).toBeLessThan(0.05));
+  });
+
+  // Pooling is what must not happen [DERIVED]: each Gaussian species has ⟨r⁴⟩ = (5/3)⟨r²⟩², so an equal mixture
+  // with ⟨r²⟩ = a and b gives α₂ = 2(a² + b²)/(a + b)² − 1 = 0.669 for b = 10a; issue 9 saw 0.6–0.7 this way.
+  it('when two species random-walk with D = 0.1 and 1.0 Å²/ps, then each species has |α₂| < 0.05 at every lag and nothing is pooled', () => {
+    const mix = randomWalkMixture([{ species: 'Ar', atoms: 250, d: 0.1 }, { species: 'Ne', atoms: 250, d: 1.0 }], { frames: 1000, timeStepPs: 0.1, boxA: 30, seed: 3 });
+    const r = ngp(mix, { removeComDrift: false });
+    expect(r.groups.map((g) => g.label)).toEqual(['Ar', 'Ne']);
+    for (const g of r.groups) g.alpha2.forEach((v) => expect(Math.abs(v)).toBeLessThan(0.05));
+  });
+
+  it('when the mixture goes through the report, then the summary lists α₂ per species and has no pooled peak', () => {
+    const mix = randomWalkMixture([{ species: 'Ar', atoms: 100, d: 0.1 }, { species: 'Ne', atoms: 100, d: 1.0 }], { frames: 400, timeStepPs: 0.1, boxA: 30, seed: 4 });
+    const s = runAnalyses(mix, ['ngp'], { removeComDrift: false }).summary.ngp!;
+    expect(s.groups?.map((g) => g.label)).toEqual(['Ar', 'Ne']);
+    expect(s.peakAlpha2).toBeNull();
+    for (const g of s.groups!) expect(Math.abs(g.peakAlpha2!)).toBeLessThan(0.1);
   });
 });

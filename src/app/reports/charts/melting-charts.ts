@@ -1,15 +1,27 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { LindemannSummary, NgpSummary } from '../../../../shared/report-summary';
 import { xAxis, yAxis, baseOption, GUIDE, line, type ChartOption, type ScatterSeries } from './chart-option';
-import { column, points } from './curve-columns';
+import { column, groupColumns, points } from './curve-columns';
 
-/** α₂(t) on a log time axis, its peak marked: where motion is most heterogeneous. */
+/**
+ * α₂(t) on a log time axis, one line per species (never pooled), each
+ * species' peak marked: where its motion is most heterogeneous. Reports
+ * before engine 0.2 have a single "alpha2" column.
+ */
 export function ngpChart(curve: ReportCurve, summary: NgpSummary | undefined): ChartOption {
-  const series = line('α₂(t)', points(column(curve, 'lag') ?? [], column(curve, 'alpha2') ?? []).filter(([x]) => x > 0), { showSymbol: true, symbolSize: 4 });
-  if (summary?.peakLagPs) {
-    series.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dotted' }, label: { formatter: 'peak', color: GUIDE }, data: [{ xAxis: summary.peakLagPs }] };
-  }
-  return { ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('α₂'), series: [series] };
+  const lag = column(curve, 'lag') ?? [];
+  const perSpecies = groupColumns(curve, 'alpha2');
+  const lines = perSpecies.length ? perSpecies : [{ group: '', values: column(curve, 'alpha2') ?? [] }];
+  const peaks = summary?.groups ?? (summary?.peakLagPs ? [{ label: '', peakLagPs: summary.peakLagPs }] : []);
+  const series = lines.map(({ group, values }) => {
+    const s = line(group ? `α₂ ${group}` : 'α₂(t)', points(lag, values).filter(([x]) => x > 0), { showSymbol: true, symbolSize: 4 });
+    const peak = peaks.find((p) => p.label === group || (lines.length === 1 && !group));
+    if (peak?.peakLagPs) {
+      s.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dotted' }, label: { formatter: group ? `peak ${group}` : 'peak', color: GUIDE }, data: [{ xAxis: peak.peakLagPs }] };
+    }
+    return s;
+  });
+  return { ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('α₂'), series };
 }
 
 /** Each atom's Lindemann index, with the melting threshold as a line. */

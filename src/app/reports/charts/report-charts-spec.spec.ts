@@ -81,3 +81,18 @@ describe('g(r) chart', () => {
     expect(names(withRdf(cols))).toEqual(['g(r) all', 'g(r) Na-Na', 'g(r) Na-Cl', 'g(r) Cl-Cl', 'N(r) all', 'N(r) Na-Na', 'N(r) Na-Cl', 'N(r) Cl-Cl']);
   });
 });
+
+describe('α₂ chart', () => {
+  it('when a mixture was analysed, then each species has its own α₂ line with its own peak marked, and an older single column still draws', async () => {
+    const { ngpChart } = await import('./melting-charts');
+    const perSpecies = ngpChart(curve([['lag', 'ps', lags], ['alpha2 Ar', '1', lags.map(() => 0.01)], ['MSD Ar', 'Å²', lags], ['alpha2 Ne', '1', lags.map(() => -0.01)], ['MSD Ne', 'Å²', lags]]), {
+      peakLagPs: null, peakAlpha2: null, groups: [{ label: 'Ar', atoms: 2, peakLagPs: 0.4, peakAlpha2: 0.01 }, { label: 'Ne', atoms: 2, peakLagPs: 0.8, peakAlpha2: -0.01 }],
+    });
+    const lines = perSpecies.series as LineSeries[];
+    expect(lines.map((s) => s.name)).toEqual(['α₂ Ar', 'α₂ Ne']);
+    expect(lines.map((s) => (s.markLine?.data as { xAxis: number }[])[0]!.xAxis)).toEqual([0.4, 0.8]);
+    const old = ngpChart(curve([['lag', 'ps', lags], ['alpha2', '1', lags.map(() => 0.02)]]), { peakLagPs: 0.2, peakAlpha2: 0.02 });
+    expect((old.series as LineSeries[]).map((s) => s.name)).toEqual(['α₂(t)']);
+    expect(((old.series as LineSeries[])[0]!.markLine?.data as { xAxis: number }[])[0]!.xAxis).toBe(0.2);
+  });
+});
