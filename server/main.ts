@@ -22,6 +22,7 @@ export interface RunningServer {
  */
 export async function startServer(config: Config = loadConfig()): Promise<RunningServer> {
   const ctx = createContext(config);
+  ctx.log.info('Ergodic is starting');
   await runMigrations(ctx.db);
   const sweepUploads = async () => {
     const dropped = await dropStaleUploads(ctx).catch((err: Error) => ctx.log.warn({ err: err.message }, 'could not sweep stale uploads'));
@@ -62,11 +63,26 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     console.error(err instanceof Error ? err.message : err);
     process.exit(1);
   }
-  const running = await startServer(config);
+  // Listening for signals from the first moment: a SIGTERM during start-up stops the server as soon as it is up.
+  let running: RunningServer | null = null;
+  let stopping = false;
   const shutdown = async () => {
+    if (stopping) return;
+    stopping = true;
+    if (!running) return;
     await running.stop();
     process.exit(0);
   };
-  process.once('SIGINT', shutdown);
-  process.once('SIGTERM', shutdown);
+  process.on('SIGINT', () => void shutdown());
+  process.on('SIGTERM', () => void shutdown());
+  try {
+    running = await startServer(config);
+  } catch (err) {
+    console.error(err instanceof Error ? err.message : err);
+    process.exit(1);
+  }
+  if (stopping) {
+    await running.stop();
+    process.exit(0);
+  }
 }
