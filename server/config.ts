@@ -46,6 +46,10 @@ const configSchema = z.object({
   WORKER_SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
   /** How often a worker looks for runs and inspections whose queue entry was lost, and queues them again. */
   WORKER_SWEEP_INTERVAL_MS: z.coerce.number().int().min(1000).default(60_000),
+  /** Runs estimated to take longer than this (one core) are refused before they are queued, with advice. */
+  ANALYSIS_MAX_SECONDS: z.coerce.number().positive().default(4 * 3600),
+  /** Runs estimated to need more memory than this are refused before they are queued, with advice. */
+  ANALYSIS_MAX_MEMORY_BYTES: bytes.default(4 * 1024 ** 3),
   /** Positions and velocities per object of the binary frame store written at inspection. */
   FRAME_STORE_CHUNK_BYTES: z.coerce.number().int().min(4096).max(256 * 1024 ** 2).default(8 * 1024 ** 2),
   /** Longest wait for the queue to accept a job before the request fails with 503. */

@@ -49,6 +49,14 @@ export const fitWindowSchema = z.union([z.object({ mode: z.literal('auto') }), z
 export type FitWindow = z.infer<typeof fitWindowSchema>;
 
 export const analysisParamsSchema = z.object({
+  /** First frame analysed, 0-based (see shared/frame-selection.ts). */
+  fromFrame: z.number().int().nonnegative().default(0),
+  /** One past the last frame analysed; absent means to the end. */
+  toFrame: z.number().int().positive().optional(),
+  /** Every n-th frame; absent means 1, or more for runs longer than 100 000 frames. */
+  frameStride: z.number().int().positive().max(1_000_000).optional(),
+  /** Time left out at the start of the range for equilibration, ps. */
+  discardPs: z.number().nonnegative().max(1e9).default(0),
   /** Species to include; empty means all. */
   species: z.array(label).max(PARAM_LIMITS.maxSpecies, `must list at most ${PARAM_LIMITS.maxSpecies} species`).default([]),
   /** Species pair for g(r) beside the total; absent means every pair. */

@@ -73,6 +73,12 @@ export const trajectorySchema = z.object({
   sizeBytes: z.number().int(),
   /** Bytes of the binary frame store written at inspection (counted in the project's storage). */
   frameStoreBytes: z.number().int(),
+  /**
+   * Where inspection judged the run equilibrated (automated equilibration
+   * detection on the series named), offered as the analyses' discard; null
+   * when nothing could be judged.
+   */
+  equilibration: z.object({ frame: z.number().int(), judgedFrom: z.string() }).nullable(),
   sha256: z.string().nullable(),
   format: z.string().nullable(),
   compression: z.string().nullable(),

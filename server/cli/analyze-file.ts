@@ -5,9 +5,10 @@ import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-par
 import { runAnalyses, type AnalysisRun, type SimulationFacts } from '../analysis/index.ts';
 import { assembleTrajectory } from '../formats/assemble.ts';
 import { inspectTrajectory, type InspectResult } from '../formats/inspect.ts';
-import { openTrajectory } from '../formats/open-trajectory.ts';
+import { readFrames } from '../formats/read-frames.ts';
 import type { LengthUnit, TimeUnit, VelocityUnit } from '../formats/units.ts';
-import { TIME_TO_PS } from '../formats/units.ts';
+import { LENGTH_TO_ANGSTROM, TIME_TO_PS } from '../formats/units.ts';
+import { planRun, PlanProblem, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
 import { encodeCurves, decodeCurves } from '../services/report-curves.ts';
 import type { ReportCurve } from '../../shared/report.ts';
 
@@ -42,18 +43,42 @@ async function sha256Of(path: string): Promise<string> {
   return hash.digest('hex');
 }
 
-/** Reads any supported file, runs the same engine the server runs, and returns the report document. */
-export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: InspectResult }> {
+/** What the file holds, as the planner needs it. */
+function factsOf(info: InspectResult, options: AnalyzeFileOptions, timeStep: number): TrajectoryFacts {
+  const toAngstrom = LENGTH_TO_ANGSTROM[options.lengthUnit];
+  return {
+    atoms: info.atoms, frames: info.frames, hasVelocities: info.hasVelocities,
+    framePs: timeStep * TIME_TO_PS[options.timeUnit], cell: info.cell ? info.cell.map((v) => v * toAngstrom) : null,
+  };
+}
+
+/** Reads any supported file, plans the run as the server would, and returns the plan without running it. */
+export async function planFile(path: string, options: AnalyzeFileOptions): Promise<{ plan: PlannedRun; info: InspectResult; facts: TrajectoryFacts }> {
   const name = basename(path);
-  const [info, inputSha256] = await Promise.all([inspectTrajectory(path, name), sha256Of(path)]);
-  const opened = await openTrajectory(path, name);
+  const info = await inspectTrajectory(path, name);
   const timeStep = options.timeStep ?? info.timeStep;
   if (timeStep === undefined) throw new Error(`${name} states no time between frames: give it with --dt-ps`);
-  const traj = await assembleTrajectory(opened.frames, {
+  const facts = factsOf(info, options, timeStep);
+  try {
+    return { plan: planRun(facts, options.analyses, options.params), info, facts };
+  } catch (err) {
+    if (err instanceof PlanProblem) throw new Error(`${name}: ${err.message}`);
+    throw err;
+  }
+}
+
+/** Reads any supported file, runs the same engine the server runs on the selected frames, and returns the report document. */
+export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: InspectResult }> {
+  const name = basename(path);
+  const [{ plan, info, facts }, inputSha256] = await Promise.all([planFile(path, options), sha256Of(path)]);
+  const { selection, params } = plan;
+  const frames = readFrames(path, { from: selection.from, to: selection.to, stride: selection.stride }, undefined, { name });
+  const traj = await assembleTrajectory(frames, {
     length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit,
-    timeStepPs: timeStep ? timeStep * TIME_TO_PS[options.timeUnit] : undefined, boundary: options.boundary,
-  }, { atoms: info.atoms, frames: info.frames }, name);
-  const run = runAnalyses(traj, options.analyses, options.params, undefined, options.facts);
+    timeStepPs: facts.framePs * selection.stride, boundary: options.boundary,
+  }, { atoms: info.atoms, frames: selection.frames }, name);
+  const run = runAnalyses(traj, options.analyses, params, undefined, options.facts);
+  const framesUsed = { from: selection.from, to: selection.to, stride: selection.stride, used: selection.frames, discardedFrames: selection.discardFrames, discardPs: params.discardPs, autoStride: selection.autoStride };
   return {
     info,
     report: {
@@ -61,7 +86,7 @@ export async function analyzeFile(path: string, options: AnalyzeFileOptions): Pr
       analyses: options.analyses,
       params: run.methods.params,
       summary: run.summary,
-      methods: { ...run.methods, caution: run.caution, input: { file: name, sha256: inputSha256, format: info.format, atoms: info.atoms, frames: info.frames, ...options } },
+      methods: { ...run.methods, caution: run.caution, input: { file: name, sha256: inputSha256, format: info.format, atoms: info.atoms, frames: info.frames, ...options }, frames: framesUsed },
       engineVersion: run.engineVersion,
       inputSha256,
       // Same encoding as stored reports, so NaN becomes null exactly as the API serves it.

@@ -3,8 +3,8 @@ import { writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey } from '../../shared/analysis-params.ts';
 import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shared/trajectory.ts';
-import { analyzeFile } from './analyze-file.ts';
-import { printSummary } from './print-summary.ts';
+import { analyzeFile, planFile, type AnalyzeFileOptions } from './analyze-file.ts';
+import { printEstimate, printSummary } from './print-summary.ts';
 import { readPotential } from './read-potential.ts';
 import { ENERGY_UNIT_LIST } from '../../shared/energy-units.ts';
 
@@ -29,7 +29,13 @@ Options:
   --velocity-unit U    ${VELOCITY_UNITS.join(' | ')} (default angstrom/ps)
   --time-unit U        unit of times written in the file: ${TIME_UNITS.join(' | ')} (default ps)
   --boundary B         ${BOUNDARIES.join(' | ')} (default: periodic when the file has a cell)
-  --r-max A            g(r) range in Å
+  --r-max A            g(r) range in Å (default: half the shortest cell width, bounded for
+                       systems above 2000 atoms so cell lists apply)
+  --from-frame N       first frame analysed, 0-based (default 0)
+  --to-frame N         one past the last frame analysed (default: the end)
+  --stride N           every N-th frame (default 1, more for runs above 100 000 frames)
+  --discard-ps X       ps left out at the start of the range for equilibration
+  --estimate           print the estimated time, memory and frames used, and stop
   --json OUT           write the report JSON to OUT ("-" for standard output)
   -h, --help           this text`;
 
@@ -37,6 +43,20 @@ function oneOf<T extends string>(value: string | undefined, allowed: readonly T[
   if (value === undefined) return undefined;
   if (!allowed.includes(value as T)) throw new Error(`${flag} must be one of ${allowed.join(', ')} (got "${value}")`);
   return value as T;
+}
+
+function count(value: string | undefined, flag: string, least: number): number | undefined {
+  if (value === undefined) return undefined;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < least) throw new Error(`${flag} must be a whole number ≥ ${least} (got "${value}")`);
+  return n;
+}
+
+function nonNegative(value: string | undefined, flag: string): number | undefined {
+  if (value === undefined) return undefined;
+  const n = Number(value);
+  if (!(n >= 0) || !Number.isFinite(n)) throw new Error(`${flag} must be a number ≥ 0 (got "${value}")`);
+  return n;
 }
 
 function positive(value: string | undefined, flag: string): number | undefined {
@@ -55,6 +75,8 @@ export async function main(argv: string[]): Promise<number> {
         'length-unit': { type: 'string' }, 'velocity-unit': { type: 'string' }, 'time-unit': { type: 'string' },
         boundary: { type: 'string' }, 'r-max': { type: 'string' }, json: { type: 'string' }, help: { type: 'boolean', short: 'h' },
         potential: { type: 'string' }, ensemble: { type: 'string' }, 'file-energy': { type: 'string' }, 'drift-threshold': { type: 'string' },
+        'from-frame': { type: 'string' }, 'to-frame': { type: 'string' }, stride: { type: 'string' }, 'discard-ps': { type: 'string' },
+        estimate: { type: 'boolean' },
       },
     });
     const [command, file, ...extra] = positionals;
@@ -77,19 +99,27 @@ export async function main(argv: string[]): Promise<number> {
     }) as AnalysisKey[];
     const timeUnit = oneOf(values['time-unit'], TIME_UNITS, '--time-unit') ?? 'ps';
     const dtPs = positive(values['dt-ps'], '--dt-ps');
-    const { report } = await analyzeFile(file, {
+    const options: AnalyzeFileOptions = {
       analyses,
       params: {
         temperatureK: positive(values.temperature, '--temperature'), rMaxA: positive(values['r-max'], '--r-max'),
         interactionModel, fileQuantities, ensemble: oneOf(values.ensemble, ['NVE', 'NVT', 'NPT'] as const, '--ensemble'),
         driftThresholdKTPerNs: positive(values['drift-threshold'], '--drift-threshold'),
+        fromFrame: count(values['from-frame'], '--from-frame', 0), toFrame: count(values['to-frame'], '--to-frame', 1),
+        frameStride: count(values.stride, '--stride', 1), discardPs: nonNegative(values['discard-ps'], '--discard-ps'),
       },
       lengthUnit: oneOf(values['length-unit'], LENGTH_UNITS, '--length-unit') ?? 'angstrom',
       velocityUnit: oneOf(values['velocity-unit'], VELOCITY_UNITS, '--velocity-unit') ?? 'angstrom/ps',
       timeUnit: dtPs !== undefined ? 'ps' : timeUnit,
       timeStep: dtPs,
       boundary: oneOf(values.boundary, BOUNDARIES, '--boundary'),
-    });
+    };
+    if (values.estimate) {
+      const { plan } = await planFile(file, options);
+      printEstimate(plan);
+      return 0;
+    }
+    const { report } = await analyzeFile(file, options);
     const json = JSON.stringify(report, null, 2);
     if (values.json === '-') process.stdout.write(json + '\n');
     else {

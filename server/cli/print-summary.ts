@@ -1,3 +1,4 @@
+import type { PlannedRun } from '../run-plan/plan-run.ts';
 import type { LocalReport } from './analyze-file.ts';
 
 const format = (v: unknown): string =>
@@ -38,5 +39,18 @@ export function printSummary(report: LocalReport): void {
     lines(summary, '  ', out);
   }
   out.push('', String(report.methods['caution'] ?? ''));
+  console.log(out.join('\n'));
+}
+
+/** The plan of a run: the frames it would use and its estimated cost, one analysis a line. */
+export function printEstimate({ selection, params, estimate }: PlannedRun): void {
+  const seconds = (s: number) => (s < 90 ? `${s.toPrecision(2)} s` : s < 5400 ? `${(s / 60).toPrecision(2)} min` : `${(s / 3600).toPrecision(2)} h`);
+  const out = [
+    `frames ${selection.from}–${selection.to - 1}, every ${selection.stride}${selection.autoStride ? ' (chosen for a long run)' : ''}: ${selection.frames} used` +
+      (selection.discardFrames ? `, ${selection.discardFrames} discarded for equilibration` : ''),
+    `estimated time ${seconds(estimate.seconds)} (reading ${seconds(estimate.loadSeconds)}), peak memory about ${Math.round(estimate.memoryBytes / 1024 ** 2)} MiB`,
+    ...estimate.analyses.map((a) => `  ${a.key.padEnd(10)} ${seconds(a.seconds)}`),
+  ];
+  if (params.rMaxA !== undefined) out.push(`g(r) range ${params.rMaxA} Å`);
   console.log(out.join('\n'));
 }

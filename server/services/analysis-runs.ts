@@ -16,11 +16,11 @@
 import { Job } from 'bullmq';
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { AnalysisRunDto } from '../../shared/analysis-run.ts';
-import { analysisParamsSchema, type AnalysisKey, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
+import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import type { AppContext } from '../context.ts';
 import { analysisRuns, reports, users } from '../db/schema/index.ts';
 import { AppError, conflict, notFound } from '../errors.ts';
-import { energyInputs } from './interaction-models.ts';
+import { assertAffordable, planFor } from './run-costs.ts';
 import { getTrajectoryRow, touchProject } from './trajectories.ts';
 
 type RunRow = typeof analysisRuns.$inferSelect;
@@ -43,16 +43,10 @@ export async function startRun(
   ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput,
 ): Promise<AnalysisRunDto> {
   const trajectory = await getTrajectoryRow(ctx, trajectoryId);
-  if (trajectory.status !== 'ready') {
-    throw conflict(`The trajectory is ${trajectory.status}; analyses can start once it is ready.`);
-  }
-  if (!trajectory.timeStep) {
-    throw conflict(`${trajectory.name} states no time between frames: set "Time between frames" in its metadata first.`);
-  }
-  // The energy analysis takes the stored model, file keys and ensemble unless the request names its own.
-  const energy = analyses.includes('energy') ? await energyInputs(ctx, trajectory, paramsInput as Record<string, unknown>) : {};
-  // Stored with every default filled in, so the run records exactly what the engine will use.
-  const params = analysisParamsSchema.parse({ ...paramsInput, ...energy });
+  // Stored with every default filled in (stride, g(r) range, energy inputs), so the run records exactly what the engine will use.
+  const costed = await planFor(ctx, trajectory, analyses, paramsInput);
+  assertAffordable(costed);
+  const { params } = costed.plan;
   const [{ id }] = await ctx.db.insert(analysisRuns).values({
     projectId: trajectory.projectId, trajectoryId, requestedBy: userId, analyses: [...new Set(analyses)], params, status: 'queued',
   }).$returningId();

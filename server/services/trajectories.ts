@@ -16,6 +16,7 @@ const withUploader = {
 export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string, projectHasModel = false): TrajectoryDto {
   return {
     id: row.id, projectId: row.projectId, name: row.name, sizeBytes: row.sizeBytes, frameStoreBytes: row.frameStoreBytes, sha256: row.sha256,
+    equilibration: row.equilibrationFrame === null ? null : { frame: row.equilibrationFrame, judgedFrom: row.equilibrationSeries ?? 'a per-frame series' },
     format: row.format, compression: row.compression, status: row.status, error: row.error,
     atoms: row.atoms, frames: row.frames, speciesCounts: row.speciesCounts ?? null, cell: row.cell ?? null,
     cellChanges: row.cellChanges, hasVelocities: row.hasVelocities, timeStep: row.timeStep,

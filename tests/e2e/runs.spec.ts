@@ -1,5 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
 import { randomWalkExtxyz } from '../support/random-walk.ts';
+import { relaxingRunExtxyz } from '../support/relaxing-run.ts';
 import { readyTrajectory } from './helpers/viewer-data.ts';
 
 /** Opens the analysis dialog for a trajectory on its project page, keeps only the named analyses and starts. */
@@ -72,4 +74,37 @@ test.describe('analysis runs', () => {
     await expect(row).toContainText(/Inspection failed: .*line 4/, { timeout: 60_000 });
     await expect(row).not.toContainText('inspecting');
   });
+
+  test('when a run needs its start discarded, then the dialog offers the discard, estimates the run as frames are chosen, and the report names the frames used', async ({ page, context }) => {
+    const trajectory = await readyTrajectory(context, 'relaxing.extxyz', await relaxingRunExtxyz());
+    await page.goto(`/projects/${trajectory.projectId}`);
+    await page.getByRole('button', { name: 'Analyse relaxing.extxyz' }).click();
+    const dialog = page.getByRole('dialog');
+    await expect(dialog).toContainText(/Inspection judged the run equilibrated from frame \d+ \(about [\d.]+ ps\), from the kinetic energy/);
+    await expect(dialog.getByText(/Estimated about .* on 400 frames/)).toBeVisible();
+    await dialog.getByRole('button', { name: /Discard the first [\d.]+ ps/ }).click();
+    await dialog.getByRole('button', { name: 'Advanced settings' }).click();
+    await dialog.getByLabel('Stride').fill('2');
+    await expect(dialog.getByText(/Estimated about .* frames \(\d+–399, every 2\)/)).toBeVisible();
+    await screens(page, 'analysis-dialog-frames');
+    for (const box of await dialog.getByRole('checkbox').all()) {
+      if (await box.isChecked()) await box.uncheck();
+    }
+    await dialog.getByRole('checkbox', { name: 'Temperature and density' }).check();
+    await dialog.getByRole('button', { name: 'Start analysis' }).click();
+    await expect(dialog).toBeHidden();
+    await expect(page.getByText('The analysis of relaxing.extxyz (temperature) is done.')).toBeVisible({ timeout: 120_000 });
+    await page.getByRole('button', { name: 'Open report' }).click();
+    await expect(page.getByText(/Analysed \d+ frames, from frame \d+ up to frame 399, every 2nd frame\. The first [\d.]+ ps of the range \(\d+ frames\) were left out for equilibration\./)).toBeVisible();
+  });
 });
+
+/** The page at the desktop and the phone size the product is checked at. */
+async function screens(page: Page, name: string): Promise<void> {
+  mkdirSync('test-results/screens', { recursive: true });
+  for (const [label, size] of [['desktop', { width: 1440, height: 900 }], ['phone', { width: 390, height: 844 }]] as const) {
+    await page.setViewportSize(size);
+    await page.screenshot({ path: `test-results/screens/${name}-${label}.png` });
+  }
+  await page.setViewportSize({ width: 1440, height: 900 });
+}

@@ -17,7 +17,10 @@ const testApp = createTestApp({ WORKER_STALLED_INTERVAL_MS: '2000', WORKER_LOCK_
 const { ctx } = testApp;
 let userId: number;
 let trajectoryId: number;
+/** Long enough to act on while it runs; the tests that end it early use it. */
 const SLOW = ['msd', 'vacf', 'rdf', 'lindemann', 'ngp'] as const;
+/** Still seconds of work, for the tests that wait for a run to finish. */
+const MEDIUM = ['msd', 'vacf', 'rdf'] as const;
 
 const runRow = async (id: number) => (await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.id, id)))[0]!;
 
@@ -69,13 +72,16 @@ describe('an analysis job from queue to report', () => {
     }
   });
 
-  it('when a running job is cancelled, then it stops without a report and stays cancelled', async () => {
+  it('when a running job is cancelled in the middle of an analysis, then the engine stops there, without a report, and the run stays cancelled', async () => {
     const worker = await startWorker(testApp.config, ctx.log);
     try {
-      const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
-      await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
+      // One long stage: the cancel must land inside it.
+      const run = await startRun(ctx, trajectoryId, userId, ['lindemann'], {});
+      await pollUntil(() => runRow(run.id), (r) => r.status === 'running' && r.progress >= 30, 60_000, 100);
       await cancelRun(ctx, run.id);
       expect(await pollUntil(() => jobState(run.id), (s) => s === 'completed' || s === 'failed', 60_000)).toBe('completed');
+      // The engine reports progress to the queue as it goes: it never got near the end of the stage.
+      expect(Number((await Job.fromId(ctx.queue.queue, queueJobId(run.id)))!.progress)).toBeLessThan(90);
       const row = await runRow(run.id);
       expect(row.status).toBe('cancelled');
       expect(row.reportId).toBeNull();
@@ -88,7 +94,7 @@ describe('an analysis job from queue to report', () => {
 
   it('when the worker process dies mid-job, then another worker picks the job up and finishes it', async () => {
     const doomed = workerProcess();
-    const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
+    const run = await startRun(ctx, trajectoryId, userId, [...MEDIUM], {});
     const running = await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
     expect(running.status).toBe('running');
     doomed.kill('SIGKILL');
@@ -107,7 +113,7 @@ describe('an analysis job from queue to report', () => {
 
   it('when a worker process gets SIGTERM and its grace period is over, then it hands the run back to the queue and another worker finishes it', async () => {
     const leaving = workerProcess({ WORKER_SHUTDOWN_GRACE_MS: '0' });
-    const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
+    const run = await startRun(ctx, trajectoryId, userId, [...MEDIUM], {});
     await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
     leaving.kill('SIGTERM');
     expect(await exitOf(leaving)).toBe(0);
@@ -125,7 +131,7 @@ describe('an analysis job from queue to report', () => {
 
   it('when a worker process gets SIGTERM within its grace period, then it finishes the running job before it exits', async () => {
     const leaving = workerProcess({ WORKER_SHUTDOWN_GRACE_MS: '600000' });
-    const run = await startRun(ctx, trajectoryId, userId, [...SLOW], {});
+    const run = await startRun(ctx, trajectoryId, userId, [...MEDIUM], {});
     await pollUntil(() => runRow(run.id), (r) => r.status === 'running');
     leaving.kill('SIGTERM');
     expect(await exitOf(leaving)).toBe(0);

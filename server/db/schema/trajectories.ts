@@ -56,6 +56,10 @@ export const trajectories = mysqlTable('trajectories', {
   frameIndexKey: varchar('frame_index_key', { length: 255 }),
   /** Object key of the binary frame store's index, written by inspection; analyses and the viewer read only that. */
   frameStoreKey: varchar('frame_store_key', { length: 255 }),
+  /** First frame judged equilibrated at inspection (automated equilibration detection), offered as the default discard. */
+  equilibrationFrame: int('equilibration_frame'),
+  /** The per-frame series that judgement came from, in words. */
+  equilibrationSeries: varchar('equilibration_series', { length: 80 }),
   /** Bytes the binary frame store takes in the object store (counted in the project's storage). */
   frameStoreBytes: bigint('frame_store_bytes', { mode: 'number' }).notNull().default(0),
   uploadedBy: ref('uploaded_by').references(() => users.id),

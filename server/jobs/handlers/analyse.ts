@@ -1,16 +1,18 @@
 import { UnrecoverableError, WaitingError, type SandboxedJob } from 'bullmq';
 import { analysisParamsSchema, type AnalysisKey } from '../../../shared/analysis-params.ts';
-import { runAnalyses, type AnalysisRun } from '../../analysis/index.ts';
+import { selectFrames, type FrameSelection } from '../../../shared/frame-selection.ts';
 import type { AppContext } from '../../context.ts';
 import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
 import { assembleTrajectory } from '../../formats/assemble.ts';
 import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '../../formats/units.ts';
 import { claimRun, completeRun, failRun, recordProgress, releaseRun, RunLost, runLostReason } from '../../services/analysis-runs.ts';
+import { trajectoryFacts } from '../../services/run-costs.ts';
 import { storedFrames } from '../../services/stored-trajectory.ts';
 import { encodeCurves } from '../../services/report-curves.ts';
 import { getTrajectoryRow } from '../../services/trajectories.ts';
 import { curvesKeyFor } from '../../storage/object-keys.ts';
+import { EngineFailure, runInEngineThread } from '../engine-runner.ts';
 import { AttemptReleased, releaseRequested, type JobAttempt } from '../job-attempt.ts';
 import type { AnalyseJobData } from '../queue.ts';
 
@@ -42,9 +44,6 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     await recordProgress(ctx, runId, claim, percent);
   };
 
-  // The engine is deterministic: an error there will not go away on a retry,
-  // while a lost connection to the store or database might.
-  let inEngine = false;
   let curvesKey: string | null = null;
   try {
     const trajectory = await getTrajectoryRow(ctx, run.trajectoryId);
@@ -52,23 +51,20 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     if (!trajectory.timeStep) {
       throw new UnrecoverableError(`${trajectory.name} states no time between frames: set "Time between frames" in the trajectory's metadata, then start the analysis again.`);
     }
-    const traj = await loadTrajectory(ctx, trajectory, (f) => checkpoint(LOAD_SHARE * f));
     const params = analysisParamsSchema.parse(run.params);
+    const selection = selectFrames(trajectory.frames ?? 0, trajectoryFacts(trajectory).framePs, params);
+    if ('problem' in selection) throw new UnrecoverableError(selection.problem);
+    const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f));
     const stages = STAGES.map((s) => s.filter((k) => run.analyses.includes(k))).filter((s) => s.length > 0);
-    let result: AnalysisRun | null = null;
-    for (const [i, stage] of stages.entries()) {
-      await checkpoint(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * i) / stages.length, true);
-      inEngine = true;
-      const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
-      const part = runAnalyses(traj, stage, params, (f) => {
-        // The engine is synchronous; progress is sent without waiting and the
-        // cancellation check happens between stages.
-        void job.updateProgress(Math.round(LOAD_SHARE + ((100 - LOAD_SHARE - 5) * (i + f)) / stages.length));
-      }, facts);
-      inEngine = false;
-      result = result ? merge(result, part) : part;
-    }
-    if (!result) throw new UnrecoverableError('No analysis was selected.');
+    if (stages.length === 0) throw new UnrecoverableError('No analysis was selected.');
+    // The engine runs in its own thread; this one checks for a cancel or a
+    // shutdown every half second of its work and ends it on the spot.
+    const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
+    const result = await runInEngineThread({ trajectory: traj, stages, params, facts }, {
+      checkEveryMs: CHECK_EVERY_MS,
+      signal: attempt.signal,
+      check: (f) => checkpoint(LOAD_SHARE + (100 - LOAD_SHARE - 5) * f, true),
+    });
     await checkpoint(96, true);
     curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
@@ -76,14 +72,14 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
       title: `${trajectory.name}: ${stages.flat().map(labelOf).join(', ')}`,
       analyses: stages.flat(), params: result.methods.params as unknown as Record<string, unknown>,
       summary: result.summary as Record<string, unknown>,
-      methods: { ...result.methods, caution: result.caution, input: inputDescription(trajectory) } as Record<string, unknown>,
+      methods: { ...result.methods, caution: result.caution, input: inputDescription(trajectory), frames: framesDescription(selection, params.discardPs) } as Record<string, unknown>,
       curvesKey, engineVersion: result.engineVersion, inputSha256: trajectory.sha256,
     });
     if (reportId === null) throw await runLostReason(ctx, runId);
     return { reportId };
   } catch (err) {
     if (curvesKey) await discard(ctx, curvesKey);
-    return settleFailure(err, { job, ctx, runId, claim, attempt, inEngine });
+    return settleFailure(err, { job, ctx, runId, claim, attempt });
   }
 }
 
@@ -97,11 +93,10 @@ interface FailureContext {
   runId: number;
   claim: string;
   attempt: JobAttempt;
-  inEngine: boolean;
 }
 
 /** What an attempt that did not finish leaves behind: a released, stopped, failed or retried run. */
-async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt, inEngine }: FailureContext): Promise<unknown> {
+async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt }: FailureContext): Promise<unknown> {
   if (err instanceof RunLost) return { stopped: err.status };
   if (err instanceof AttemptReleased) {
     // Back to the queue without spending an attempt; another worker takes it from the start.
@@ -111,7 +106,8 @@ async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt, in
     }
     return { stopped: 'released' };
   }
-  const plain = inEngine || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError;
+  // The engine is deterministic: an error there will not go away on a retry, while a lost connection might.
+  const plain = err instanceof EngineFailure || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError;
   const message = err instanceof Error ? err.message : String(err);
   // A retry will claim the run again; only the last attempt (or a hopeless error) marks it failed.
   if (plain || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) await failRun(ctx, runId, claim, message);
@@ -122,15 +118,6 @@ function labelOf(key: AnalysisKey): string {
   return { thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂', energy: 'energy' }[key];
 }
 
-function merge(a: AnalysisRun, b: AnalysisRun): AnalysisRun {
-  return {
-    ...a,
-    summary: { ...a.summary, ...b.summary },
-    curves: { ...a.curves, ...b.curves },
-    methods: { ...a.methods, ...b.methods },
-  };
-}
-
 function inputDescription(t: TrajectoryRow) {
   return {
     file: t.name, sha256: t.sha256, format: t.format, compression: t.compression, atoms: t.atoms, frames: t.frames,
@@ -139,18 +126,24 @@ function inputDescription(t: TrajectoryRow) {
   };
 }
 
-/** The trajectory in the engine's units, from the binary frame store (no text is parsed) or, for older uploads, the file. */
-async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, progress: (fraction: number) => Promise<void>) {
-  const total = Math.max(1, row.frames ?? 1);
+/** Which frames the engine saw, for the report's methods. */
+function framesDescription(s: FrameSelection, discardPs: number) {
+  return { from: s.from, to: s.to, stride: s.stride, used: s.frames, discardedFrames: s.discardFrames, discardPs, autoStride: s.autoStride };
+}
+
+/** The selected frames in the engine's units, from the binary frame store (no text is parsed) or, for older uploads, the file. */
+async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: FrameSelection, progress: (fraction: number) => Promise<void>) {
+  let seen = 0;
   async function* counted(): AsyncGenerator<Frame> {
-    for await (const frame of storedFrames(ctx, row)) {
-      if (frame.index % 50 === 0) await progress(frame.index / total);
+    for await (const frame of storedFrames(ctx, row, { from: selection.from, to: selection.to, stride: selection.stride })) {
+      if (++seen % 50 === 0) await progress(seen / selection.frames);
       yield frame;
     }
   }
-  const timeStepPs = row.timeStep ? row.timeStep * (TIME_TO_PS[row.timeUnit as TimeUnit] ?? 1) : undefined;
+  const framePs = row.timeStep ? row.timeStep * (TIME_TO_PS[row.timeUnit as TimeUnit] ?? 1) : undefined;
   return assembleTrajectory(counted(), {
     length: row.lengthUnit as LengthUnit, time: row.timeUnit as TimeUnit, velocity: row.velocityUnit as VelocityUnit,
-    timeStepPs, boundary: row.boundary,
-  }, row.atoms && row.frames ? { atoms: row.atoms, frames: row.frames } : undefined, row.name);
+    // Without times in the file, frames are the stated interval apart, times the stride.
+    timeStepPs: framePs === undefined ? undefined : framePs * selection.stride, boundary: row.boundary,
+  }, row.atoms ? { atoms: row.atoms, frames: selection.frames } : undefined, row.name);
 }

@@ -7,6 +7,7 @@ import { inspectTrajectory } from '../../formats/inspect.ts';
 import { readerLimits } from '../../services/reader-limits.ts';
 import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.ts';
 import { FrameStoreWriter } from '../../frame-store/writer.ts';
+import { EquilibrationSeries } from '../../run-plan/equilibration-series.ts';
 import { frameStorePrefixFor } from '../../storage/object-keys.ts';
 import type { InspectJobData } from '../queue.ts';
 
@@ -23,6 +24,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
   if (!row) return { skipped: 'trajectory deleted' };
   await ctx.db.update(trajectories).set({ status: 'inspecting', error: null }).where(eq(trajectories.id, row.id));
   let lastReport = 0;
+  const equilibration = new EquilibrationSeries();
   const store = new FrameStoreWriter(ctx.store, frameStorePrefixFor(row.objectKey), { file: row.name, chunkBytes: ctx.config.FRAME_STORE_CHUNK_BYTES });
   try {
     const stream = await ctx.store.getStream(row.objectKey);
@@ -31,14 +33,19 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
       if (now - lastReport < 500) return;
       lastReport = now;
       void job.updateProgress(Math.min(99, Math.round((100 * p.rawBytes) / Math.max(1, row.sizeBytes))));
-    }, (frame) => store.add(frame));
+    }, (frame) => {
+      equilibration.add(frame);
+      return store.add(frame);
+    });
     const { storedBytes } = await store.finish();
+    const settled = equilibration.result();
     const fromFile: string[] = [];
     const update: Partial<typeof trajectories.$inferInsert> = {
       status: 'ready', error: null, format: result.format, compression: result.compression,
       atoms: result.atoms, frames: result.frames, speciesCounts: result.speciesCounts, cell: result.cell,
       cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, fileValues: result.fileValues,
       frameStoreKey: store.indexKey, frameStoreBytes: storedBytes, updatedAt: new Date(),
+      equilibrationFrame: settled?.frame ?? null, equilibrationSeries: settled?.judgedFrom ?? null,
     };
     // Values the file states are pre-filled, unless the uploader already typed them in.
     if (result.timeStep !== undefined && row.timeStep === null && result.timeStep > 0) {

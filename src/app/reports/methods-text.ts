@@ -38,6 +38,26 @@ function inputParagraph(report: ReportDto, input: Json): MethodsParagraph {
   return { heading: 'Input', body: `Trajectory ${parts.join('; ')}.` };
 }
 
+/** 2 → "2nd", 13 → "13th", 21 → "21st". */
+function ordinal(n: number): string {
+  const tens = n % 100;
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : ['th', 'st', 'nd', 'rd'][n % 10] ?? 'th';
+  return `${n}${suffix}`;
+}
+
+/** Which frames the engine saw; absent from reports made before frames could be selected. */
+function framesParagraph(m: Json): MethodsParagraph | null {
+  const used = num(m, 'used');
+  const from = num(m, 'from');
+  const to = num(m, 'to');
+  const stride = num(m, 'stride');
+  if (used === null || from === null || to === null || stride === null) return null;
+  const discarded = num(m, 'discardedFrames') ?? 0;
+  const every = stride > 1 ? `, every ${ordinal(stride)} frame${flag(m, 'autoStride') ? ' (chosen automatically for a long run)' : ''}` : '';
+  const discard = discarded > 0 ? ` The first ${f(num(m, 'discardPs'), 4)} ps of the range (${discarded} frames) were left out for equilibration.` : '';
+  return { heading: 'Frames', body: `Analysed ${used} frames, from frame ${from} up to frame ${to - 1}${every}.${discard}` };
+}
+
 /** Warnings a reader must not miss, as sentences after a paragraph. */
 const warned = (warnings: readonly string[] | undefined): string => (warnings?.length ? ` ${warnings.map((w) => `Warning: ${w}`).join(' ')}` : '');
 
@@ -157,6 +177,8 @@ export function methodsParagraphs(report: ReportDto): MethodsParagraph[] {
   const m = report.methods;
   const params = report.params;
   const out = [inputParagraph(report, record(m, 'input'))];
+  const frames = framesParagraph(record(m, 'frames'));
+  if (frames) out.push(frames);
   if (s.thermo) out.push(thermoParagraph(s.thermo, record(m, 'thermo')));
   if (s.msd) out.push(msdParagraph(s.msd, record(m, 'msd'), params));
   if (s.vacf) out.push(vacfParagraph(s.vacf, record(m, 'vacf')));

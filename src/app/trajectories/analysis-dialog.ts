@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -9,7 +10,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { analysisParamsSchema, SPECTRAL_WINDOWS, SQ_WINDOWS, type AnalysisKey } from '../../../shared/analysis-params';
-import type { AnalysisRunDto } from '../../../shared/analysis-run';
+import type { AnalysisRunDto, StartAnalysis } from '../../../shared/analysis-run';
+import type { RunEstimate } from '../../../shared/run-estimate';
+import { catchError, debounceTime, map, merge, of, startWith, switchMap } from 'rxjs';
+import { frameTimePs } from '../viewer/frame-time';
+import { bytesText } from './trajectory-format';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { ANALYSIS_CHOICES, defaultAnalyses, unavailableReason } from './analysis-choices';
@@ -30,6 +35,12 @@ import { TrajectoriesApi } from './trajectories-api';
       <p class="facts">{{ t.atoms }} atoms · {{ t.frames }} frames · {{ t.timeStep === null ? '?' : significant(t.timeStep) }} {{ t.timeUnit }} between frames ·
         {{ t.hasVelocities ? 'velocities in the file' : 'no velocities: the VACF uses central differences of positions' }}</p>
       @if (!t.timeStep) { <p class="warn" role="alert">The time between frames is not known: set it in the metadata first, or time axes will count frames.</p> }
+      @if (suggestedDiscardPs(); as ps) {
+        <p class="suggestion">
+          Inspection judged the run equilibrated from frame {{ t.equilibration!.frame }} (about {{ significant(ps) }} ps), from {{ t.equilibration!.judgedFrom }}.
+          <button mat-button type="button" (click)="useSuggestedDiscard(ps)">Discard the first {{ significant(ps) }} ps</button>
+        </p>
+      }
       <fieldset class="checklist">
         <legend>Analyses</legend>
         @for (choice of choices; track choice.key) {
@@ -45,6 +56,27 @@ import { TrajectoriesApi } from './trajectories-api';
         <mat-expansion-panel>
           <mat-expansion-panel-header><mat-panel-title>Advanced settings</mat-panel-title></mat-expansion-panel-header>
           <form [formGroup]="form" class="advanced">
+            <h3>Frames</h3>
+            <mat-form-field appearance="outline">
+              <mat-label>From frame</mat-label>
+              <input matInput type="number" formControlName="fromFrame" min="0" step="1">
+              <mat-hint>Empty: the first (0)</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>To frame (not included)</mat-label>
+              <input matInput type="number" formControlName="toFrame" min="1" step="1">
+              <mat-hint>Empty: to the end ({{ t.frames }})</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Stride</mat-label>
+              <input matInput type="number" formControlName="frameStride" min="1" step="1">
+              <mat-hint>Empty: 1 (more above 100 000 frames)</mat-hint>
+            </mat-form-field>
+            <mat-form-field appearance="outline">
+              <mat-label>Discard for equilibration (ps)</mat-label>
+              <input matInput type="number" formControlName="discardPs" min="0" step="any">
+              <mat-hint>Left out at the start of the range</mat-hint>
+            </mat-form-field>
             <h3>Atoms and time</h3>
             <mat-form-field appearance="outline">
               <mat-label>Species</mat-label>
@@ -148,9 +180,23 @@ import { TrajectoriesApi } from './trajectories-api';
       </mat-accordion>
       @for (problem of problems(); track problem) { <p class="error" role="alert">{{ problem }}</p> }
     </mat-dialog-content>
+    <div class="estimate-bar">
+      @if (estimate(); as e) {
+        <p class="estimate" aria-live="polite">
+          Estimated about {{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory, on {{ e.frames.used }} frames
+          ({{ e.frames.from }}–{{ e.frames.to - 1 }}{{ e.frames.stride > 1 ? ', every ' + e.frames.stride + (e.frames.autoStride ? ', chosen for a long run' : '') : '' }}){{ e.rMaxA !== null ? '; g(r) to ' + significant(e.rMaxA) + ' Å' : '' }}.
+        </p>
+        @if (!e.withinLimits) {
+          <div class="error" role="alert">
+            <p>This is past what this site runs (about {{ durationText(e.limits.seconds) }} and {{ bytesText(e.limits.memoryBytes) }}). Any one of these brings it within:</p>
+            <ul>@for (a of e.advice; track a) { <li>{{ a }}</li> }</ul>
+          </div>
+        }
+      }
+    </div>
     <mat-dialog-actions align="end">
       <button mat-button type="button" mat-dialog-close>Cancel</button>
-      <button mat-flat-button type="button" (click)="start()" [disabled]="starting() || selected().size === 0">Start analysis</button>
+      <button mat-flat-button type="button" (click)="start()" [disabled]="starting() || selected().size === 0 || estimate()?.withinLimits === false">Start analysis</button>
     </mat-dialog-actions>
   `,
   styles: `
@@ -162,6 +208,10 @@ import { TrajectoriesApi } from './trajectories-api';
     .advanced { display: grid; grid-template-columns: 1fr 1fr; gap: 4px 16px; }
     .advanced h3 { grid-column: 1 / -1; margin: 12px 0 4px; font-size: 14px; }
     .error { color: var(--mat-sys-error); }
+    .error ul { margin: 4px 0 0; padding-left: 20px; }
+    .suggestion { margin: 0 0 8px; }
+    .estimate-bar { padding: 0 24px; }
+    .estimate { color: var(--mat-sys-on-surface-variant); margin: 8px 0 0; font-size: 13px; }
   `,
 })
 export class AnalysisDialog {
@@ -177,15 +227,71 @@ export class AnalysisDialog {
   protected readonly starting = signal(false);
   private readonly serverError = signal('');
   private readonly formErrors = signal<string[]>([]);
-  protected readonly problems = computed(() => [...this.formErrors(), ...(this.serverError() ? [this.serverError()] : [])]);
+  protected readonly problems = computed(() => [
+    ...this.formErrors(), ...[this.estimateProblem(), this.serverError()].filter((p, i, all) => p && all.indexOf(p) === i),
+  ]);
 
   protected readonly form = inject(FormBuilder).nonNullable.group({
+    fromFrame: null as number | null, toFrame: null as number | null, frameStride: null as number | null, discardPs: null as number | null,
     species: [[] as string[]], maxLagPs: null as number | null, removeComDrift: true, fitMode: 'auto' as AdvancedSettings['fitMode'], fitStartPs: null as number | null, fitEndPs: null as number | null,
     gkMode: 'auto' as AdvancedSettings['gkMode'], gkStartPs: null as number | null, gkEndPs: null as number | null,
     window: 'hann' as AdvancedSettings['window'], zeroPadFactor: 1, temperatureK: null as number | null,
     degreesOfFreedom: null as number | null, constraints: null as number | null, rMaxA: null as number | null, binWidthA: 0.05, pair: null as string | null,
     sqWindow: 'lorch' as AdvancedSettings['sqWindow'], driftThresholdKTPerNs: null as number | null, externalPressureBar: null as number | null,
   });
+
+  /** The discard inspection suggests, in ps, or null when it found none (or the run was equilibrated from the start). */
+  protected readonly suggestedDiscardPs = computed(() => {
+    const e = this.t.equilibration;
+    if (!e || e.frame === 0) return null;
+    return frameTimePs({ index: e.frame, time: null }, this.t.timeStep, this.t.timeUnit);
+  });
+
+  /** The server's estimate for what the dialog would start, refreshed as the choices change. */
+  protected readonly estimate = signal<RunEstimate | null>(null);
+  /** Why the current choices cannot run (a frame range past the end, say), as the server put it. */
+  private readonly estimateProblem = signal('');
+
+  constructor() {
+    merge(this.form.valueChanges, toObservable(this.selected)).pipe(
+      startWith(null),
+      debounceTime(300),
+      map(() => this.request()),
+      switchMap((body) => (body
+        ? this.api.estimateAnalysis(this.t.id, body).pipe(
+          map((estimate) => ({ estimate, problem: '' })),
+          catchError((err: unknown) => of({ estimate: null, problem: apiErrorMessage(err, 'The cost could not be estimated.') })))
+        : of({ estimate: null, problem: '' }))),
+      takeUntilDestroyed(),
+    ).subscribe(({ estimate, problem }) => {
+      this.estimate.set(estimate);
+      this.estimateProblem.set(problem);
+    });
+  }
+
+  protected useSuggestedDiscard(ps: number): void {
+    this.form.controls.discardPs.setValue(Number(ps.toPrecision(6)));
+  }
+
+  protected durationText(seconds: number): string {
+    if (seconds < 1) return 'a second';
+    if (seconds < 90) return `${Math.round(seconds)} s`;
+    if (seconds < 5400) return `${Math.round(seconds / 60)} min`;
+    return `${(seconds / 3600).toFixed(1)} h`;
+  }
+
+  protected bytesText(bytes: number): string {
+    return bytesText(bytes);
+  }
+
+  /** The body the dialog would send, or null while the settings are incomplete. */
+  private request(): StartAnalysis | null {
+    if (this.selected().size === 0) return null;
+    const built = buildParams(this.form.getRawValue());
+    const parsed = analysisParamsSchema.safeParse(built.params);
+    if (built.problems.length || !parsed.success) return null;
+    return { analyses: [...this.selected()], params: parsed.data };
+  }
 
   protected significant(value: number): string {
     return Number(value.toPrecision(4)).toString();

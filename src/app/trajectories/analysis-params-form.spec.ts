@@ -3,7 +3,7 @@ import { analysisParamsSchema } from '../../../shared/analysis-params';
 import { buildParams, type AdvancedSettings } from './analysis-params-form';
 
 const defaults: AdvancedSettings = {
-  species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null,
+  fromFrame: null, toFrame: null, frameStride: null, discardPs: null, species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null,
   gkMode: 'auto', gkStartPs: null, gkEndPs: null, window: 'hann', zeroPadFactor: 1, temperatureK: null,
   degreesOfFreedom: null, constraints: null, rMaxA: null, binWidthA: 0.05, pair: null, sqWindow: 'lorch',
 };
@@ -29,5 +29,9 @@ describe('advanced analysis settings', () => {
     expect(params).not.toHaveProperty('temperatureK');
     expect(params).not.toHaveProperty('constraints');
     expect(buildParams({ ...defaults, constraints: 0, temperatureK: 250 }).params).toMatchObject({ constraints: 0, temperatureK: 250 });
+  });
+  it('when a frame range, stride and discard are given, then they are sent as the shared fields', () => {
+    const { params } = buildParams({ ...defaults, fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
+    expect(analysisParamsSchema.parse(params)).toMatchObject({ fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
   });
 });

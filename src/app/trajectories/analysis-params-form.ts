@@ -2,6 +2,12 @@ import type { AnalysisParamsInput, SpectralWindow, SqWindow } from '../../../sha
 
 /** The advanced panel's raw values: blanks are null, windows are split into mode and bounds. */
 export interface AdvancedSettings {
+  /** Frame range and stride; blanks mean from the start, to the end, and the automatic stride. */
+  fromFrame: number | null;
+  toFrame: number | null;
+  frameStride: number | null;
+  /** Equilibration left out at the start of the range, ps. */
+  discardPs: number | null;
   species: string[];
   maxLagPs: number | null;
   removeComDrift: boolean;
@@ -51,6 +57,10 @@ export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput;
     binWidthA: s.binWidthA,
     sqWindow: s.sqWindow,
   };
+  if (given(s.fromFrame)) params.fromFrame = s.fromFrame;
+  if (given(s.toFrame)) params.toFrame = s.toFrame;
+  if (given(s.frameStride)) params.frameStride = s.frameStride;
+  if (given(s.discardPs) && s.discardPs > 0) params.discardPs = s.discardPs;
   if (given(s.maxLagPs)) params.maxLagPs = s.maxLagPs;
   if (given(s.temperatureK)) params.temperatureK = s.temperatureK;
   if (given(s.degreesOfFreedom)) params.degreesOfFreedom = s.degreesOfFreedom;

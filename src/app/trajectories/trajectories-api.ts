@@ -3,6 +3,7 @@ import { inject, Injectable } from '@angular/core';
 import { filter, map, type Observable } from 'rxjs';
 import { analysisRunSchema, type AnalysisRunDto, type StartAnalysis } from '../../../shared/analysis-run';
 import { trajectorySchema, type TrajectoryDto, type TrajectoryMetadata } from '../../../shared/trajectory';
+import { runEstimateSchema, type RunEstimate } from '../../../shared/run-estimate';
 import { unwrap, unwrapList } from '../core/api-envelope';
 
 /** Progress of one upload: bytes sent, then the stored trajectory. */
@@ -10,6 +11,7 @@ export type UploadEvent = { kind: 'progress'; loaded: number; total: number } | 
 
 const readTrajectory = unwrap('trajectory', trajectorySchema);
 const readJob = unwrap('job', analysisRunSchema);
+const readEstimate = unwrap('estimate', runEstimateSchema);
 
 /** The trajectory, analysis and job endpoints, one method each. */
 @Injectable({ providedIn: 'root' })
@@ -42,6 +44,11 @@ export class TrajectoriesApi {
 
   delete(id: number): Observable<void> {
     return this.http.delete<void>(`/api/trajectories/${id}`);
+  }
+
+  /** What a run would cost and which frames it would use; starts nothing. */
+  estimateAnalysis(id: number, body: StartAnalysis): Observable<RunEstimate> {
+    return this.http.post(`/api/trajectories/${id}/analyses/estimate`, body).pipe(map(readEstimate));
   }
 
   startAnalysis(id: number, body: StartAnalysis): Observable<AnalysisRunDto> {

@@ -1,0 +1,125 @@
+/**
+ * How long and how much memory a run will take, from atoms × frames ×
+ * analyses, before it is queued. Each analysis is counted in work units of
+ * its own algorithm (FFT butterflies, pair distances, per-atom-frame
+ * passes), and units are priced in nanoseconds measured on one core of a
+ * 2020s x86 machine by `npm run bench` (which prints estimate against
+ * actual). Estimates aim at the right order, within about a factor of two.
+ */
+import type { AnalysisKey } from '../../shared/analysis-params.ts';
+
+/** Nanoseconds per work unit, measured by bench/cost-model.ts (which prints estimate against actual). */
+export const NS_PER_UNIT = {
+  /** One coordinate value read from the frame store and assembled. */
+  load: 4,
+  /** One atom-frame of a per-frame pass (kinetic energy, unwrapping, centre-of-mass removal). */
+  atomFrame: 25,
+  /** One butterfly-level of a real FFT of one coordinate series (L·log2 L per series). */
+  fft: 4,
+  /** One pair distance put in the g(r) histogram. */
+  rdfPair: 12,
+  /** One pair distance of the Lindemann index (minimum image, square root, two sums). */
+  lindemannPair: 25,
+  /** One displacement of the non-Gaussian parameter. */
+  ngpStep: 6,
+  /** One pair energy and virial term. */
+  energyPair: 20,
+} as const;
+
+/** What the runtime itself takes before any data (a worker thread with the engine loaded). */
+export const BASE_MEMORY_BYTES = 120 * 1024 ** 2;
+
+export interface CostInput {
+  atoms: number;
+  /** Frames the analyses see (after range, discard and stride). */
+  frames: number;
+  hasVelocities: boolean;
+  /** Volume per atom in Å³ (for pair counts), or null without a cell. */
+  volumePerAtomA3: number | null;
+  /** g(r) range; null means half the shortest cell width, given as halfWidthA. */
+  rMaxA: number | null;
+  halfWidthA: number | null;
+  /** Pair cut-off of the interaction model (energy analysis), Å. */
+  cutoffA: number | null;
+}
+
+export interface AnalysisCost {
+  key: AnalysisKey;
+  seconds: number;
+  /** Memory this analysis needs beyond the trajectory itself. */
+  workingBytes: number;
+}
+
+export interface CostEstimate {
+  seconds: number;
+  memoryBytes: number;
+  /** Reading the frames into memory. */
+  loadSeconds: number;
+  trajectoryBytes: number;
+  analyses: AnalysisCost[];
+}
+
+const log2 = (x: number) => Math.log2(Math.max(2, x));
+const nextPow2 = (x: number) => 2 ** Math.ceil(log2(x));
+
+/** Pair distances per frame for a neighbour search out to r: cell lists when they apply (box ≥ 3r), else all pairs. */
+function pairsPerFrame(input: CostInput, r: number): number {
+  const n = input.atoms;
+  const all = (n * (n - 1)) / 2;
+  if (!input.volumePerAtomA3 || !input.halfWidthA || n <= 256) return all;
+  if (r * 3 > 2 * input.halfWidthA) return all;
+  // Cell lists visit 27 cells of side ≥ r around each atom, half of them per pair.
+  const perAtom = (27 * r ** 3) / input.volumePerAtomA3;
+  return Math.min(all, (n * perAtom) / 2);
+}
+
+function analysisCost(key: AnalysisKey, input: CostInput): AnalysisCost {
+  const { atoms: n, frames: t } = input;
+  const L = nextPow2(2 * t);
+  const fftUnits = 3 * n * L * log2(L);
+  const seconds = (units: number, price: number) => (units * price) / 1e9;
+  const perAtomFrame = (passes: number) => seconds(passes * n * t, NS_PER_UNIT.atomFrame);
+  switch (key) {
+    case 'thermo':
+      return { key, seconds: perAtomFrame(1), workingBytes: 64 * t };
+    case 'msd':
+      return { key, seconds: seconds(fftUnits, NS_PER_UNIT.fft) + perAtomFrame(2), workingBytes: 8 * 6 * L };
+    case 'vacf':
+      return { key, seconds: seconds(fftUnits, NS_PER_UNIT.fft) + perAtomFrame(input.hasVelocities ? 1 : 2), workingBytes: 8 * 8 * L };
+    case 'vdos':
+      // VDOS shares the VACF's pass; its own spectrum is one more FFT per atom series.
+      return { key, seconds: seconds(fftUnits / 2, NS_PER_UNIT.fft), workingBytes: 16 * L };
+    case 'rdf': {
+      const r = input.rMaxA ?? input.halfWidthA ?? 10;
+      return { key, seconds: seconds(t * pairsPerFrame(input, r), NS_PER_UNIT.rdfPair), workingBytes: 32 * n + 4 * 8 * 1024 * 16 };
+    }
+    case 'sq':
+      return { key, seconds: 0.01, workingBytes: 1024 ** 2 };
+    case 'lindemann': {
+      const all = (n * (n - 1)) / 2;
+      const allPairs = all <= 2e6;
+      // Beyond 2·10⁶ pairs: neighbours within 1.4 spacings of the first frame, about six per atom, found by a full search.
+      const pairs = allPairs ? all : n * 6;
+      return { key, seconds: seconds(Math.min(pairs * t, 4e8) + (allPairs ? 0 : all), NS_PER_UNIT.lindemannPair) + perAtomFrame(1), workingBytes: 24 * pairs + 40 * n };
+    }
+    case 'ngp': {
+      const lags = 20 * Math.log10(Math.max(10, t / 2));
+      return { key, seconds: seconds(Math.min(n * t * lags, 2e8), NS_PER_UNIT.ngpStep) + perAtomFrame(1), workingBytes: 24 * t };
+    }
+    case 'energy': {
+      const r = input.cutoffA ?? 10;
+      return { key, seconds: seconds(t * pairsPerFrame(input, r), NS_PER_UNIT.energyPair) + perAtomFrame(1), workingBytes: 32 * n + 64 * t };
+    }
+  }
+}
+
+export function estimateCost(analyses: readonly AnalysisKey[], input: CostInput): CostEstimate {
+  const valuesPerFrame = input.atoms * 3 * (input.hasVelocities ? 2 : 1);
+  const trajectoryBytes = input.frames * (valuesPerFrame * 4 + 80);
+  const loadSeconds = (input.frames * valuesPerFrame * NS_PER_UNIT.load) / 1e9;
+  const costs = [...new Set(analyses)].map((k) => analysisCost(k, input));
+  const seconds = loadSeconds + costs.reduce((s, c) => s + c.seconds, 0);
+  // Analyses run one after another, so only the largest working set adds to the trajectory.
+  const working = costs.reduce((m, c) => Math.max(m, c.workingBytes), 0);
+  return { seconds, memoryBytes: BASE_MEMORY_BYTES + trajectoryBytes + working, loadSeconds, trajectoryBytes, analyses: costs };
+}

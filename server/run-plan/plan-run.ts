@@ -1,0 +1,121 @@
+/**
+ * A request for analyses turned into what will actually run, before
+ * anything is queued: every default resolved (frame stride for long runs,
+ * a bounded g(r) range for large systems), the frames selected, and the
+ * cost estimated and held against the site's limits with advice on how to
+ * get under them.
+ */
+import { analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
+import { selectFrames, type FrameSelection } from '../../shared/frame-selection.ts';
+import { resolvePair } from '../../shared/interaction-model.ts';
+import type { RunEstimate } from '../../shared/run-estimate.ts';
+import { estimateCost, type CostEstimate, type CostInput } from './cost-estimate.ts';
+import { cellWidths, defaultRMaxA } from './rdf-range.ts';
+
+/** What is known about a trajectory before any frame is read. */
+export interface TrajectoryFacts {
+  atoms: number;
+  frames: number;
+  /** Time between frames, ps. */
+  framePs: number;
+  hasVelocities: boolean;
+  /** First frame's cell as lattice-vector rows in Å, or null. */
+  cell: ArrayLike<number> | null;
+}
+
+export interface CostLimits {
+  seconds: number;
+  memoryBytes: number;
+}
+
+export interface PlannedRun {
+  params: AnalysisParams;
+  selection: FrameSelection;
+  estimate: CostEstimate;
+}
+
+/** A request that cannot run as asked; the message says why and what to change. */
+export class PlanProblem extends Error {
+  constructor(message: string, readonly estimate?: RunEstimate) {
+    super(message);
+    this.name = 'PlanProblem';
+  }
+}
+
+function costInput(facts: TrajectoryFacts, frames: number, params: AnalysisParams): CostInput {
+  const geometry = facts.cell ? cellWidths(facts.cell) : null;
+  const cutoffs = params.interactionModel?.pairs.map((p) => resolvePair(p).cutoffA) ?? [];
+  return {
+    atoms: facts.atoms, frames, hasVelocities: facts.hasVelocities,
+    volumePerAtomA3: geometry ? geometry.volume / facts.atoms : null,
+    halfWidthA: geometry ? Math.min(...geometry.widths) / 2 : null,
+    rMaxA: params.rMaxA ?? null,
+    cutoffA: cutoffs.length ? Math.max(...cutoffs) : null,
+  };
+}
+
+export function planRun(facts: TrajectoryFacts, analyses: readonly AnalysisKey[], paramsInput: AnalysisParamsInput): PlannedRun {
+  const params = analysisParamsSchema.parse(paramsInput);
+  const selection = selectFrames(facts.frames, facts.framePs, params);
+  if ('problem' in selection) throw new PlanProblem(selection.problem);
+  // The stride and range the engine will use are recorded with the run.
+  params.frameStride = selection.stride;
+  if ((analyses.includes('rdf') || analyses.includes('sq')) && params.rMaxA === undefined) {
+    const bounded = defaultRMaxA(facts.atoms, facts.cell);
+    if (bounded !== undefined) params.rMaxA = Number(bounded.toPrecision(6));
+  }
+  return { params, selection, estimate: estimateCost(analyses, costInput(facts, selection.frames, params)) };
+}
+
+const within = (e: CostEstimate, limits: CostLimits) => e.seconds <= limits.seconds && e.memoryBytes <= limits.memoryBytes;
+
+/** Ways to bring a run under the limits, each one change on its own, in plain words. */
+export function adviceFor(plan: PlannedRun, facts: TrajectoryFacts, analyses: readonly AnalysisKey[], limits: CostLimits): string[] {
+  const advice: string[] = [];
+  const { selection, params } = plan;
+  const span = selection.to - selection.from;
+  const at = (frames: number, p: AnalysisParams = params) => estimateCost(analyses, costInput(facts, frames, p));
+  for (let factor = 2; factor <= 1_000_000; factor = Math.ceil(factor * 1.5)) {
+    const stride = selection.stride * factor;
+    const frames = Math.ceil(span / stride);
+    if (frames < 2) break;
+    if (within(at(frames), limits)) {
+      advice.push(`Analyse every ${stride}th frame (frame stride ${stride}): ${frames} frames instead of ${selection.frames}.`);
+      break;
+    }
+  }
+  let lo = 2, hi = selection.frames;
+  if (within(at(lo), limits)) {
+    while (hi - lo > 1) {
+      const mid = Math.floor((lo + hi) / 2);
+      if (within(at(mid), limits)) lo = mid;
+      else hi = mid;
+    }
+    advice.push(`Analyse a shorter frame range: at most ${lo * selection.stride} frames at stride ${selection.stride} (for example fromFrame ${selection.from}, toFrame ${selection.from + lo * selection.stride}).`);
+  }
+  const rdf = plan.estimate.analyses.find((a) => a.key === 'rdf');
+  const bounded = defaultRMaxA(Math.max(facts.atoms, 2001), facts.cell);
+  if (rdf && bounded !== undefined && (params.rMaxA ?? Infinity) > bounded && rdf.seconds > plan.estimate.seconds / 3) {
+    advice.push(`Use a smaller g(r) range: r_max ≤ ${bounded.toPrecision(3)} Å lets cell lists apply.`);
+  }
+  const heavy = [...plan.estimate.analyses].sort((a, b) => b.seconds - a.seconds)[0];
+  if (heavy && analyses.length > 1 && heavy.seconds > plan.estimate.seconds / 2) {
+    advice.push(`Run ${heavy.key} on its own, or leave it out: it is most of the estimate.`);
+  }
+  return advice;
+}
+
+/** The estimate as the API returns it. */
+export function describeEstimate(plan: PlannedRun, limits: CostLimits, advice: string[]): RunEstimate {
+  const { estimate, selection, params } = plan;
+  return {
+    seconds: estimate.seconds,
+    memoryBytes: estimate.memoryBytes,
+    analyses: estimate.analyses.map((a) => ({ key: a.key, seconds: a.seconds })),
+    frames: { from: selection.from, to: selection.to, stride: selection.stride, used: selection.frames, discarded: selection.discardFrames, autoStride: selection.autoStride },
+    rMaxA: params.rMaxA ?? null,
+    limits: { seconds: limits.seconds, memoryBytes: limits.memoryBytes },
+    withinLimits: within(estimate, limits),
+    advice,
+  };
+}

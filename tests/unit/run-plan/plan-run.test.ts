@@ -1,0 +1,105 @@
+import { describe, expect, it } from 'vitest';
+import { runAnalyses } from '../../../server/analysis/index.ts';
+import type { Trajectory } from '../../../server/analysis/trajectory.ts';
+import { estimateCost } from '../../../server/run-plan/cost-estimate.ts';
+import { adviceFor, planRun, PlanProblem, type TrajectoryFacts } from '../../../server/run-plan/plan-run.ts';
+import { defaultRMaxA } from '../../../server/run-plan/rdf-range.ts';
+import { fccLattice } from '../../../server/simulate/fcc-lattice.ts';
+import { AUTO_STRIDE_MAX_FRAMES, selectFrames } from '../../../shared/frame-selection.ts';
+
+const cube = (l: number) => [l, 0, 0, 0, l, 0, 0, 0, l];
+const facts = (over: Partial<TrajectoryFacts> = {}): TrajectoryFacts => ({ atoms: 500, frames: 4000, framePs: 0.01, hasVelocities: true, cell: cube(28.6), ...over });
+
+describe('which frames an analysis uses', () => {
+  it('when a range, a stride and an equilibration discard are given, then the discard is cut from the start of the range in whole frames', () => {
+    const s = selectFrames(4000, 0.01, { fromFrame: 100, toFrame: 3100, frameStride: 5, discardPs: 2.004 });
+    expect(s).toEqual({ from: 301, to: 3100, stride: 5, discardFrames: 201, frames: 560, autoStride: false });
+  });
+
+  it('when a run is longer than the automatic limit and no stride is given, then every k-th frame keeps it within the limit', () => {
+    const s = selectFrames(1_000_001, 0.001, {});
+    expect('problem' in s).toBe(false);
+    if ('problem' in s) return;
+    expect(s.stride).toBe(11);
+    expect(s.frames).toBeLessThanOrEqual(AUTO_STRIDE_MAX_FRAMES);
+    expect(s.autoStride).toBe(true);
+    expect(selectFrames(1_000_001, 0.001, { frameStride: 1 })).toMatchObject({ stride: 1, frames: 1_000_001, autoStride: false });
+  });
+
+  it.each([
+    [{ fromFrame: 4000 }, /fromFrame 4000 is past the last frame \(the trajectory has 4000 frames/],
+    [{ toFrame: 4001 }, /toFrame 4001 is past the end/],
+    [{ fromFrame: 10, toFrame: 10 }, /toFrame \(10\) must be greater than fromFrame \(10\)/],
+    [{ discardPs: 40 }, /Discarding 40 ps \(4000 frames\) leaves no frames/],
+    [{ toFrame: 3, frameStride: 2, fromFrame: 2 }, /leaves 1 frame; analyses need at least 2/],
+  ])('when the selection is %j, then it is refused in words that say what to change', (input, message) => {
+    const s = selectFrames(4000, 0.01, input);
+    expect('problem' in s && s.problem).toMatch(message);
+    expect(() => planRun(facts(), ['msd'], input)).toThrow(PlanProblem);
+  });
+});
+
+describe('the default range of g(r)', () => {
+  it('when a system is small, then g(r) keeps the textbook range of half the cell', () => {
+    expect(defaultRMaxA(500, cube(28.6))).toBeUndefined();
+    expect(planRun(facts(), ['rdf'], {}).params.rMaxA).toBeUndefined();
+  });
+
+  it('when a system is large, then the range is bounded so cell lists apply and about a thousand atoms fall inside it', () => {
+    const l = Math.cbrt(50_000 / 0.021);
+    const r = defaultRMaxA(50_000, cube(l))!;
+    expect(r).toBeLessThanOrEqual(l / 3);
+    expect((4 / 3) * Math.PI * r ** 3 * 0.021).toBeCloseTo(1000, 0);
+    expect(planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], {}).params.rMaxA).toBeCloseTo(r, 4);
+    // A range the user gives is kept.
+    expect(planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], { rMaxA: 12 }).params.rMaxA).toBe(12);
+  });
+
+  it('when a 3000-atom crystal is analysed with the defaults, then g(r) runs on cell lists', () => {
+    const a = 5.26, cells = 9;
+    const base = fccLattice(cells, a);
+    const n = base.length / 3, box = cells * a, frames = 3;
+    const positions = new Float32Array(frames * base.length);
+    for (let f = 0; f < frames; f++) positions.set(base, f * base.length);
+    const traj: Trajectory = {
+      nAtoms: n, nFrames: frames, species: new Array<string>(n).fill('Ar'), positions,
+      cells: Float64Array.from({ length: 9 * frames }, (_, k) => cube(box)[k % 9]!), times: Float64Array.from([0, 0.01, 0.02]), boundary: 'periodic',
+    };
+    const plan = planRun(facts({ atoms: n, frames, cell: cube(box) }), ['rdf'], {});
+    const run = runAnalyses(traj, ['rdf'], plan.params);
+    expect((run.methods.rdf as { method: string }).method).toBe('cell-list');
+    // FCC nearest neighbours at a/√2 (lattice geometry): the first peak sits there.
+    expect(run.summary.rdf!.pairs[0]!.firstPeak!.rA).toBeCloseTo(a / Math.SQRT2, 1);
+  });
+});
+
+describe('the cost estimate', () => {
+  it('when frames double, then the time of a per-frame analysis about doubles, and memory grows with the frames held', () => {
+    const one = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 1000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null });
+    const two = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 2000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null });
+    expect(two.seconds / one.seconds).toBeGreaterThan(1.8);
+    expect(two.seconds / one.seconds).toBeLessThan(2.2);
+    expect(two.memoryBytes - one.memoryBytes).toBeCloseTo(1000 * (5000 * 24 + 80), -3);
+  });
+
+  it('when g(r) of a large system runs to half the cell, then it costs far more than with the bounded default range', () => {
+    const l = Math.cbrt(50_000 / 0.021);
+    const big = facts({ atoms: 50_000, frames: 1000, cell: cube(l) });
+    const bounded = planRun(big, ['rdf'], {}).estimate.seconds;
+    const half = planRun(big, ['rdf'], { rMaxA: l / 2 }).estimate.seconds;
+    expect(half / bounded).toBeGreaterThan(5);
+  });
+
+  it('when a run is past the limits, then each piece of advice names a change that brings it under them on its own', () => {
+    const big = facts({ atoms: 20_000, frames: 200_000, hasVelocities: true, cell: cube(Math.cbrt(20_000 / 0.021)) });
+    const analyses = ['msd', 'vacf', 'rdf'] as const;
+    const plan = planRun(big, [...analyses], { frameStride: 1 });
+    const limits = { seconds: plan.estimate.seconds / 10, memoryBytes: 64 * 1024 ** 3 };
+    const advice = adviceFor(plan, big, [...analyses], limits);
+    const stride = Number(/frame stride (\d+)/.exec(advice.join(' '))?.[1]);
+    expect(stride).toBeGreaterThan(1);
+    expect(planRun(big, [...analyses], { frameStride: stride }).estimate.seconds).toBeLessThanOrEqual(limits.seconds);
+    const toFrame = Number(/toFrame (\d+)/.exec(advice.join(' '))?.[1]);
+    expect(planRun(big, [...analyses], { frameStride: 1, toFrame }).estimate.seconds).toBeLessThanOrEqual(limits.seconds);
+  });
+});
