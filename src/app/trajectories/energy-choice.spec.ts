@@ -14,7 +14,7 @@ describe('the energy choice of the analysis checklist', () => {
 
   it('when the drift threshold and barostat pressure are given, then they reach the parameters; blank leaves the defaults', () => {
     const settings = {
-      species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null, gkMode: 'auto', gkStartPs: null, gkEndPs: null,
+      fromFrame: null, toFrame: null, frameStride: null, discardPs: null, species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null, gkMode: 'auto', gkStartPs: null, gkEndPs: null,
       window: 'hann', zeroPadFactor: 1, temperatureK: null, degreesOfFreedom: null, constraints: 0, rMaxA: null, binWidthA: 0.05, pair: null, sqWindow: 'lorch',
     } satisfies AdvancedSettings;
     expect(buildParams({ ...settings, driftThresholdKTPerNs: 0.05, externalPressureBar: 1.01325 }).params).toMatchObject({ driftThresholdKTPerNs: 0.05, externalPressureBar: 1.01325 });
