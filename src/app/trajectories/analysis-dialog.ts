@@ -183,7 +183,7 @@ import { TrajectoriesApi } from './trajectories-api';
     <div class="estimate-bar">
       @if (estimate(); as e) {
         <p class="estimate" aria-live="polite">
-          Estimated about {{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory, on {{ e.frames.used }} frames
+          Estimated {{ durationText(e.seconds) === 'under a second' ? '' : 'about ' }}{{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory, on {{ e.frames.used }} frames
           ({{ e.frames.from }}–{{ e.frames.to - 1 }}{{ e.frames.stride > 1 ? ', every ' + e.frames.stride + (e.frames.autoStride ? ', chosen for a long run' : '') : '' }}){{ e.rMaxA !== null ? '; g(r) to ' + significant(e.rMaxA) + ' Å' : '' }}.
         </p>
         @if (!e.withinLimits) {
@@ -274,7 +274,7 @@ export class AnalysisDialog {
   }
 
   protected durationText(seconds: number): string {
-    if (seconds < 1) return 'a second';
+    if (seconds < 1) return 'under a second';
     if (seconds < 90) return `${Math.round(seconds)} s`;
     if (seconds < 5400) return `${Math.round(seconds / 60)} min`;
     return `${(seconds / 3600).toFixed(1)} h`;
