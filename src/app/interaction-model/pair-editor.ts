@@ -107,9 +107,9 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
     .pair { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 8px 16px 12px; background: var(--mat-sys-surface-container-lowest); }
     header { display: flex; align-items: center; justify-content: space-between; }
     h3 { margin: 0; font: var(--mat-sys-title-small); }
-    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 12px; align-items: center; margin-top: 8px; }
-    .fields mat-form-field { width: 100%; min-width: 0; }
-    .fields .wide, .fields mat-checkbox, .fields .file { grid-column: 1 / -1; }
+    .fields { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; margin-top: 8px; }
+    .fields mat-form-field { flex: 1 1 180px; }
+    .fields .wide, .fields mat-checkbox, .fields .file { flex: 1 1 100%; }
     .issues { margin: 4px 0; padding-left: 20px; color: var(--mat-sys-error); font: var(--mat-sys-body-small); }
     .file { font: var(--mat-sys-body-small); }
   `,
