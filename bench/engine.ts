@@ -9,7 +9,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { lindemann } from '../server/analysis/lindemann.ts';
 import { msd } from '../server/analysis/msd.ts';
+import { fccLattice } from '../server/simulate/fcc-lattice.ts';
 import { PairHistogram } from '../server/analysis/pair-histogram.ts';
 import { rdf } from '../server/analysis/rdf.ts';
 import { thermo } from '../server/analysis/thermo.ts';
@@ -61,6 +63,7 @@ export async function benchEngine(): Promise<BenchRow[]> {
     ratio: npTotal ? total / npTotal : undefined,
     note: numpy ? `numpy ${npTotal?.toFixed(2)} s (its rdf timed on ${REFERENCE_RDF_FRAMES} frames, scaled)` : 'numpy not available: no comparison',
   });
+  rows.push(lindemannScaling(time));
   // Memory is measured by the pipeline suite, in a process of its own, so
   // earlier suites in this run cannot inflate it.
 
@@ -138,4 +141,24 @@ function numpyTimes(traj: Trajectory): Record<string, number> | null {
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+/**
+ * The bulk Lindemann index is O(N) per frame: time per atom at 4000 atoms
+ * over time per atom at 864, same frames (target ratio ≈ 1; all pairs would give ≈ 4.6).
+ */
+export function lindemannScaling(time: <R>(f: () => R) => [R, number]): BenchRow {
+  const crystal = (cells: number): Trajectory => {
+    const sites = fccLattice(cells, 5.26), n = sites.length / 3, frames = 200, rng = new SeededRandom(cells);
+    const positions = new Float32Array(3 * n * frames);
+    for (let f = 0; f < frames; f++) for (let k = 0; k < 3 * n; k++) positions[3 * n * f + k] = sites[k] + 0.1 * rng.normal();
+    const cells9 = new Float64Array(9 * frames);
+    for (let f = 0; f < frames; f++) cells9[9 * f] = cells9[9 * f + 4] = cells9[9 * f + 8] = cells * 5.26;
+    return { nAtoms: n, nFrames: frames, species: new Array<string>(n).fill('Ar'), positions, cells: cells9, times: Float64Array.from({ length: frames }, (_, f) => f * 0.01), boundary: 'periodic' };
+  };
+  const small = crystal(6), large = crystal(10);
+  const [, tSmall] = time(() => lindemann(small));
+  const [, tLarge] = time(() => lindemann(large));
+  const ratio = tLarge / large.nAtoms / (tSmall / small.nAtoms);
+  return { name: 'lindemann per atom, 4000 vs 864 atoms', seconds: tLarge, reference: 'same per-atom time at 864 atoms (O(N): ratio ≈ 1)', ratio, note: `${tSmall.toFixed(3)} s at 864 atoms, 200 frames` };
 }

@@ -163,7 +163,15 @@ export interface ThermoSummary {
 }
 
 export interface LindemannSummary {
+  /**
+   * In the form of `form`: the per-atom rms displacement over r_nn for bulk
+   * systems, the all-pairs distance fluctuation for finite clusters.
+   */
   index: number;
+  /** Absent in reports before engine 0.2, which mixed forms by system size. */
+  form?: 'per-atom' | 'all-pairs';
+  /** Nearest-neighbour distance r_nn, Å. */
+  nearestNeighbourA?: number;
   threshold: number;
   melted: boolean;
   displacementRatio: number;

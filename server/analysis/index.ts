@@ -199,10 +199,10 @@ export function runAnalyses(
         break;
       }
       case 'lindemann': {
-        const r = lindemann(traj, { species }, progress);
-        run.summary.lindemann = { index: r.index, melted: r.melted, threshold: r.threshold, displacementRatio: r.displacementRatio };
+        const r = lindemann(traj, { species, masses }, progress);
+        run.summary.lindemann = { index: r.index, form: r.form, melted: r.melted, threshold: r.threshold, displacementRatio: r.displacementRatio, nearestNeighbourA: r.nearestNeighbourA };
         run.curves.lindemann = curve([['atom', 'index', Float64Array.from(r.atoms)], ['Lindemann index', '1', r.perAtom]]);
-        run.methods.lindemann = { pairSet: r.pairSet, pairs: r.pairs, frameStride: r.frameStride, framesUsed: r.framesUsed };
+        run.methods.lindemann = { form: r.form, pairs: r.pairs, frameStride: r.frameStride, framesUsed: r.framesUsed, nearestNeighbourA: r.nearestNeighbourA, rmsDisplacementA: r.rmsDisplacementA };
         break;
       }
       case 'energy': {

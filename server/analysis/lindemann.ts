@@ -1,171 +1,146 @@
 /**
- * Lindemann index per atom, q_i = (1/(n_i)) Σ_j √(⟨r_ij²⟩ − ⟨r_ij⟩²)/⟨r_ij⟩,
- * and its mean over atoms (definition as on the Wikipedia "Lindemann index"
- * page; Lindemann, Phys. Z. 11, 609 (1910) [from memory]). Periodic pair
- * distances use the minimum image of each frame.
+ * Lindemann index, in the one form that fits the system (SCIENCE items 17, 23).
  *
- * Cost control, stated in the result: all pairs when there are at most
- * maxPairs of them (then n_i = N − 1, the textbook form); otherwise each
- * atom's neighbours within neighbourCutoff in the first frame, a
- * "local" index. Frames are strided so pairs × frames stays within budget.
+ * Bulk (a periodic cell along any axis): the per-atom form
+ *   δ_i = √⟨|u_i − ⟨u_i⟩|²⟩ / r_nn,  index δ_L = √(mean over atoms of ⟨|u − ⟨u⟩|²⟩) / r_nn,
+ * on unwrapped positions with the centre-of-mass drift removed, r_nn the
+ * first peak of the pair-distance distribution (nearest-neighbour.ts). It
+ * does not depend on the number of atoms (√3·s/r_nn for isotropic jitter s)
+ * and costs O(N) per frame. Averaging the pair form over all pairs of a bulk
+ * system would dilute it with distant pairs and shrink it as the box grows.
  *
- * Also reported: the rms displacement of each atom about its mean position
- * (per-frame centroid of the selection removed) over the mean nearest-
- * neighbour distance, the other common form of the criterion.
+ * Finite cluster (no periodic axis): the pair form over all pairs,
+ *   q_i = (1/(N−1)) Σ_{j≠i} √(⟨r_ij²⟩ − ⟨r_ij⟩²)/⟨r_ij⟩,  index = mean q_i
+ * (definition as on the Wikipedia "Lindemann index" page [CONFIRMED]), which
+ * is blind to the cluster's rotation; frames are strided to keep pairs ×
+ * frames within budget.
+ *
+ * Melting thresholds, each applied to its own form: about 0.1 of the spacing
+ * for the rms displacement in a bulk crystal (Lindemann, Phys. Z. 11, 609
+ * (1910) [from memory]; "about one tenth" CONFIRMED in Buchenau, Zorn &
+ * Ramos, arXiv:1311.4739), about 0.1 for the all-pairs index of a cluster
+ * (Zhou, Karplus, Ball & Berry, J. Chem. Phys. 116, 2323 (2002) [from memory]).
  */
-import { cellFramesOf, minimumImage } from './cell-geometry.ts';
+import { AtomSeriesReader } from './atom-series.ts';
+import { selectAtoms } from './atom-groups.ts';
+import { cellFramesOf } from './cell-geometry.ts';
+import { nearestNeighbourDistance } from './nearest-neighbour.ts';
 import type { Trajectory } from './trajectory.ts';
 
-export const MELTING_THRESHOLD = 0.1;
+export const BULK_MELTING_THRESHOLD = 0.1;
+export const CLUSTER_MELTING_THRESHOLD = 0.1;
+/** Kept for callers that read one threshold. */
+export const MELTING_THRESHOLD = BULK_MELTING_THRESHOLD;
+
+export type LindemannForm = 'per-atom' | 'all-pairs';
 
 export interface LindemannOptions {
   species?: readonly string[];
-  maxPairs?: number;
-  /** Å; default 1.4·(V/N)^(1/3), between the first and second FCC shells. */
-  neighbourCutoffA?: number;
-  /** Pair-distance evaluations allowed (pairs × frames). */
+  masses?: Readonly<Record<string, number>>;
+  /** Pair-distance evaluations allowed for the cluster form (pairs × frames). */
   budget?: number;
 }
 
 export interface LindemannResult {
+  form: LindemannForm;
+  /** δ_i (per-atom form) or q_i (all-pairs form) of each selected atom. */
   perAtom: Float64Array;
   atoms: Int32Array;
   index: number;
   threshold: number;
   melted: boolean;
-  pairSet: 'all-pairs' | 'first-frame-neighbours';
+  /** Pairs followed by the all-pairs form (0 for the per-atom form). */
   pairs: number;
   frameStride: number;
   framesUsed: number;
-  /** √⟨|u − ⟨u⟩|²⟩ averaged over atoms, Å. */
+  /** √⟨|u − ⟨u⟩|²⟩ over the selected atoms, Å, COM drift removed. */
   rmsDisplacementA: number;
   nearestNeighbourA: number;
-  /** rmsDisplacementA / nearestNeighbourA. */
+  /** rmsDisplacementA / nearestNeighbourA: the per-atom form, whichever form gives the index. */
   displacementRatio: number;
 }
 
 export function lindemann(traj: Trajectory, options: LindemannOptions = {}, onProgress?: (fraction: number) => void): LindemannResult {
-  const geom = cellFramesOf(traj);
-  const wanted = options.species && options.species.length > 0 ? new Set(options.species) : null;
-  const atoms = Int32Array.from([...traj.species.keys()].filter((i) => !wanted || wanted.has(traj.species[i])));
+  const sel = selectAtoms(traj, options.species, options.masses);
+  const atoms = sel.atoms;
   const n = atoms.length;
   if (n < 2) throw new Error('The Lindemann index needs at least two atoms.');
-  const T = traj.nFrames;
-  const x = traj.positions;
-  const N = traj.nAtoms;
-  const d = new Float64Array(3);
-  const dist = (f: number, i: number, j: number): number => {
-    const pi = 3 * (N * f + i), pj = 3 * (N * f + j);
-    d[0] = x[pj] - x[pi];
-    d[1] = x[pj + 1] - x[pi + 1];
-    d[2] = x[pj + 2] - x[pi + 2];
-    if (geom) minimumImage(geom, f, d);
-    return Math.sqrt(d[0] * d[0] + d[1] * d[1] + d[2] * d[2]);
-  };
-
-  const maxPairs = options.maxPairs ?? 2_000_000;
-  const allPairs = (n * (n - 1)) / 2;
-  let pi: Int32Array, pj: Int32Array, pairSet: LindemannResult['pairSet'];
-  if (allPairs <= maxPairs) {
-    pi = new Int32Array(allPairs);
-    pj = new Int32Array(allPairs);
-    let p = 0;
-    for (let a = 0; a < n; a++) for (let b = a + 1; b < n; b++) (pi[p] = atoms[a]), (pj[p++] = atoms[b]);
-    pairSet = 'all-pairs';
-  } else {
-    const volume = geom ? geom.volumes[0] : boundingVolume(traj, atoms);
-    const cutoff = options.neighbourCutoffA ?? 1.4 * Math.cbrt(volume / n);
-    const li: number[] = [], lj: number[] = [];
-    for (let a = 0; a < n; a++) for (let b = a + 1; b < n; b++) if (dist(0, atoms[a], atoms[b]) < cutoff) li.push(atoms[a]), lj.push(atoms[b]);
-    if (li.length === 0) throw new Error('No neighbour pairs within the Lindemann cut-off.');
-    pi = Int32Array.from(li);
-    pj = Int32Array.from(lj);
-    pairSet = 'first-frame-neighbours';
+  const rNN = nearestNeighbourDistance(traj, atoms);
+  const displacement = perAtomDisplacement(traj, sel.masses, atoms, onProgress);
+  const perAtomRatio = displacement.rmsPerAtom.map((u) => u / rNN);
+  const ratio = displacement.rms / rNN;
+  const cluster = cellFramesOf(traj) === null;
+  if (!cluster) {
+    return {
+      form: 'per-atom', perAtom: perAtomRatio, atoms, index: ratio, threshold: BULK_MELTING_THRESHOLD, melted: ratio > BULK_MELTING_THRESHOLD,
+      pairs: 0, frameStride: 1, framesUsed: traj.nFrames, rmsDisplacementA: displacement.rms, nearestNeighbourA: rNN, displacementRatio: ratio,
+    };
   }
-  const nPairs = pi.length;
-  const stride = Math.max(1, Math.ceil((nPairs * T) / (options.budget ?? 4e8)));
-  const sum = new Float64Array(nPairs), sum2 = new Float64Array(nPairs);
-  const uSum = new Float64Array(3 * N), u2Sum = new Float64Array(N);
-  const unwrapped = new Float64Array(3 * N);
-  for (const a of atoms) for (let c = 0; c < 3; c++) unwrapped[3 * a + c] = x[3 * a + c];
-  let frames = 0;
-  for (let f = 0; f < T; f++) {
-    if (f > 0) advanceUnwrapped(traj, f, atoms, unwrapped, geom ? (fr, v) => minimumImage(geom, fr, v) : null, d);
-    if (f % stride !== 0) continue;
-    for (let p = 0; p < nPairs; p++) {
-      const r = dist(f, pi[p], pj[p]);
-      sum[p] += r;
-      sum2[p] += r * r;
+  const pairs = allPairsIndex(traj, atoms, options.budget ?? 4e8);
+  return {
+    form: 'all-pairs', perAtom: pairs.perAtom, atoms, index: pairs.index, threshold: CLUSTER_MELTING_THRESHOLD, melted: pairs.index > CLUSTER_MELTING_THRESHOLD,
+    pairs: pairs.pairs, frameStride: pairs.stride, framesUsed: pairs.frames, rmsDisplacementA: displacement.rms, nearestNeighbourA: rNN, displacementRatio: ratio,
+  };
+}
+
+/** Each atom's rms displacement about its mean unwrapped position, COM drift removed; O(N·T). */
+function perAtomDisplacement(traj: Trajectory, masses: Float64Array, atoms: Int32Array, onProgress?: (fraction: number) => void): { rmsPerAtom: Float64Array; rms: number } {
+  const reader = new AtomSeriesReader(traj, masses, true);
+  const T = traj.nFrames;
+  const series = new Float64Array(3 * T);
+  const rmsPerAtom = new Float64Array(atoms.length);
+  let sum = 0;
+  atoms.forEach((atom, k) => {
+    reader.unwrapped(atom, series);
+    let msd = 0;
+    for (let c = 0; c < 3; c++) {
+      // Measured from the first frame, so an atom that never moves gives exactly 0.
+      const origin = series[c * T];
+      let mean = 0;
+      for (let t = 0; t < T; t++) mean += series[c * T + t] - origin;
+      mean /= T;
+      for (let t = 0; t < T; t++) msd += (series[c * T + t] - origin - mean) ** 2;
     }
-    let cx = 0, cy = 0, cz = 0;
-    for (const a of atoms) (cx += unwrapped[3 * a]), (cy += unwrapped[3 * a + 1]), (cz += unwrapped[3 * a + 2]);
-    cx /= n;
-    cy /= n;
-    cz /= n;
-    for (const a of atoms) {
-      const ux = unwrapped[3 * a] - cx, uy = unwrapped[3 * a + 1] - cy, uz = unwrapped[3 * a + 2] - cz;
-      uSum[3 * a] += ux;
-      uSum[3 * a + 1] += uy;
-      uSum[3 * a + 2] += uz;
-      u2Sum[a] += ux * ux + uy * uy + uz * uz;
+    // The mean position is itself estimated from the T frames: dividing by T − 1 removes that bias.
+    msd /= Math.max(1, T - 1);
+    rmsPerAtom[k] = Math.sqrt(msd);
+    sum += msd;
+    onProgress?.((k + 1) / atoms.length);
+  });
+  return { rmsPerAtom, rms: Math.sqrt(sum / atoms.length) };
+}
+
+/** The pair form over every pair of a finite cluster. */
+function allPairsIndex(traj: Trajectory, atoms: Int32Array, budget: number): { perAtom: Float64Array; index: number; pairs: number; stride: number; frames: number } {
+  const n = atoms.length, N = traj.nAtoms, T = traj.nFrames, x = traj.positions;
+  const nPairs = (n * (n - 1)) / 2;
+  const stride = Math.max(1, Math.ceil((nPairs * T) / budget));
+  const sum = new Float64Array(nPairs), sum2 = new Float64Array(nPairs);
+  let frames = 0;
+  for (let f = 0; f < T; f += stride) {
+    let p = 0;
+    for (let a = 0; a < n; a++) {
+      const pa = 3 * (N * f + atoms[a]);
+      for (let b = a + 1; b < n; b++, p++) {
+        const pb = 3 * (N * f + atoms[b]);
+        const r = Math.hypot(x[pb] - x[pa], x[pb + 1] - x[pa + 1], x[pb + 2] - x[pa + 2]);
+        sum[p] += r;
+        sum2[p] += r * r;
+      }
     }
     frames++;
-    onProgress?.((f + 1) / T);
   }
-  const qSum = new Float64Array(N), qCount = new Float64Array(N), nearest = new Float64Array(N).fill(Infinity);
-  for (let p = 0; p < nPairs; p++) {
-    const mean = sum[p] / frames;
-    const variance = Math.max(0, sum2[p] / frames - mean * mean);
-    const q = Math.sqrt(variance) / mean;
-    qSum[pi[p]] += q;
-    qSum[pj[p]] += q;
-    qCount[pi[p]]++;
-    qCount[pj[p]]++;
-    nearest[pi[p]] = Math.min(nearest[pi[p]], mean);
-    nearest[pj[p]] = Math.min(nearest[pj[p]], mean);
+  const qSum = new Float64Array(n);
+  let p = 0;
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++, p++) {
+      const mean = sum[p] / frames;
+      const q = Math.sqrt(Math.max(0, sum2[p] / frames - mean * mean)) / mean;
+      qSum[a] += q;
+      qSum[b] += q;
+    }
   }
-  const perAtom = Float64Array.from(atoms, (a) => (qCount[a] > 0 ? qSum[a] / qCount[a] : 0));
-  const index = perAtom.reduce((s, v) => s + v, 0) / n;
-  let msd = 0, nn = 0;
-  for (const a of atoms) {
-    const mx = uSum[3 * a] / frames, my = uSum[3 * a + 1] / frames, mz = uSum[3 * a + 2] / frames;
-    msd += u2Sum[a] / frames - (mx * mx + my * my + mz * mz);
-    nn += nearest[a];
-  }
-  const rms = Math.sqrt(Math.max(0, msd / n));
-  const nnMean = nn / n;
-  return {
-    perAtom,
-    atoms,
-    index,
-    threshold: MELTING_THRESHOLD,
-    melted: index > MELTING_THRESHOLD,
-    pairSet,
-    pairs: nPairs,
-    frameStride: stride,
-    framesUsed: frames,
-    rmsDisplacementA: rms,
-    nearestNeighbourA: nnMean,
-    displacementRatio: rms / nnMean,
-  };
+  const perAtom = qSum.map((q) => q / (n - 1));
+  return { perAtom, index: perAtom.reduce((s, v) => s + v, 0) / n, pairs: nPairs, stride, frames };
 }
 
-function advanceUnwrapped(traj: Trajectory, f: number, atoms: Int32Array, u: Float64Array, image: ((frame: number, v: Float64Array) => void) | null, d: Float64Array): void {
-  const x = traj.positions, N = traj.nAtoms;
-  for (const a of atoms) {
-    const p = 3 * (N * f + a), q = 3 * (N * (f - 1) + a);
-    d[0] = x[p] - x[q];
-    d[1] = x[p + 1] - x[q + 1];
-    d[2] = x[p + 2] - x[q + 2];
-    image?.(f, d);
-    u[3 * a] += d[0];
-    u[3 * a + 1] += d[1];
-    u[3 * a + 2] += d[2];
-  }
-}
-
-function boundingVolume(traj: Trajectory, atoms: Int32Array): number {
-  const lo = [Infinity, Infinity, Infinity], hi = [-Infinity, -Infinity, -Infinity];
-  for (const a of atoms) for (let c = 0; c < 3; c++) (lo[c] = Math.min(lo[c], traj.positions[3 * a + c])), (hi[c] = Math.max(hi[c], traj.positions[3 * a + c]));
-  return Math.max(1e-9, (hi[0] - lo[0]) * (hi[1] - lo[1]) * (hi[2] - lo[2]));
-}

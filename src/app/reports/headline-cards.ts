@@ -115,10 +115,16 @@ function coordinationCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
   };
 }
 
+const LINDEMANN_FORMS = {
+  'per-atom': 'rms displacement of each atom about its mean position over the nearest-neighbour distance (bulk form)',
+  'all-pairs': 'fluctuation of every interatomic distance over its mean (cluster form)',
+} as const;
+
 function lindemannCard(s: NonNullable<ReportSummary['lindemann']>): HeadlineCard {
+  const form = s.form ? `${LINDEMANN_FORMS[s.form]}${s.nearestNeighbourA ? `, r_nn = ${formatNumber(s.nearestNeighbourA, 3)} Å` : ''}. ` : '';
   return {
     id: 'lindemann', title: 'Lindemann index', value: formatNumber(s.index, 3), unit: '',
-    detail: `${s.melted ? 'Above' : 'Below'} the melting threshold ${formatNumber(s.threshold, 2)}: ${s.melted ? 'liquid-like' : 'solid-like'}`,
+    detail: `${form}${s.melted ? 'Above' : 'Below'} the melting threshold ${formatNumber(s.threshold, 2)} for this form: ${s.melted ? 'liquid-like' : 'solid-like'}`,
     warning: s.melted ? 'Melted: atoms wander beyond the Lindemann threshold.' : null,
   };
 }

@@ -86,3 +86,18 @@ describe('methods text', () => {
     expect(methodsParagraphs(report()).some((p) => p.heading === 'Frames')).toBe(false);
   });
 });
+
+describe('methods text of the Lindemann index', () => {
+  const base = { id: 1, projectId: 1, trajectoryId: 1, trajectoryName: 't', runId: 1, title: 't', analyses: ['lindemann'], params: {}, engineVersion: '0.2.0', inputSha256: null, createdAt: '2026-01-01T00:00:00Z', curves: {} };
+  it('when the bulk form was used, then the text names the per-atom definition, r_nn and that it does not depend on size; a cluster names the all-pairs form', () => {
+    const bulk = methodsParagraphs({ ...base, summary: { lindemann: { index: 0.046, form: 'per-atom', threshold: 0.1, melted: false, displacementRatio: 0.046, nearestNeighbourA: 3.72 } }, methods: { lindemann: { form: 'per-atom', framesUsed: 40, nearestNeighbourA: 3.72 } } })
+      .find((p) => p.heading === 'Lindemann index')!.body;
+    expect(bulk).toContain('δ_i = √⟨|u_i − ⟨u_i⟩|²⟩/r_nn');
+    expect(bulk).toContain('r_nn = 3.72 Å');
+    expect(bulk).toContain('does not depend on the number of atoms');
+    const cluster = methodsParagraphs({ ...base, summary: { lindemann: { index: 0.03, form: 'all-pairs', threshold: 0.1, melted: false, displacementRatio: 0.05 } }, methods: { lindemann: { form: 'all-pairs', pairs: 5778, frameStride: 1, framesUsed: 40 } } })
+      .find((p) => p.heading === 'Lindemann index')!.body;
+    expect(cluster).toContain('Cluster form (no periodic cell)');
+    expect(cluster).toContain('over 5778 pairs');
+  });
+});

@@ -156,6 +156,22 @@ function sqParagraph(m: Json): MethodsParagraph {
 }
 
 function lindemannParagraph(s: NonNullable<ReportSummary['lindemann']>, m: Json): MethodsParagraph {
+  const form = text(m, 'form') ?? s.form;
+  if (form === 'per-atom') {
+    return {
+      heading: 'Lindemann index',
+      body: `Bulk form (a periodic cell): each atom's rms displacement about its mean position, δ_i = √⟨|u_i − ⟨u_i⟩|²⟩/r_nn, on unwrapped positions with the centre-of-mass drift removed, ` +
+        `over ${f(num(m, 'framesUsed'), 12)} frames; the index is √(mean over atoms of ⟨|u − ⟨u⟩|²⟩)/r_nn with r_nn = ${f(num(m, 'nearestNeighbourA') ?? s.nearestNeighbourA ?? null)} Å, the first peak of the pair-distance distribution. ` +
+        `It does not depend on the number of atoms. Melted above ${f(s.threshold, 2)} of the spacing (Lindemann's criterion).`,
+    };
+  }
+  if (form === 'all-pairs') {
+    return {
+      heading: 'Lindemann index',
+      body: `Cluster form (no periodic cell): relative fluctuation of every interatomic distance, q_i = (1/(N−1))Σ_j √(⟨r_ij²⟩ − ⟨r_ij⟩²)/⟨r_ij⟩, over ${f(num(m, 'pairs'), 12)} pairs, ` +
+        `every ${f(num(m, 'frameStride'), 6)} frame(s) of ${f(num(m, 'framesUsed'), 12)}; melted above ${f(s.threshold, 2)} (the usual cluster criterion).`,
+    };
+  }
   const pairs = text(m, 'pairSet') === 'all-pairs' ? 'every pair of atoms' : 'neighbours in the first frame';
   return {
     heading: 'Lindemann index',
