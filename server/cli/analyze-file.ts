@@ -6,6 +6,9 @@ import { runAnalyses, type AnalysisRun, type SimulationFacts } from '../analysis
 import { assembleTrajectory } from '../formats/assemble.ts';
 import { inspectTrajectory, type InspectResult } from '../formats/inspect.ts';
 import { readFrames } from '../formats/read-frames.ts';
+import { openTrajectory } from '../formats/open-trajectory.ts';
+import { TrajectoryFormatError } from '../formats/frame.ts';
+import type { Trajectory } from '../analysis/trajectory.ts';
 import type { LengthUnit, TimeUnit, VelocityUnit } from '../formats/units.ts';
 import { LENGTH_TO_ANGSTROM, TIME_TO_PS } from '../formats/units.ts';
 import { planRun, PlanProblem, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
@@ -67,16 +70,88 @@ export async function planFile(path: string, options: AnalyzeFileOptions): Promi
   }
 }
 
-/** Reads any supported file, runs the same engine the server runs on the selected frames, and returns the report document. */
-export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: InspectResult }> {
+/** What the report says about the file. */
+interface FileInfo {
+  format: string;
+  atoms: number;
+  frames: number;
+}
+
+/** True when the options choose frames, so the file must be counted before it is read. */
+function choosesFrames(params: AnalysisParamsInput): boolean {
+  return params.fromFrame !== undefined || params.toFrame !== undefined || params.frameStride !== undefined || (params.discardPs ?? 0) > 0;
+}
+
+/**
+ * Every frame in one pass: parse and assemble at once (no separate
+ * inspection pass), then plan on what was read. Only a run longer than the
+ * automatic stride limit is thinned afterwards.
+ */
+async function readWhole(path: string, options: AnalyzeFileOptions): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
   const name = basename(path);
-  const [{ plan, info, facts }, inputSha256] = await Promise.all([planFile(path, options), sha256Of(path)]);
-  const { selection, params } = plan;
+  const opened = await openTrajectory(path, name);
+  const timeStepPs = options.timeStep !== undefined ? options.timeStep * TIME_TO_PS[options.timeUnit] : undefined;
+  let traj: Trajectory;
+  try {
+    traj = await assembleTrajectory(opened.frames, {
+      length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit, timeStepPs, boundary: options.boundary,
+    }, undefined, name);
+  } catch (err) {
+    if (err instanceof TrajectoryFormatError && /frames carry no time/.test(err.message)) throw new Error(`${name} states no time between frames: give it with --dt-ps`);
+    throw err;
+  }
+  const facts: TrajectoryFacts = {
+    atoms: traj.nAtoms, frames: traj.nFrames, hasVelocities: traj.velocities !== undefined,
+    framePs: traj.nFrames > 1 ? (traj.times[traj.nFrames - 1]! - traj.times[0]!) / (traj.nFrames - 1) : timeStepPs ?? 1,
+    cell: traj.cells ? traj.cells.subarray(0, 9) : null,
+  };
+  let plan: PlannedRun;
+  try {
+    plan = planRun(facts, options.analyses, options.params);
+  } catch (err) {
+    if (err instanceof PlanProblem) throw new Error(`${name}: ${err.message}`);
+    throw err;
+  }
+  const info = { format: opened.format, atoms: traj.nAtoms, frames: traj.nFrames };
+  return { traj: plan.selection.stride > 1 ? everyNth(traj, plan.selection.stride) : traj, plan, info };
+}
+
+/** Every stride-th frame of an assembled trajectory. */
+function everyNth(t: Trajectory, stride: number): Trajectory {
+  const frames = Math.ceil(t.nFrames / stride);
+  const n3 = t.nAtoms * 3;
+  const pick32 = (a: Float32Array) => {
+    const out = new Float32Array(frames * n3);
+    for (let f = 0; f < frames; f++) out.set(a.subarray(f * stride * n3, (f * stride + 1) * n3), f * n3);
+    return out;
+  };
+  const pick64 = (a: Float64Array, width: number) => Float64Array.from({ length: frames * width }, (_, k) => a[Math.floor(k / width) * stride * width + (k % width)]!);
+  const out: Trajectory = { ...t, nFrames: frames, positions: pick32(t.positions), times: pick64(t.times, 1), cells: t.cells ? pick64(t.cells, 9) : null };
+  if (t.velocities) out.velocities = pick32(t.velocities);
+  if (t.observables) out.observables = Object.fromEntries(Object.entries(t.observables).map(([k, v]) => [k, pick64(v, 1)]));
+  return out;
+}
+
+/** The chosen frames only: counted by an inspection pass first, then read again stepping over the rest without parsing them. */
+async function readSelected(path: string, options: AnalyzeFileOptions): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
+  const name = basename(path);
+  const { plan, info, facts } = await planFile(path, options);
+  const { selection } = plan;
   const frames = readFrames(path, { from: selection.from, to: selection.to, stride: selection.stride }, undefined, { name });
   const traj = await assembleTrajectory(frames, {
     length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit,
     timeStepPs: facts.framePs * selection.stride, boundary: options.boundary,
   }, { atoms: info.atoms, frames: selection.frames }, name);
+  return { traj, plan, info: { format: info.format, atoms: info.atoms, frames: info.frames } };
+}
+
+/** Reads any supported file, runs the same engine the server runs on the selected frames, and returns the report document. */
+export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: FileInfo }> {
+  const name = basename(path);
+  const [{ traj, plan, info }, inputSha256] = await Promise.all([
+    choosesFrames(options.params) ? readSelected(path, options) : readWhole(path, options), sha256Of(path),
+  ]);
+  const { selection, params } = plan;
   const run = runAnalyses(traj, options.analyses, params, undefined, options.facts);
   const framesUsed = { from: selection.from, to: selection.to, stride: selection.stride, used: selection.frames, discardedFrames: selection.discardFrames, discardPs: params.discardPs, autoStride: selection.autoStride };
   return {

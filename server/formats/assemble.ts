@@ -48,6 +48,7 @@ export async function assembleTrajectory(
   let nAtoms = expected?.atoms ?? -1;
   let capacity = expected?.frames ?? 0;
   let species: string[] = [];
+  let lastSpecies: readonly string[] | null = null;
   let positions: Float32Array = new Float32Array(nAtoms > 0 ? capacity * nAtoms * 3 : 0);
   let velocities: Float32Array | undefined;
   let cells: Float64Array | null = null;
@@ -79,6 +80,14 @@ export async function assembleTrajectory(
       }
     } else if (n !== nAtoms) {
       throw new TrajectoryFormatError(`frame has ${n} atoms but the first frame has ${nAtoms}`, where);
+    }
+    // Readers hand over the same species array while it does not change, so a full comparison is rare.
+    if (frame.species !== lastSpecies) {
+      if (count > 0) {
+        const atom = species.findIndex((s, k) => s !== frame.species[k]);
+        if (atom >= 0) throw new TrajectoryFormatError(`species of atom ${atom + 1} changes from ${species[atom]} to ${frame.species[atom]}; atoms must keep their species and order`, where);
+      }
+      lastSpecies = frame.species;
     }
     if (count >= capacity) {
       if (expected) throw new TrajectoryFormatError(`more frames than the ${expected.frames} inspection found`, where);

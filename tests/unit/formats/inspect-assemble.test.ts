@@ -151,3 +151,12 @@ describe('detection without file names', () => {
     await Promise.all([xyz, ext, pdb].map((o) => o.frames.return(undefined)));
   });
 });
+
+describe('assembly without a prior inspection', () => {
+  it('when an atom changes species between frames, then assembly refuses it naming the atom and the frame', async () => {
+    const text = '2\nTime=0\nAr 0 0 0\nKr 1 1 1\n2\nTime=1\nAr 0 0 0\nXe 1 1 1\n';
+    const opened = await openTrajectory(chunked(bytes(text)), 'swap.xyz');
+    await expect(assembleTrajectory(opened.frames, { length: 'angstrom', time: 'ps', velocity: 'angstrom/ps' }, undefined, 'swap.xyz'))
+      .rejects.toThrow(/swap\.xyz, frame 2: species of atom 2 changes from Kr to Xe/);
+  });
+});
