@@ -96,6 +96,8 @@ function analysisCost(key: AnalysisKey, input: CostInput): AnalysisCost {
     case 'sq':
       return { key, seconds: 0.01, workingBytes: 1024 ** 2 };
     case 'lindemann': {
+      // Periodic systems use the per-atom displacement form, one pass per atom-frame; only clusters pair every atom.
+      if (input.volumePerAtomA3 !== null) return { key, seconds: perAtomFrame(3), workingBytes: 48 * n };
       const all = (n * (n - 1)) / 2;
       const allPairs = all <= 2e6;
       // Beyond 2·10⁶ pairs: neighbours within 1.4 spacings of the first frame, about six per atom, found by a full search.
