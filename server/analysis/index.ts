@@ -189,7 +189,7 @@ export function runAnalyses(
               [`N ${p.label}`, 'atoms', p.coordination],
             ]),
           ]);
-          run.methods.rdf = { rMaxA: r.rMaxA, binWidthA: r.binWidthA, framesUsed: r.framesUsed, method: r.method, normalisation: r.normalisation };
+          run.methods.rdf = { rMaxA: r.rMaxA, binWidthA: r.binWidthA, framesUsed: r.framesUsed, independentFrames: r.independentFrames, method: r.method, normalisation: r.normalisation };
         } else {
           const q = sqFromRdf(r, { sqWindow: params.sqWindow, qMaxInvA: params.qMaxInvA });
           run.summary.sq = { firstPeak: highestReliablePeak(q) };

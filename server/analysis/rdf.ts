@@ -11,9 +11,15 @@
  * Only distances strictly below r_max count (within single-precision
  * round-off of r_max counts as r_max); r_max may not exceed half the
  * shortest box edge (minimum image would double-count beyond it).
+ *
+ * A first peak and minimum are reported only where g(r) has a shell that
+ * stands above the histogram's own counting noise (rdf-shells.ts); an ideal
+ * gas has none, and then both are null.
  */
 import { cellFramesOf } from './cell-geometry.ts';
 import { PairHistogram, type PairMethod } from './pair-histogram.ts';
+import { firstShell, independentFrames } from './rdf-shells.ts';
+import { minimumImage } from './cell-geometry.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export interface RdfOptions {
@@ -52,6 +58,8 @@ export interface RdfResult {
   framesUsed: number;
   method: 'cell-list' | 'brute-force';
   normalisation: 'ideal gas of the other atoms: (N_a−1)/V like pairs, N_b/V unlike, per-frame V';
+  /** Frames that count as independent configurations for the shell test. */
+  independentFrames: number;
   /** Mean number density N/V, atoms/Å³. */
   numberDensityPerA3: number;
   total: RdfPairResult;
@@ -59,6 +67,8 @@ export interface RdfResult {
 }
 
 export const DEFAULT_RDF_BIN_WIDTH_A = 0.05;
+/** Consecutive blocks of frames whose spread of g(r) enters the shell test. */
+export const FRAME_BLOCKS = 8;
 
 export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fraction: number) => void): RdfResult {
   const geom = cellFramesOf(traj);
@@ -95,7 +105,18 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
   const shell = Float64Array.from({ length: nBins }, (_, k) => ((4 * Math.PI) / 3) * (((k + 1) * dr) ** 3 - (k * dr) ** 3));
   const histogram = new PairHistogram(N, types, pairSlot, nT, nBins, rMax, options.method ?? 'auto');
   const stride = Math.max(1, Math.floor(options.frameStride ?? 1));
+  const framesToUse = Math.ceil(T / stride);
+  const nBlocks = Math.min(FRAME_BLOCKS, framesToUse);
+  const idealSum = new Float64Array(nSlots * nBins);
+  const totalIdeal = new Float64Array(nBins);
+  const blockG = Array.from({ length: nBlocks }, () => new Float64Array(nSlots * nBins));
+  const blockTotalG = Array.from({ length: nBlocks }, () => new Float64Array(nBins));
+  const blockFrames = new Float64Array(nBlocks);
   let frames = 0, densitySum = 0;
+  // Mobility between counted frames, from a sample of atoms: how independent the frames are.
+  const moverStep = Math.max(1, Math.floor(N / 1000));
+  const step = new Float64Array(3);
+  let stepSquares = 0, steps = 0, previous = -1;
 
   for (let f = 0; f < T; f += stride) {
     const o = 9 * f;
@@ -103,6 +124,8 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
     histogram.addFrame(traj.positions, 3 * N * f, [geom.cells[o], geom.cells[o + 4], geom.cells[o + 8]], frameHist);
     const V = geom.volumes[f];
     densitySum += N / V;
+    const block = Math.min(nBlocks - 1, Math.floor((frames * nBlocks) / framesToUse));
+    blockFrames[block]++;
     for (let a = 0; a < nT; a++) {
       for (let b = a; b < nT; b++) {
         const s = slotOf(a, b);
@@ -110,8 +133,11 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
         if (pairs === 0) continue;
         for (let k = 0; k < nBins; k++) {
           const c = frameHist[s * nBins + k];
+          const ideal = (pairs * shell[k]) / V;
           countSum[s * nBins + k] += c;
-          gSum[s * nBins + k] += (c * V) / (pairs * shell[k]);
+          idealSum[s * nBins + k] += ideal;
+          gSum[s * nBins + k] += c / ideal;
+          blockG[block][s * nBins + k] += c / ideal;
         }
       }
     }
@@ -119,31 +145,49 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
     for (let k = 0; k < nBins; k++) {
       let c = 0;
       for (let s = 0; s < nSlots; s++) c += frameHist[s * nBins + k];
-      totalG[k] += (c * V) / (allPairs * shell[k]);
+      const ideal = (allPairs * shell[k]) / V;
+      totalG[k] += c / ideal;
+      totalIdeal[k] += ideal;
+      blockTotalG[block][k] += c / ideal;
     }
+    if (previous >= 0) {
+      for (let i = 0; i < N; i += moverStep) {
+        const p = 3 * (N * f + i), q = 3 * (N * previous + i);
+        step[0] = traj.positions[p] - traj.positions[q];
+        step[1] = traj.positions[p + 1] - traj.positions[q + 1];
+        step[2] = traj.positions[p + 2] - traj.positions[q + 2];
+        minimumImage(geom, f, step);
+        stepSquares += step[0] ** 2 + step[1] ** 2 + step[2] ** 2;
+        steps++;
+      }
+    }
+    previous = f;
     frames++;
     onProgress?.(Math.min(1, (f + 1) / T));
   }
 
   const rA = Float64Array.from({ length: nBins }, (_, k) => (k + 0.5) * dr);
-  const build = (label: string, a: string, b: string, g: Float64Array, perAtomCounts: Float64Array): RdfPairResult => {
+  const independent = independentFrames(frames, steps > 0 ? Math.sqrt(stepSquares / steps) : 0, 3 * dr);
+  const blockMeans = (sums: Float64Array[], offset: number): Float64Array[] =>
+    sums.map((b, bi) => b.slice(offset, offset + nBins).map((v) => v / Math.max(1, blockFrames[bi])));
+  const build = (label: string, a: string, b: string, g: Float64Array, perAtomCounts: Float64Array, rawCounts: ArrayLike<number>, ideal: ArrayLike<number>, blocks: Float64Array[]): RdfPairResult => {
     const coordination = new Float64Array(nBins);
     let acc = 0;
     for (let k = 0; k < nBins; k++) coordination[k] = acc += perAtomCounts[k];
-    const { peak, minimum } = firstFeatures(g);
+    const { peak, minimum } = firstShell({ g, counts: rawCounts, ideal, blocks, frames, independentFrames: independent });
     const feature = (k: number | null): RdfFeature | null => (k === null ? null : { rA: rA[k], g: g[k], coordination: coordination[k] });
     return { label, a, b, g, coordination, firstPeak: feature(peak), firstMinimum: feature(minimum) };
   };
   const totalCounts = new Float64Array(nBins);
   for (let s = 0; s < nSlots; s++) for (let k = 0; k < nBins; k++) totalCounts[k] += countSum[s * nBins + k];
-  const total = build('all', '*', '*', totalG.map((v) => v / frames), totalCounts.map((c) => (2 * c) / (frames * N)));
+  const total = build('all', '*', '*', totalG.map((v) => v / frames), totalCounts.map((c) => (2 * c) / (frames * N)), totalCounts, totalIdeal, blockMeans(blockTotalG, 0));
   const pairs = wanted.map(([a, b]) => {
     const ta = labels.indexOf(a), tb = labels.indexOf(b);
     const s = slotOf(ta, tb);
     const g = gSum.slice(s * nBins, (s + 1) * nBins).map((v) => v / frames);
     // Each unordered like pair adds one neighbour to both atoms.
     const perA = countSum.slice(s * nBins, (s + 1) * nBins).map((c) => ((ta === tb ? 2 : 1) * c) / (frames * counts[ta]));
-    return build(`${a}-${b}`, a, b, g, perA);
+    return build(`${a}-${b}`, a, b, g, perA, countSum.subarray(s * nBins, (s + 1) * nBins), idealSum.subarray(s * nBins, (s + 1) * nBins), blockMeans(blockG, s * nBins));
   });
   return {
     units: { r: 'Å', g: '1', coordination: 'atoms' },
@@ -153,34 +197,9 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
     framesUsed: frames,
     method: histogram.lastMethod,
     normalisation: 'ideal gas of the other atoms: (N_a−1)/V like pairs, N_b/V unlike, per-frame V',
+    independentFrames: independent,
     numberDensityPerA3: densitySum / frames,
     total,
     pairs,
   };
-}
-
-/**
- * First peak: the highest point of the first excursion of g above 1.
- * First minimum: the lowest point after it, before g climbs back above 1.
- * Located on a three-bin running mean so single noisy bins do not win.
- */
-function firstFeatures(g: Float64Array): { peak: number | null; minimum: number | null } {
-  const n = g.length;
-  const s = g.map((_, k) => (g[Math.max(0, k - 1)] + g[k] + g[Math.min(n - 1, k + 1)]) / 3);
-  let k = 0;
-  while (k < n && s[k] <= 1) k++;
-  if (k >= n) return { peak: null, minimum: null };
-  let peak = k;
-  while (k < n && s[k] > 1) {
-    if (s[k] > s[peak]) peak = k;
-    k++;
-  }
-  if (k >= n) return { peak, minimum: null };
-  let minimum = k;
-  while (k < n && s[k] <= 1) {
-    if (s[k] < s[minimum]) minimum = k;
-    k++;
-  }
-  if (k >= n) return { peak, minimum: null };
-  return { peak, minimum };
 }

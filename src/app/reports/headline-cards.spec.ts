@@ -83,3 +83,11 @@ describe('headline cards', () => {
     expect(chosen.warning).toBeNull();
   });
 });
+
+describe('coordination card', () => {
+  it('when g(r) has no shell, then the card gives no number and says there is no structure above counting noise', () => {
+    const [card] = headlineCards({ rdf: { pairs: [{ label: 'all', firstPeak: null, firstMinimum: null }] } }, 'a2PerPs');
+    expect(card!.value).toBe('—');
+    expect(card!.detail).toMatch(/No shell: g\(r\) has no peak standing above its counting noise/);
+  });
+});

@@ -106,11 +106,14 @@ function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
 function coordinationCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
   const p = s.pairs[0]!;
   const shell = p.firstMinimum;
+  const detail = !p.firstPeak
+    ? 'No shell: g(r) has no peak standing above its counting noise, so there is no coordination number to give'
+    : shell
+      ? `g(r) peaks at ${formatNumber(p.firstPeak.rA, 3)} Å; shell ends at the first minimum, ${formatNumber(shell.rA, 3)} Å`
+      : `g(r) peaks at ${formatNumber(p.firstPeak.rA, 3)} Å, but no first minimum stands out inside r_max`;
   return {
     id: 'coordination', title: 'First-shell coordination', value: shell ? formatNumber(shell.coordination, 3) : '—', unit: shell ? 'neighbours' : '',
-    detail: shell && p.firstPeak
-      ? `g(r) peaks at ${formatNumber(p.firstPeak.rA, 3)} Å; shell ends at the first minimum, ${formatNumber(shell.rA, 3)} Å`
-      : 'No first minimum inside r_max',
+    detail,
     warning: null,
   };
 }

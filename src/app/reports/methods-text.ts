@@ -144,7 +144,9 @@ function rdfParagraph(m: Json): MethodsParagraph {
   return {
     heading: 'Radial distribution function',
     body: `g(r) with the minimum-image convention and ${how}, out to r_max = ${f(num(m, 'rMaxA'))} Å in bins of ${f(num(m, 'binWidthA'))} Å over ${f(num(m, 'framesUsed'), 12)} frames, ` +
-      `normalised by the ideal-gas shell count (${text(m, 'normalisation') ?? 'per-frame volume'}). Coordination numbers by integrating 4πρr²g(r) to the first minimum.`,
+      `normalised by the ideal-gas shell count (${text(m, 'normalisation') ?? 'per-frame volume'}). Coordination numbers by integrating 4πρr²g(r) to the first minimum, per species pair ` +
+      `(neighbours of the second species around one atom of the first). A first peak is reported only where g(r) stands five counting errors above 1 in a bin holding at least five independent pairs, ` +
+      `and falls clearly after it; counts are weighed by the ${f(num(m, 'independentFrames'), 4)} frames that are independent configurations at the scale of three bins. Where nothing stands out, no shell and no coordination number are given.`,
   };
 }
 
