@@ -2,10 +2,14 @@ import { z } from 'zod';
 import { isoDate, personRef, recordId } from './api-fields.ts';
 import { analysisKeySchema, analysisParamsSchema } from './analysis-params.ts';
 
+export const RUN_NOTES_MAX_LENGTH = 2000;
+
 /** Body of POST /api/trajectories/:id/analyses. */
 export const startAnalysisSchema = z.object({
   analyses: z.array(analysisKeySchema).min(1, 'pick at least one analysis').max(8),
   params: analysisParamsSchema.default(analysisParamsSchema.parse({})),
+  /** Why this run, in the user's words ("longer fit window"); shown with its report. */
+  notes: z.string({ error: 'must be text' }).trim().max(RUN_NOTES_MAX_LENGTH, `must be at most ${RUN_NOTES_MAX_LENGTH} characters`).default(''),
 }).strict();
 export type StartAnalysis = z.input<typeof startAnalysisSchema>;
 
@@ -19,6 +23,7 @@ export const analysisRunSchema = z.object({
   trajectoryId: recordId,
   analyses: z.array(z.string()),
   params: z.record(z.string(), z.unknown()),
+  notes: z.string(),
   status: z.enum(RUN_STATUSES),
   /** 0–100. */
   progress: z.number(),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isoDate, recordId } from './api-fields.ts';
+import { keyNumbersSchema } from './report-key-numbers.ts';
 import type { ReportSummary } from './report-summary.ts';
 
 export const reportCurveSchema = z.object({
@@ -20,6 +21,8 @@ export const reportSchema = z.object({
   trajectoryName: z.string(),
   runId: recordId,
   title: z.string(),
+  /** The notes the run was started with. */
+  notes: z.string(),
   analyses: z.array(z.string()),
   params: z.record(z.string(), z.unknown()),
   /** Headline numbers, one typed block per analysis that ran. */
@@ -39,7 +42,10 @@ export const reportListItemSchema = z.object({
   trajectoryId: recordId,
   trajectoryName: z.string(),
   title: z.string(),
+  notes: z.string(),
   analyses: z.array(z.string()),
+  /** D, T, peaks: what tells this report apart from others of the same system. */
+  keyNumbers: keyNumbersSchema,
   createdAt: isoDate,
 });
 export type ReportListItem = z.infer<typeof reportListItemSchema>;

@@ -14,6 +14,7 @@ import { LENGTH_TO_ANGSTROM, TIME_TO_PS } from '../formats/units.ts';
 import { planRun, PlanProblem, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
 import { encodeCurves, decodeCurves } from '../services/report-curves.ts';
 import type { ReportCurve } from '../../shared/report.ts';
+import { reportTitle } from '../../shared/report-title.ts';
 
 export interface AnalyzeFileOptions {
   analyses: AnalysisKey[];
@@ -157,7 +158,7 @@ export async function analyzeFile(path: string, options: AnalyzeFileOptions): Pr
   return {
     info,
     report: {
-      title: `${name}: ${options.analyses.join(', ')}`,
+      title: reportTitle(name, options.analyses, run.methods.params),
       analyses: options.analyses,
       params: run.methods.params,
       summary: run.summary,

@@ -16,8 +16,8 @@ export function analysisRoutes(ctx: AppContext): RouteDef[] {
       request: { body: startAnalysisSchema }, response: wrapped('job', analysisRunSchema, 202),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        const { analyses, params: settings } = body(req, startAnalysisSchema);
-        res.status(202).json({ job: await startRun(ctx, id, currentUser(req).id, analyses, settings) });
+        const { analyses, params: settings, notes } = body(req, startAnalysisSchema);
+        res.status(202).json({ job: await startRun(ctx, id, currentUser(req).id, analyses, settings, notes) });
       },
     },
     {

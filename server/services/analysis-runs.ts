@@ -28,7 +28,7 @@ type NewReport = Omit<typeof reports.$inferInsert, 'id' | 'runId' | 'projectId' 
 
 function toDto(row: RunRow, requesterName: string): AnalysisRunDto {
   return {
-    id: row.id, projectId: row.projectId, trajectoryId: row.trajectoryId, analyses: row.analyses, params: row.params,
+    id: row.id, projectId: row.projectId, trajectoryId: row.trajectoryId, analyses: row.analyses, params: row.params, notes: row.notes,
     status: row.status, progress: row.progress, attempts: row.attempts, error: row.error, reportId: row.reportId,
     requestedBy: { id: row.requestedBy, displayName: requesterName },
     createdAt: row.createdAt.toISOString(), startedAt: row.startedAt?.toISOString() ?? null, finishedAt: row.finishedAt?.toISOString() ?? null,
@@ -40,7 +40,7 @@ export const queueJobId = (runId: number) => `run-${runId}`;
 const changed = (result: [{ affectedRows: number }, ...unknown[]]) => result[0].affectedRows === 1;
 
 export async function startRun(
-  ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput,
+  ctx: AppContext, trajectoryId: number, userId: number, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput, notes = '',
 ): Promise<AnalysisRunDto> {
   const trajectory = await getTrajectoryRow(ctx, trajectoryId);
   // Stored with every default filled in (stride, g(r) range, energy inputs), so the run records exactly what the engine will use.
@@ -48,7 +48,7 @@ export async function startRun(
   assertAffordable(costed);
   const { params } = costed.plan;
   const [{ id }] = await ctx.db.insert(analysisRuns).values({
-    projectId: trajectory.projectId, trajectoryId, requestedBy: userId, analyses: [...new Set(analyses)], params, status: 'queued',
+    projectId: trajectory.projectId, trajectoryId, requestedBy: userId, analyses: [...new Set(analyses)], params, notes, status: 'queued',
   }).$returningId();
   const jobId = queueJobId(id);
   try {

@@ -16,6 +16,8 @@ export const analysisRuns = mysqlTable('analysis_runs', {
   requestedBy: ref('requested_by').references(() => users.id),
   analyses: json('analyses').$type<string[]>().notNull(),
   params: json('params').$type<Record<string, unknown>>().notNull(),
+  /** What the person who started the run wanted to learn or change, in their words; shown with its report. */
+  notes: varchar('notes', { length: 2000 }).notNull().default(''),
   status: mysqlEnum('status', runStatuses).notNull().default('queued'),
   progress: int('progress').notNull().default(0),
   queueJobId: varchar('queue_job_id', { length: 64 }),

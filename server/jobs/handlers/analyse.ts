@@ -1,6 +1,7 @@
 import { UnrecoverableError, WaitingError, type SandboxedJob } from 'bullmq';
 import { analysisParamsSchema, type AnalysisKey } from '../../../shared/analysis-params.ts';
 import { selectFrames, type FrameSelection } from '../../../shared/frame-selection.ts';
+import { reportTitle } from '../../../shared/report-title.ts';
 import type { AppContext } from '../../context.ts';
 import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
@@ -69,7 +70,7 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
     const reportId = await completeRun(ctx, run, claim, {
-      title: `${trajectory.name}: ${stages.flat().map(labelOf).join(', ')}`,
+      title: reportTitle(trajectory.name, stages.flat(), result.methods.params),
       analyses: stages.flat(), params: result.methods.params as unknown as Record<string, unknown>,
       summary: result.summary as Record<string, unknown>,
       methods: { ...result.methods, caution: result.caution, input: inputDescription(trajectory), frames: framesDescription(selection, params.discardPs) } as Record<string, unknown>,
@@ -112,10 +113,6 @@ async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt }: 
   // A retry will claim the run again; only the last attempt (or a hopeless error) marks it failed.
   if (plain || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) await failRun(ctx, runId, claim, message);
   throw plain ? new UnrecoverableError(message) : err;
-}
-
-function labelOf(key: AnalysisKey): string {
-  return { thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂', energy: 'energy' }[key];
 }
 
 function inputDescription(t: TrajectoryRow) {

@@ -6,7 +6,7 @@ const D = (a2PerPs: number) => ({ a2PerPs, e9M2PerS: a2PerPs * 10, cm2PerS: a2Pe
 
 function report(overrides: Partial<ReportDto> = {}): ReportDto {
   return {
-    id: 7, projectId: 1, trajectoryId: 2, trajectoryName: 'argon-liquid.extxyz', runId: 3, title: 'argon', analyses: ['thermo', 'msd'],
+    id: 7, projectId: 1, trajectoryId: 2, trajectoryName: 'argon-liquid.extxyz', runId: 3, title: 'argon', notes: '', analyses: ['thermo', 'msd'],
     params: { components: 'xyz', window: 'hann', zeroPadFactor: 1 },
     summary: {
       thermo: { temperatureK: { mean: 86.5, stdError: 1.2 }, densityGPerCm3: null, degreesOfFreedom: 321, equilibrated: true },
@@ -88,7 +88,7 @@ describe('methods text', () => {
 });
 
 describe('methods text of the Lindemann index', () => {
-  const base = { id: 1, projectId: 1, trajectoryId: 1, trajectoryName: 't', runId: 1, title: 't', analyses: ['lindemann'], params: {}, engineVersion: '0.2.0', inputSha256: null, createdAt: '2026-01-01T00:00:00Z', curves: {} };
+  const base = { id: 1, projectId: 1, trajectoryId: 1, trajectoryName: 't', runId: 1, title: 't', notes: '', analyses: ['lindemann'], params: {}, engineVersion: '0.2.0', inputSha256: null, createdAt: '2026-01-01T00:00:00Z', curves: {} };
   it('when the bulk form was used, then the text names the per-atom definition, r_nn and that it does not depend on size; a cluster names the all-pairs form', () => {
     const bulk = methodsParagraphs({ ...base, summary: { lindemann: { index: 0.046, form: 'per-atom', threshold: 0.1, melted: false, displacementRatio: 0.046, nearestNeighbourA: 3.72 } }, methods: { lindemann: { form: 'per-atom', framesUsed: 40, nearestNeighbourA: 3.72 } } })
       .find((p) => p.heading === 'Lindemann index')!.body;

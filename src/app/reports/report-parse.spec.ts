@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseLinkedReport, parseReport } from './report-parse';
 
 const good = {
-  id: 1, projectId: 2, trajectoryId: 3, trajectoryName: 'a.xyz', runId: 4, title: 'a', analyses: ['msd'], params: {}, summary: {}, methods: {},
+  id: 1, projectId: 2, trajectoryId: 3, trajectoryName: 'a.xyz', runId: 4, title: 'a', notes: '', analyses: ['msd'], params: {}, summary: {}, methods: {},
   engineVersion: '0.1.0', inputSha256: null, createdAt: '2026-01-01T00:00:00Z', curves: { msd: { columns: ['lag'], units: ['ps'], data: [[0]] } },
 };
 

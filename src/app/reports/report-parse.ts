@@ -5,7 +5,7 @@ const SHAPE_ERROR = 'The report came back in a shape this page cannot read.';
 
 /** Checks the parts of a report the page relies on before trusting the rest of its shape. */
 export function parseReport(raw: unknown): ReportDto {
-  const ok = isRecord(raw) && typeof raw['id'] === 'number' && typeof raw['projectId'] === 'number' && typeof raw['title'] === 'string'
+  const ok = isRecord(raw) && typeof raw['id'] === 'number' && typeof raw['projectId'] === 'number' && typeof raw['title'] === 'string' && typeof raw['notes'] === 'string'
     && typeof raw['trajectoryName'] === 'string' && typeof raw['engineVersion'] === 'string' && typeof raw['createdAt'] === 'string'
     && Array.isArray(raw['analyses']) && isRecord(raw['summary']) && isRecord(raw['methods']) && isRecord(raw['params']) && isRecord(raw['curves'])
     && Object.values(raw['curves']).every((c) => isRecord(c) && Array.isArray(c['columns']) && Array.isArray(c['units']) && Array.isArray(c['data']));

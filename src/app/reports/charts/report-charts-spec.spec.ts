@@ -9,7 +9,7 @@ const curve = (columns: [string, string, (number | null)[]][]): ReportCurve => (
 const thz = [0, 1, 2, 3, 4];
 
 const report: ReportDto = {
-  id: 1, projectId: 1, trajectoryId: 1, trajectoryName: 't.xyz', runId: 1, title: 't', analyses: ['msd', 'vacf', 'vdos'], params: {},
+  id: 1, projectId: 1, trajectoryId: 1, trajectoryName: 't.xyz', runId: 1, title: 't', notes: '', analyses: ['msd', 'vacf', 'vdos'], params: {},
   summary: {
     msd: { dimensions: 3, groups: [{ label: 'all', atoms: 4, regime: 'diffusive', d: D(0.1), dStdError: D(0.01), uncertaintyMethod: 'atom-blocks', slopeExponent: 1, fitWindowPs: { start: 0.2, end: 0.8, source: 'auto' }, plateauA2: null }] },
     vacf: { velocitySource: 'stored-velocities', groups: [{ label: 'all', atoms: 4, dGreenKubo: D(0.1), spread: D(0.01), converged: true, plateauWindowPs: { start: 0.4, end: 1.6, source: 'auto' } }] },

@@ -1,4 +1,4 @@
-/** Short names of the analyses, for lists and tags where the checklist's titles are too long. */
+/** Short names of the analyses, for titles, lists and tags where the checklist's titles are too long. */
 export const ANALYSIS_WORDS: Partial<Record<string, string>> = {
   thermo: 'temperature', msd: 'MSD', vacf: 'VACF', vdos: 'VDOS', rdf: 'g(r)', sq: 'S(q)', lindemann: 'Lindemann', ngp: 'α₂', energy: 'energy',
 };

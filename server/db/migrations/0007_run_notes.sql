@@ -1,0 +1,1 @@
+ALTER TABLE `analysis_runs` ADD `notes` varchar(2000) DEFAULT '' NOT NULL;
