@@ -1,9 +1,16 @@
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { analysisKeySchema, type AnalysisKey } from '../../../shared/analysis-params';
+import { analysesText } from '../../../shared/analysis-labels';
+import type { ReportDto } from '../../../shared/report';
+import { AnalysisDialog, type AnalysisDialogData, type AnalysisDialogResult } from '../trajectories/analysis-dialog';
+import { JobTracker } from '../trajectories/job-tracker';
+import { TrajectoriesApi } from '../trajectories/trajectories-api';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
 import { projectSchema } from '../../../shared/projects';
@@ -32,6 +39,12 @@ import { ShareDialog, type ShareDialogData } from './share-dialog';
       } @else if (report.value(); as r) {
         <nav class="crumbs" aria-label="Breadcrumb"><a [routerLink]="['/projects', r.projectId]">← Back to the project</a></nav>
         <erg-report-view [report]="r" [source]="source()" [canShare]="canShare()" (share)="openShare()">
+          @if (canShare()) {
+            <span reportActions class="rerun">
+              <button mat-stroked-button type="button" (click)="runAgain(r)" [disabled]="starting()"><mat-icon aria-hidden="true">replay</mat-icon> Run again with these settings</button>
+              <button mat-stroked-button type="button" (click)="adjust(r)" [disabled]="starting()"><mat-icon aria-hidden="true">tune</mat-icon> Adjust and run</button>
+            </span>
+          }
           <erg-comments-panel [reportId]="r.id" />
         </erg-report-view>
       }
@@ -39,11 +52,16 @@ import { ShareDialog, type ShareDialogData } from './share-dialog';
   `,
   styles: `
     .crumbs { margin-bottom: 12px; }
+    .rerun { display: contents; }
     .crumbs a { color: var(--mat-sys-primary); }
   `,
 })
 export default class ReportPage {
   private readonly dialog = inject(MatDialog);
+  private readonly snack = inject(MatSnackBar);
+  private readonly trajectoriesApi = inject(TrajectoriesApi);
+  private readonly tracker = inject(JobTracker);
+  protected readonly starting = signal(false);
   /** From the route, `reports/:id`. */
   readonly id = input.required<string>();
 
@@ -61,9 +79,53 @@ export default class ReportPage {
     return apiErrorMessage(this.report.error(), 'The report could not be loaded.');
   }
 
+  /** The same analyses and settings on the same file; the user is told when it is done. */
+  protected runAgain(r: ReportDto): void {
+    this.starting.set(true);
+    this.trajectoriesApi.startAnalysis(r.trajectoryId, { analyses: analysisKeysOf(r.analyses), params: r.params, notes: r.notes }).subscribe({
+      next: (run) => {
+        this.starting.set(false);
+        this.tracker.track(run, r.trajectoryName);
+        this.snack.open(`Started again: ${analysesText(r.analyses)} of ${r.trajectoryName}. You will be told when it is done.`, 'Close', { duration: 8000 });
+      },
+      error: (err: unknown) => {
+        this.starting.set(false);
+        this.snack.open(apiErrorMessage(err, 'The analysis could not be started.'), 'Close');
+      },
+    });
+  }
+
+  /** The analysis dialog, filled with this report's settings, on its file as it is now. */
+  protected adjust(r: ReportDto): void {
+    this.starting.set(true);
+    this.trajectoriesApi.get(r.trajectoryId).subscribe({
+      next: (trajectory) => {
+        this.starting.set(false);
+        const data: AnalysisDialogData = { ...trajectory, preset: { analyses: r.analyses, params: r.params, notes: r.notes } };
+        this.dialog.open<AnalysisDialog, AnalysisDialogData, AnalysisDialogResult>(AnalysisDialog, { data, width: '720px' }).afterClosed().subscribe((result) => {
+          if (result && result !== 'edit-metadata') {
+            this.tracker.track(result, trajectory.name);
+            this.snack.open(`Started: you will be told when ${trajectory.name} is done.`, 'Close', { duration: 8000 });
+          }
+        });
+      },
+      error: (err: unknown) => {
+        this.starting.set(false);
+        this.snack.open(apiErrorMessage(err, 'The trajectory could not be loaded.'), 'Close');
+      },
+    });
+  }
+
   protected openShare(): void {
     const r = this.report.value();
     if (!r) return;
     this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, { data: { reportId: r.id, projectId: r.projectId, title: r.title }, width: '640px', autoFocus: 'first-tabbable' });
   }
+}
+
+function analysisKeysOf(keys: readonly string[]): AnalysisKey[] {
+  return keys.flatMap((k) => {
+    const parsed = analysisKeySchema.safeParse(k);
+    return parsed.success ? [parsed.data] : [];
+  });
 }

@@ -25,8 +25,10 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
           <p class="eyebrow">Report · {{ report().trajectoryName }}</p>
           <h1 id="report-title">{{ report().title }}</h1>
           <p class="muted">Computed {{ report().createdAt | date: 'medium' }} · engine {{ report().engineVersion }}</p>
+          @if (report().notes) { <p class="notes"><strong>Notes:</strong> {{ report().notes }}</p> }
         </div>
         <div class="actions">
+          <ng-content select="[reportActions]" />
           <a mat-stroked-button [href]="jsonHref()" download><mat-icon aria-hidden="true">data_object</mat-icon> Report as JSON</a>
           @if (canShare()) {
             <button mat-flat-button type="button" (click)="share.emit()"><mat-icon aria-hidden="true">share</mat-icon> Share</button>
@@ -74,6 +76,7 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
     h1 { margin: 4px 0; font: var(--mat-sys-headline-medium); }
     h2 { margin: 0 0 12px; font: var(--mat-sys-title-large); }
     .muted { margin: 0; }
+    .notes { margin: 8px 0 0; max-width: 70ch; white-space: pre-line; }
     .actions { display: flex; gap: 8px; flex-wrap: wrap; }
     .section-head { display: flex; align-items: center; justify-content: space-between; gap: 12px; flex-wrap: wrap; margin-bottom: 12px; }
     .section-head h2 { margin: 0; }

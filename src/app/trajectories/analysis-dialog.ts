@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { FormBuilder, FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { analysisParamsSchema, SPECTRAL_WINDOWS, SQ_WINDOWS, type AnalysisKey } from '../../../shared/analysis-params';
-import type { AnalysisRunDto, StartAnalysis } from '../../../shared/analysis-run';
+import { RUN_NOTES_MAX_LENGTH, type AnalysisRunDto, type StartAnalysis } from '../../../shared/analysis-run';
 import type { RunEstimate } from '../../../shared/run-estimate';
 import { catchError, debounceTime, map, merge, of, startWith, switchMap } from 'rxjs';
 import { frameTimePs } from '../viewer/frame-time';
@@ -18,8 +18,21 @@ import { bytesText } from './trajectory-format';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { ANALYSIS_CHOICES, defaultAnalyses, unavailableReason } from './analysis-choices';
-import { buildParams, type AdvancedSettings } from './analysis-params-form';
+import { buildParams, settingsFromParams, type AdvancedSettings } from './analysis-params-form';
 import { TrajectoriesApi } from './trajectories-api';
+
+/** The settings of an earlier run, to run again with changes. */
+export interface RunPreset {
+  analyses: readonly string[];
+  params: Record<string, unknown>;
+  notes: string;
+}
+
+/** The trajectory to analyse, and optionally the run to start from. */
+export type AnalysisDialogData = TrajectoryDto & { preset?: RunPreset };
+
+/** A started run, or a request to open the metadata form (the time step is missing). */
+export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
 
 /** The analysis checklist with an advanced panel of parameters; starts one run. */
 @Component({
@@ -30,11 +43,17 @@ import { TrajectoriesApi } from './trajectories-api';
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <h2 mat-dialog-title>Analyse {{ t.name }}</h2>
+    <h2 mat-dialog-title>{{ t.preset ? 'Adjust and run' : 'Analyse' }} {{ t.name }}</h2>
     <mat-dialog-content>
       <p class="facts">{{ t.atoms }} atoms · {{ t.frames }} frames · {{ t.timeStep === null ? '?' : significant(t.timeStep) }} {{ t.timeUnit }} between frames ·
         {{ t.hasVelocities ? 'velocities in the file' : 'no velocities: the VACF uses central differences of positions' }}</p>
-      @if (!t.timeStep) { <p class="warn" role="alert">The time between frames is not known: set it in the metadata first, or time axes will count frames.</p> }
+      @if (!t.timeStep) {
+        <p class="warn" role="alert">
+          The time between frames is not known, so the server cannot run time-based analyses of this file.
+          <button mat-button type="button" (click)="editMetadata()">Set it in the metadata</button>
+        </p>
+      }
+      @if (t.preset) { <p class="facts">Settings of the report you came from; change what you need.</p> }
       @if (suggestedDiscardPs(); as ps) {
         <p class="suggestion">
           Inspection judged the run equilibrated from frame {{ t.equilibration!.frame }} (about {{ significant(ps) }} ps), from {{ t.equilibration!.judgedFrom }}.
@@ -52,8 +71,13 @@ import { TrajectoriesApi } from './trajectories-api';
           </div>
         }
       </fieldset>
+      <mat-form-field appearance="outline" class="notes">
+        <mat-label>Notes for this run</mat-label>
+        <textarea matInput [formControl]="notes" rows="2" [maxlength]="notesMax"></textarea>
+        <mat-hint>Optional: why this run, e.g. "fit window moved later". Shown with its report.</mat-hint>
+      </mat-form-field>
       <mat-accordion>
-        <mat-expansion-panel>
+        <mat-expansion-panel [expanded]="!!t.preset">
           <mat-expansion-panel-header><mat-panel-title>Advanced settings</mat-panel-title></mat-expansion-panel-header>
           <form [formGroup]="form" class="advanced">
             <h3>Frames</h3>
@@ -196,7 +220,7 @@ import { TrajectoriesApi } from './trajectories-api';
     </div>
     <mat-dialog-actions align="end">
       <button mat-button type="button" mat-dialog-close>Cancel</button>
-      <button mat-flat-button type="button" (click)="start()" [disabled]="starting() || selected().size === 0 || estimate()?.withinLimits === false">Start analysis</button>
+      <button mat-flat-button type="button" (click)="start()" [disabled]="starting() || selected().size === 0 || !t.timeStep || estimate()?.withinLimits === false">Start analysis</button>
     </mat-dialog-actions>
   `,
   styles: `
@@ -212,18 +236,23 @@ import { TrajectoriesApi } from './trajectories-api';
     .suggestion { margin: 0 0 8px; }
     .estimate-bar { padding: 0 24px; }
     .estimate { color: var(--mat-sys-on-surface-variant); margin: 8px 0 0; font-size: 13px; }
+    .notes { width: 100%; margin-bottom: 8px; }
   `,
 })
 export class AnalysisDialog {
-  protected readonly t = inject<TrajectoryDto>(MAT_DIALOG_DATA);
+  protected readonly t = inject<AnalysisDialogData>(MAT_DIALOG_DATA);
   private readonly api = inject(TrajectoriesApi);
-  private readonly ref = inject(MatDialogRef<AnalysisDialog, AnalysisRunDto>);
+  private readonly ref = inject(MatDialogRef<AnalysisDialog, AnalysisDialogResult>);
   protected readonly choices = ANALYSIS_CHOICES;
   protected readonly windows = SPECTRAL_WINDOWS;
   protected readonly sqWindows = SQ_WINDOWS;
   protected readonly speciesList = Object.keys(this.t.speciesCounts ?? {});
   protected readonly pairs = this.speciesList.flatMap((a, i) => this.speciesList.slice(i).map((b) => `${a}–${b}`));
-  protected readonly selected = signal(new Set<AnalysisKey>(defaultAnalyses(this.t)));
+  protected readonly selected = signal(new Set<AnalysisKey>(this.t.preset
+    ? this.t.preset.analyses.filter((k): k is AnalysisKey => ANALYSIS_CHOICES.some((c) => c.key === k) && !unavailableReason(k as AnalysisKey, this.t))
+    : defaultAnalyses(this.t)));
+  protected readonly notesMax = RUN_NOTES_MAX_LENGTH;
+  protected readonly notes = new FormControl(this.t.preset?.notes ?? '', { nonNullable: true, validators: [Validators.maxLength(RUN_NOTES_MAX_LENGTH)] });
   protected readonly starting = signal(false);
   private readonly serverError = signal('');
   private readonly formErrors = signal<string[]>([]);
@@ -253,6 +282,7 @@ export class AnalysisDialog {
   private readonly estimateProblem = signal('');
 
   constructor() {
+    if (this.t.preset) this.form.patchValue(settingsFromParams(this.t.preset.params, this.form.getRawValue()));
     merge(this.form.valueChanges, toObservable(this.selected)).pipe(
       startWith(null),
       debounceTime(300),
@@ -267,6 +297,11 @@ export class AnalysisDialog {
       this.estimate.set(estimate);
       this.estimateProblem.set(problem);
     });
+  }
+
+  /** Closes the dialog so the page opens the metadata form instead. */
+  protected editMetadata(): void {
+    this.ref.close('edit-metadata');
   }
 
   protected useSuggestedDiscard(ps: number): void {
@@ -318,7 +353,7 @@ export class AnalysisDialog {
     this.formErrors.set(problems);
     if (problems.length || !parsed.success) return;
     this.starting.set(true);
-    this.api.startAnalysis(this.t.id, { analyses: [...this.selected()], params: parsed.data }).subscribe({
+    this.api.startAnalysis(this.t.id, { analyses: [...this.selected()], params: parsed.data, notes: this.notes.value }).subscribe({
       next: (run) => this.ref.close(run),
       error: (err: unknown) => {
         this.starting.set(false);

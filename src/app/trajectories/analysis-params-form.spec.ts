@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analysisParamsSchema } from '../../../shared/analysis-params';
-import { buildParams, type AdvancedSettings } from './analysis-params-form';
+import { buildParams, settingsFromParams, type AdvancedSettings } from './analysis-params-form';
 
 const defaults: AdvancedSettings = {
   fromFrame: null, toFrame: null, frameStride: null, discardPs: null, species: [], maxLagPs: null, removeComDrift: true, fitMode: 'auto', fitStartPs: null, fitEndPs: null,
@@ -33,5 +33,21 @@ describe('advanced analysis settings', () => {
   it('when a frame range, stride and discard are given, then they are sent as the shared fields', () => {
     const { params } = buildParams({ ...defaults, fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
     expect(analysisParamsSchema.parse(params)).toMatchObject({ fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
+  });
+});
+
+describe('settings from a stored run', () => {
+  it('when a run is opened to adjust, then the panel shows its parameters and sends the same ones back', () => {
+    const stored = analysisParamsSchema.parse({
+      species: ['Ar'], maxLagPs: 20, fitWindow: { mode: 'manual', startPs: 2, endPs: 12 }, window: 'blackman', zeroPadFactor: 4,
+      temperatureK: 120, rMaxA: 9, binWidthA: 0.02, pair: ['Ar', 'Kr'], sqWindow: 'none', removeComDrift: false,
+    });
+    const settings = settingsFromParams(stored, defaults);
+    expect(settings).toEqual(expect.objectContaining({ fitMode: 'manual', fitStartPs: 2, fitEndPs: 12, gkMode: 'auto', pair: 'Ar–Kr', temperatureK: 120 }));
+    expect(analysisParamsSchema.parse(buildParams(settings).params)).toEqual(stored);
+  });
+
+  it('when the stored parameters do not parse, then the panel keeps its defaults', () => {
+    expect(settingsFromParams({ zeroPadFactor: 'lots' }, defaults)).toEqual(defaults);
   });
 });

@@ -1,4 +1,4 @@
-import type { AnalysisParamsInput, SpectralWindow, SqWindow } from '../../../shared/analysis-params';
+import { analysisParamsSchema, type AnalysisParamsInput, type SpectralWindow, type SqWindow } from '../../../shared/analysis-params';
 
 /** The advanced panel's raw values: blanks are null, windows are split into mode and bounds. */
 export interface AdvancedSettings {
@@ -73,4 +73,24 @@ export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput;
     if (a && b) params.pair = [a, b];
   }
   return { params, problems };
+}
+
+const number = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
+
+/** The panel filled from a run's stored parameters, for running again with changes; unknown values fall back to `base`. */
+export function settingsFromParams(params: Record<string, unknown>, base: AdvancedSettings): AdvancedSettings {
+  const parsed = analysisParamsSchema.safeParse(params);
+  if (!parsed.success) return base;
+  const p = parsed.data;
+  const manual = (w: typeof p.fitWindow) => (w.mode === 'manual' ? { mode: 'manual' as const, start: w.startPs, end: w.endPs } : { mode: 'auto' as const, start: null, end: null });
+  const fit = manual(p.fitWindow);
+  const gk = manual(p.greenKuboWindow);
+  return {
+    ...base,
+    species: p.species, maxLagPs: number(p.maxLagPs), removeComDrift: p.removeComDrift,
+    fitMode: fit.mode, fitStartPs: fit.start, fitEndPs: fit.end, gkMode: gk.mode, gkStartPs: gk.start, gkEndPs: gk.end,
+    window: p.window, zeroPadFactor: p.zeroPadFactor, temperatureK: number(p.temperatureK), degreesOfFreedom: number(p.degreesOfFreedom),
+    constraints: number(p.constraints), rMaxA: number(p.rMaxA), binWidthA: p.binWidthA, pair: p.pair ? p.pair.join('–') : null, sqWindow: p.sqWindow,
+    driftThresholdKTPerNs: number(p.driftThresholdKTPerNs), externalPressureBar: number(p.externalPressureBar),
+  };
 }

@@ -10,7 +10,7 @@ import { catchError, EMPTY, filter, switchMap, tap, timer } from 'rxjs';
 import type { AnalysisRunDto } from '../../../shared/analysis-run';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
-import { analysesText } from './analysis-words';
+import { analysesText } from '../../../shared/analysis-labels';
 import { JobTracker } from './job-tracker';
 import { FinishedRuns } from './finished-runs';
 import { isFinished } from './job-watch';

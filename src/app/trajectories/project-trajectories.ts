@@ -5,10 +5,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Subscription, switchMap, timer } from 'rxjs';
-import type { AnalysisRunDto } from '../../../shared/analysis-run';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
-import { AnalysisDialog } from './analysis-dialog';
+import { AnalysisDialog, type AnalysisDialogData, type AnalysisDialogResult } from './analysis-dialog';
 import { ConfirmDialog, type ConfirmData } from './confirm-dialog';
 import { CutDialog } from './cut-dialog';
 import { DropZone } from './drop-zone';
@@ -106,9 +105,11 @@ export class ProjectTrajectories {
         break;
       }
       case 'analyse':
-        this.dialog.open(AnalysisDialog, { data: t, width: '720px' }).afterClosed().subscribe((run?: AnalysisRunDto) => {
-          if (run) this.jobs.track(run, t.name);
-        });
+        this.dialog.open<AnalysisDialog, AnalysisDialogData, AnalysisDialogResult>(AnalysisDialog, { data: t, width: '720px' }).afterClosed()
+          .subscribe((result) => {
+            if (result === 'edit-metadata') this.act('edit', t);
+            else if (result) this.jobs.track(result, t.name);
+          });
         break;
       case 'cut':
         this.dialog.open(CutDialog, { data: t, width: '560px' });

@@ -2,7 +2,7 @@ import { inject, Injectable } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import type { AnalysisRunDto } from '../../../shared/analysis-run';
-import { analysesText } from './analysis-words';
+import { analysesText } from '../../../shared/analysis-labels';
 
 interface Notice {
   message: string;
