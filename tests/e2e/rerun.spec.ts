@@ -14,6 +14,9 @@ test('when a report is run again and run again with another fit window, then the
     await expect(page.getByText(/Started again: MSD of rerun-walk\.extxyz/)).toBeVisible();
     await expect(page.getByText('The analysis of rerun-walk.extxyz (MSD) is done.')).toBeVisible({ timeout: 120_000 });
     await expect(page).toHaveURL(new RegExp(`/reports/${reportId}$`));
+    await page.getByRole('button', { name: 'Open report' }).click();
+    await expect(page).not.toHaveURL(new RegExp(`/reports/${reportId}$`));
+    await expect(page.getByRole('heading', { level: 1, name: 'rerun-walk.extxyz: MSD' })).toBeVisible();
   });
 
   await test.step('adjust: the dialog starts from this report\'s settings; a manual fit window and a note', async () => {

@@ -10,6 +10,7 @@ import { analysesText } from '../../../shared/analysis-labels';
 import type { ReportDto } from '../../../shared/report';
 import { AnalysisDialog, type AnalysisDialogData, type AnalysisDialogResult } from '../trajectories/analysis-dialog';
 import { JobTracker } from '../trajectories/job-tracker';
+import { RunNotices } from '../trajectories/run-notices';
 import { TrajectoriesApi } from '../trajectories/trajectories-api';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
@@ -61,6 +62,7 @@ export default class ReportPage {
   private readonly snack = inject(MatSnackBar);
   private readonly trajectoriesApi = inject(TrajectoriesApi);
   private readonly tracker = inject(JobTracker);
+  private readonly notices = inject(RunNotices);
   protected readonly starting = signal(false);
   /** From the route, `reports/:id`. */
   readonly id = input.required<string>();
@@ -86,7 +88,7 @@ export default class ReportPage {
       next: (run) => {
         this.starting.set(false);
         this.tracker.track(run, r.trajectoryName);
-        this.snack.open(`Started again: ${analysesText(r.analyses)} of ${r.trajectoryName}. You will be told when it is done.`, 'Close', { duration: 8000 });
+        this.notices.say(`Started again: ${analysesText(r.analyses)} of ${r.trajectoryName}. You will be told when it is done.`);
       },
       error: (err: unknown) => {
         this.starting.set(false);
@@ -105,7 +107,7 @@ export default class ReportPage {
         this.dialog.open<AnalysisDialog, AnalysisDialogData, AnalysisDialogResult>(AnalysisDialog, { data, width: '720px' }).afterClosed().subscribe((result) => {
           if (result && result !== 'edit-metadata') {
             this.tracker.track(result, trajectory.name);
-            this.snack.open(`Started: you will be told when ${trajectory.name} is done.`, 'Close', { duration: 8000 });
+            this.notices.say(`Started: you will be told when ${trajectory.name} is done.`);
           }
         });
       },

@@ -8,6 +8,7 @@ interface Notice {
   message: string;
   action: string;
   reportId: number | null;
+  durationMs: number | undefined;
 }
 
 /**
@@ -25,10 +26,16 @@ export class RunNotices {
   finished(run: AnalysisRunDto, trajectoryName: string): void {
     const what = `The analysis of ${trajectoryName} (${analysesText(run.analyses)})`;
     if (run.status === 'done') {
-      this.waiting.push({ message: `${what} is done.`, action: 'Open report', reportId: run.reportId });
+      this.waiting.push({ message: `${what} is done.`, action: 'Open report', reportId: run.reportId, durationMs: 10_000 });
     } else if (run.status === 'failed') {
-      this.waiting.push({ message: `${what} failed: ${run.error ?? 'no reason was given'}`, action: 'Close', reportId: null });
+      this.waiting.push({ message: `${what} failed: ${run.error ?? 'no reason was given'}`, action: 'Close', reportId: null, durationMs: undefined });
     }
+    this.showNext();
+  }
+
+  /** A short message about runs (one was started), in turn with the others so none hides another. */
+  say(message: string): void {
+    this.waiting.push({ message, action: 'Close', reportId: null, durationMs: 5000 });
     this.showNext();
   }
 
@@ -37,7 +44,7 @@ export class RunNotices {
     const notice = this.waiting.shift();
     if (!notice) return;
     this.showing = true;
-    const ref = this.snack.open(notice.message, notice.action, { duration: notice.reportId ? 10_000 : undefined, politeness: 'polite' });
+    const ref = this.snack.open(notice.message, notice.action, { duration: notice.durationMs, politeness: 'polite' });
     ref.onAction().subscribe(() => {
       if (notice.reportId) void this.router.navigate(['/reports', notice.reportId]);
     });
