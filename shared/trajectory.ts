@@ -58,6 +58,13 @@ export const trajectoryMetadataSchema = z.object({
 
 export type TrajectoryMetadata = z.infer<typeof trajectoryMetadataSchema>;
 
+/** Body of PATCH /api/projects/:id/trajectories: one metadata change for several trajectories (names stay their own). */
+export const bulkMetadataBody = z.object({
+  ids: z.array(z.number().int().positive(), { error: 'must be a list of trajectory ids' }).min(1, 'name at least one trajectory').max(500, 'at most 500 at once'),
+  changes: trajectoryMetadataSchema.omit({ name: true }).refine((c) => Object.keys(c).length > 0, 'give at least one field to change'),
+}).strict();
+export type BulkMetadata = z.infer<typeof bulkMetadataBody>;
+
 /** A frame range as the frames and cut routes take it: 0-based, `to` exclusive. */
 export const frameRangeQuery = z.object({
   from: z.coerce.number().int().min(0).default(0),

@@ -1,10 +1,11 @@
 import { z } from 'zod';
-import { frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
+import { bulkMetadataBody, frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
+import { authorizedProject } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { badRequest } from '../errors.ts';
 import {
-  abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata,
+  abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata, updateMetadataOfMany,
 } from '../services/trajectories.ts';
 import { extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
 import { body, idField, params, query } from './request-parts.ts';
@@ -62,6 +63,15 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
           await abandonUpload(ctx, stored.trajectoryId, stored.objectKey).catch(() => {});
           throw err;
         }
+      },
+    },
+    {
+      method: 'patch', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'editor', via: 'project' },
+      summary: 'One metadata change for several trajectories of the project, all or none; names are not changed this way.',
+      request: { body: bulkMetadataBody }, response: wrapped('trajectories', z.array(trajectorySchema)),
+      handler: async (req, res) => {
+        const { ids, changes } = body(req, bulkMetadataBody);
+        res.json({ trajectories: await updateMetadataOfMany(ctx, authorizedProject(res).projectId, ids, changes) });
       },
     },
     {

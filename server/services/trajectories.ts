@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { TrajectoryDto, TrajectoryMetadata } from '../../shared/trajectory.ts';
 import type { AppContext } from '../context.ts';
 import { projects, trajectories, users, type TrajectoryRow } from '../db/schema/index.ts';
@@ -147,6 +147,26 @@ export async function updateMetadata(ctx: AppContext, id: number, metadata: Traj
   await ctx.db.update(trajectories).set({ ...metadataColumns(metadata), fromFile, updatedAt: new Date() }).where(eq(trajectories.id, id));
   await touchProject(ctx, row.projectId);
   return getTrajectory(ctx, id);
+}
+
+/**
+ * One metadata change applied to several trajectories of a project, all or
+ * none: every id must be a trajectory of this project.
+ */
+export async function updateMetadataOfMany(ctx: AppContext, projectId: number, ids: readonly number[], metadata: TrajectoryMetadata): Promise<TrajectoryDto[]> {
+  const wanted = [...new Set(ids)];
+  const rows = await ctx.db.select().from(trajectories).where(and(eq(trajectories.projectId, projectId), inArray(trajectories.id, wanted)));
+  const missing = wanted.filter((id) => !rows.some((r) => r.id === id));
+  if (missing.length) throw notFound(`Trajectory ${missing.join(', ')} in this project`);
+  const changed = Object.keys(metadata);
+  await ctx.db.transaction(async (tx) => {
+    for (const row of rows) {
+      const fromFile = (row.fromFile ?? []).filter((f) => !changed.includes(f));
+      await tx.update(trajectories).set({ ...metadataColumns(metadata), fromFile, updatedAt: new Date() }).where(eq(trajectories.id, row.id));
+    }
+  });
+  await touchProject(ctx, projectId);
+  return Promise.all(wanted.map((id) => getTrajectory(ctx, id)));
 }
 
 /**
