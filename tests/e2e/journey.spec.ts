@@ -44,6 +44,9 @@ test('the whole journey: sign up, project, drop a file, analyse, read, download,
 
   await test.step('drop an extended XYZ file and see it inspected to ready', async () => {
     await dropFile(page, 'drop-zone', 'walkers.extxyz', file);
+    const upload = page.getByRole('dialog', { name: 'Upload walkers.extxyz' });
+    await upload.getByRole('button', { name: 'Upload' }).click();
+    await expect(upload).toBeHidden();
     const row = page.getByRole('row').filter({ hasText: 'walkers.extxyz' });
     await expect(row).toContainText(/ready/i, { timeout: 60_000 });
     await expect(row).toContainText('200');

@@ -2,6 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { mkdirSync } from 'node:fs';
 import { randomWalkExtxyz } from '../support/random-walk.ts';
 import { relaxingRunExtxyz } from '../support/relaxing-run.ts';
+import { chooseAndUpload } from './helpers/upload.ts';
 import { readyTrajectory } from './helpers/viewer-data.ts';
 
 /** Opens the analysis dialog for a trajectory on its project page, keeps only the named analyses and starts. */
@@ -67,7 +68,7 @@ test.describe('analysis runs', () => {
     const trajectory = await readyTrajectory(context, 'first.extxyz', await randomWalkExtxyz({ atoms: 4, frames: 5, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 10, seed: 1 }));
     await page.goto(`/projects/${trajectory.projectId}`);
     const broken = Buffer.from('2\nbroken\nAr 0 0 0\nAr 1 x 1\n');
-    await page.getByLabel(/Choose trajectory files/).setInputFiles([{ name: 'tiny-broken.xyz', mimeType: 'text/plain', buffer: broken }]);
+    await chooseAndUpload(page, [{ name: 'tiny-broken.xyz', buffer: broken }]);
     const uploads = page.getByRole('list', { name: 'Uploads' });
     const row = uploads.getByRole('listitem').filter({ hasText: 'tiny-broken.xyz' });
     await expect(row).toContainText(`${broken.length} bytes`);

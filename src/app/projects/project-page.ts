@@ -10,7 +10,7 @@ import { ProjectReports } from '../reports/project-reports';
 import { ProjectTrajectories } from '../trajectories/project-trajectories';
 import { projectSchema } from '../../../shared/projects';
 import { unwrap } from '../core/api-envelope';
-import { bytesText } from '../trajectories/trajectory-format';
+import { formatBytes } from '../../../shared/byte-size';
 
 /**
  * A project's home: its header, then its trajectories (upload, table,
@@ -66,7 +66,7 @@ export default class ProjectPage {
 
   /** Uploads and the binary frame copies inspection keeps of them. */
   protected storageText(bytes: number): string {
-    return bytesText(bytes);
+    return formatBytes(bytes);
   }
 
   protected loadError(): string {

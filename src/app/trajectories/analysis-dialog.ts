@@ -14,7 +14,7 @@ import { RUN_NOTES_MAX_LENGTH, type AnalysisRunDto, type StartAnalysis } from '.
 import type { RunEstimate } from '../../../shared/run-estimate';
 import { catchError, debounceTime, map, merge, of, startWith, switchMap } from 'rxjs';
 import { frameTimePs } from '../viewer/frame-time';
-import { bytesText } from './trajectory-format';
+import { formatBytes } from '../../../shared/byte-size';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { ANALYSIS_CHOICES, defaultAnalyses, unavailableReason } from './analysis-choices';
@@ -316,7 +316,7 @@ export class AnalysisDialog {
   }
 
   protected bytesText(bytes: number): string {
-    return bytesText(bytes);
+    return formatBytes(bytes);
   }
 
   /** The body the dialog would send, or null while the settings are incomplete. */

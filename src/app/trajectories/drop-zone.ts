@@ -13,7 +13,8 @@ import { MatIconModule } from '@angular/material/icon';
       <mat-icon aria-hidden="true">upload_file</mat-icon>
       <p><strong>Drop trajectory files here</strong> — XYZ, extended XYZ, PDB or H5MD, plain, .gz or .zip</p>
       <button mat-stroked-button type="button" (click)="picker.click()">Choose files…</button>
-      <input #picker class="visually-hidden" type="file" multiple aria-label="Choose trajectory files"
+      <!-- Reached through the button above: kept out of the tab order and of assistive technology, so it is not met twice. -->
+      <input #picker class="visually-hidden" type="file" multiple tabindex="-1" aria-hidden="true"
              (change)="onPicked(picker)">
     </div>
   `,

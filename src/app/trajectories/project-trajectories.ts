@@ -13,7 +13,7 @@ import { CutDialog } from './cut-dialog';
 import { DropZone } from './drop-zone';
 import { ProjectRuns } from './project-runs';
 import { JobTracker } from './job-tracker';
-import { MetadataDialog } from './metadata-dialog';
+import { MetadataDialog, type MetadataDialogData, type MetadataDialogResult } from './metadata-dialog';
 import { InteractionModelDialog, type InteractionModelDialogData } from '../interaction-model/interaction-model-dialog';
 import { TrajectoriesApi } from './trajectories-api';
 import { TrajectoriesTable, type TrajectoryAction } from './trajectories-table';
@@ -38,7 +38,7 @@ const SETTLED = new Set(['ready', 'failed']);
     } @else if (loadError()) {
       <p class="state error" role="alert"><mat-icon aria-hidden="true">error</mat-icon> {{ loadError() }}</p>
     } @else {
-      <erg-trajectories-table [trajectories]="trajectories()" [canEdit]="canEdit()" (action)="act($event.kind, $event.trajectory)" />
+      <erg-trajectories-table [trajectories]="trajectories()" [canEdit]="canEdit()" (action)="act($event.kind, $event.trajectory)" (editSelected)="editSelected($event)" />
     }
   `,
   styles: `.state { display: flex; gap: 8px; align-items: center; padding: 24px 0; } .error { color: var(--mat-sys-error); }`,
@@ -86,16 +86,30 @@ export class ProjectTrajectories {
     });
   }
 
+  /** Asks what the files do not say (all optional), then uploads them with it. */
   protected upload(files: File[]): void {
-    this.uploads.add(this.projectId(), files, (t) => this.trajectories.update((list) => [t, ...list.filter((x) => x.id !== t.id)]));
+    const data: MetadataDialogData = { kind: 'upload', files };
+    this.dialog.open<MetadataDialog, MetadataDialogData, MetadataDialogResult>(MetadataDialog, { data, width: '640px' }).afterClosed().subscribe((result) => {
+      if (result?.kind !== 'upload') return;
+      this.uploads.add(this.projectId(), files, (t) => this.trajectories.update((list) => [t, ...list.filter((x) => x.id !== t.id)]), result.metadata);
+    });
+  }
+
+  /** One metadata change for the trajectories ticked in the table. */
+  protected editSelected(selected: TrajectoryDto[]): void {
+    const data: MetadataDialogData = { kind: 'many', trajectories: selected };
+    this.dialog.open<MetadataDialog, MetadataDialogData, MetadataDialogResult>(MetadataDialog, { data, width: '640px' }).afterClosed().subscribe((result) => {
+      if (result?.kind === 'saved') result.trajectories.forEach((t) => this.replace(t));
+    });
   }
 
   protected act(kind: TrajectoryAction, t: TrajectoryDto): void {
     switch (kind) {
       case 'edit':
-        this.dialog.open(MetadataDialog, { data: t, width: '640px' }).afterClosed().subscribe((updated?: TrajectoryDto) => {
-          if (updated) this.replace(updated);
-        });
+        this.dialog.open<MetadataDialog, MetadataDialogData, MetadataDialogResult>(MetadataDialog, { data: { kind: 'one', trajectory: t }, width: '640px' })
+          .afterClosed().subscribe((result) => {
+            if (result?.kind === 'saved') result.trajectories.forEach((updated) => this.replace(updated));
+          });
         break;
       case 'model': {
         const data: InteractionModelDialogData = { target: { kind: 'trajectory', id: t.id }, name: t.name, species: Object.keys(t.speciesCounts ?? {}), canEdit: this.canEdit() };

@@ -26,8 +26,13 @@ export class TrajectoriesApi {
     return this.http.get(`/api/trajectories/${id}`).pipe(map(readTrajectory));
   }
 
-  upload(projectId: number, file: File): Observable<UploadEvent> {
+  /** Sends one file with the metadata given before the upload; blank fields are left to the file and the server. */
+  upload(projectId: number, file: File, metadata: TrajectoryMetadata = {}): Observable<UploadEvent> {
     const body = new FormData();
+    // Text fields before the file, so the server has them by the time the bytes arrive.
+    for (const [key, value] of Object.entries(metadata)) {
+      if (value !== null && value !== undefined && value !== '') body.append(key, typeof value === 'object' ? JSON.stringify(value) : String(value));
+    }
     body.append('file', file, file.name);
     const request = new HttpRequest('POST', `/api/projects/${projectId}/trajectories`, body, { reportProgress: true });
     return this.http.request<unknown>(request).pipe(
@@ -40,6 +45,11 @@ export class TrajectoriesApi {
 
   update(id: number, metadata: TrajectoryMetadata): Observable<TrajectoryDto> {
     return this.http.patch(`/api/trajectories/${id}`, metadata).pipe(map(readTrajectory));
+  }
+
+  /** One metadata change for several trajectories of a project, all or none. */
+  updateMany(projectId: number, ids: number[], changes: Omit<TrajectoryMetadata, 'name'>): Observable<TrajectoryDto[]> {
+    return this.http.patch(`/api/projects/${projectId}/trajectories`, { ids, changes }).pipe(map(unwrapList('trajectories', trajectorySchema)));
   }
 
   delete(id: number): Observable<void> {

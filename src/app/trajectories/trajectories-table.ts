@@ -1,6 +1,9 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, effect, input, output, viewChild } from '@angular/core';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { DatePipe, DecimalPipe, NgTemplateOutlet } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -10,120 +13,51 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
+import { map } from 'rxjs';
+import { formatBytes } from '../../../shared/byte-size';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { StatusChip } from './status-chip';
-import { filterText, formatText, speciesText } from './trajectory-format';
+import { filterText, formatText, nameParts, speciesText } from './trajectory-format';
 
 export type TrajectoryAction = 'analyse' | 'edit' | 'model' | 'cut' | 'delete';
 
-/** The project's trajectories: sortable, filterable, paged, with per-row actions. */
+/** Below this width the table becomes a list of cards, one per trajectory. */
+const NARROW = '(max-width: 719.98px)';
+
+/**
+ * The project's trajectories: sortable, filterable, paged, with per-row
+ * actions; editors can tick several to change their metadata at once.
+ */
 @Component({
   selector: 'erg-trajectories-table',
   imports: [
-    DatePipe, DecimalPipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule,
-    MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule, StatusChip,
+    DatePipe, DecimalPipe, NgTemplateOutlet, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule,
+    MatButtonModule, MatCheckboxModule, MatIconModule, MatMenuModule, MatTooltipModule, StatusChip,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <mat-form-field appearance="outline" class="filter" subscriptSizing="dynamic">
-      <mat-label>Filter trajectories</mat-label>
-      <mat-icon matPrefix aria-hidden="true">search</mat-icon>
-      <input matInput (input)="applyFilter($any($event.target).value)" placeholder="name, species, ensemble, status…">
-    </mat-form-field>
-    <div class="table-wrap">
-      <table mat-table [dataSource]="dataSource" matSort aria-label="Trajectories">
-        <ng-container matColumnDef="name">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header>Name</th>
-          <td mat-cell *matCellDef="let t"><span class="name">{{ t.name }}</span></td>
-        </ng-container>
-        <ng-container matColumnDef="format">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header>Format</th>
-          <td mat-cell *matCellDef="let t">{{ formatOf(t) }}</td>
-        </ng-container>
-        <ng-container matColumnDef="atoms">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header class="num">Atoms</th>
-          <td mat-cell *matCellDef="let t" class="num">{{ t.atoms | number }}</td>
-        </ng-container>
-        <ng-container matColumnDef="frames">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header class="num">Frames</th>
-          <td mat-cell *matCellDef="let t" class="num">{{ t.frames | number }}</td>
-        </ng-container>
-        <ng-container matColumnDef="species">
-          <th mat-header-cell *matHeaderCellDef>Species</th>
-          <td mat-cell *matCellDef="let t">{{ speciesOf(t) }}</td>
-        </ng-container>
-        <ng-container matColumnDef="temperatureK">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header class="num">T (K)</th>
-          <td mat-cell *matCellDef="let t" class="num">{{ t.temperatureK ?? '–' }}</td>
-        </ng-container>
-        <ng-container matColumnDef="ensemble">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header>Ensemble</th>
-          <td mat-cell *matCellDef="let t">{{ t.ensemble ?? '–' }}</td>
-        </ng-container>
-        <ng-container matColumnDef="status">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header>Status</th>
-          <td mat-cell *matCellDef="let t">
-            <erg-status-chip [status]="t.status" [detail]="t.error" />
-            @if (t.status === 'failed') { <div class="error" role="alert">{{ t.error }}</div> }
-          </td>
-        </ng-container>
-        <ng-container matColumnDef="uploaded">
-          <th mat-header-cell *matHeaderCellDef mat-sort-header>Uploaded</th>
-          <td mat-cell *matCellDef="let t">{{ t.uploadedBy.displayName }}<br><span class="muted">{{ t.createdAt | date: 'medium' }}</span></td>
-        </ng-container>
-        <ng-container matColumnDef="actions">
-          <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
-          <td mat-cell *matCellDef="let t" class="actions">
-            <a mat-icon-button [routerLink]="['/trajectories', t.id, 'view']" [disabled]="t.status !== 'ready'"
-               matTooltip="Open in the frame viewer" [attr.aria-label]="'Open ' + t.name + ' in the frame viewer'"><mat-icon>view_in_ar</mat-icon></a>
-            @if (canEdit()) {
-              <button mat-icon-button type="button" (click)="action.emit({ kind: 'analyse', trajectory: t })" [disabled]="t.status !== 'ready'"
-                      matTooltip="Analyse" [attr.aria-label]="'Analyse ' + t.name"><mat-icon>query_stats</mat-icon></button>
-            }
-            <button mat-icon-button type="button" [matMenuTriggerFor]="more" [attr.aria-label]="'More actions for ' + t.name"><mat-icon>more_vert</mat-icon></button>
-            <mat-menu #more="matMenu">
-              @if (canEdit()) {
-                <button mat-menu-item type="button" (click)="action.emit({ kind: 'edit', trajectory: t })"><mat-icon>edit_note</mat-icon>Edit metadata</button>
-              }
-              <button mat-menu-item type="button" (click)="action.emit({ kind: 'model', trajectory: t })"><mat-icon>function</mat-icon>Interaction model</button>
-              <button mat-menu-item type="button" [disabled]="t.status !== 'ready'" (click)="action.emit({ kind: 'cut', trajectory: t })"><mat-icon>content_cut</mat-icon>Download a cut</button>
-              @if (canEdit()) {
-                <button mat-menu-item type="button" (click)="action.emit({ kind: 'delete', trajectory: t })"><mat-icon>delete</mat-icon>Delete</button>
-              }
-            </mat-menu>
-          </td>
-        </ng-container>
-        <tr mat-header-row *matHeaderRowDef="columns"></tr>
-        <tr mat-row *matRowDef="let row; columns: columns"></tr>
-        <tr class="mat-row" *matNoDataRow>
-          <td class="mat-cell empty" [attr.colspan]="columns.length">
-            {{ trajectories().length ? 'No trajectory matches the filter.' : 'No trajectories yet. Drop files above to upload the first.' }}
-          </td>
-        </tr>
-      </table>
-    </div>
-    <mat-paginator [pageSizeOptions]="[10, 25, 100]" [pageSize]="10" aria-label="Trajectory pages" />
-  `,
-  styles: `
-    .filter { width: min(420px, 100%); margin: 8px 0; }
-    .table-wrap { overflow-x: auto; }
-    .num { text-align: right; }
-    .name { font-weight: 500; word-break: break-all; }
-    .muted { color: var(--mat-sys-on-surface-variant); font-size: 12px; }
-    .error { color: var(--mat-sys-error); font-size: 12px; max-width: 36ch; margin-top: 4px; }
-    .actions { white-space: nowrap; }
-    .empty { padding: 24px; color: var(--mat-sys-on-surface-variant); }
-  `,
+  templateUrl: './trajectories-table.html',
+  styleUrl: './trajectories-table.scss',
 })
 export class TrajectoriesTable {
   readonly trajectories = input.required<TrajectoryDto[]>();
   readonly canEdit = input(false);
   readonly action = output<{ kind: TrajectoryAction; trajectory: TrajectoryDto }>();
+  readonly editSelected = output<TrajectoryDto[]>();
 
-  protected readonly columns = ['name', 'format', 'atoms', 'frames', 'species', 'temperatureK', 'ensemble', 'status', 'uploaded', 'actions'];
+  protected readonly narrow = toSignal(inject(BreakpointObserver).observe(NARROW).pipe(map((s) => s.matches)), { initialValue: false });
+  protected readonly columns = computed(() => [
+    ...(this.canEdit() ? ['select'] : []), 'name', 'atoms', 'frames', 'species', 'temperatureK', 'ensemble', 'status', 'uploaded', 'actions',
+  ]);
   protected readonly dataSource = new MatTableDataSource<TrajectoryDto>([]);
+  /** The rows of the current page after filter and sort, for the card list on narrow screens. */
+  protected readonly pageRows = toSignal(this.dataSource.connect(), { initialValue: [] });
   protected readonly formatOf = formatText;
   protected readonly speciesOf = speciesText;
+  protected readonly partsOf = nameParts;
+  protected readonly size = formatBytes;
+  protected readonly selectedIds = signal<ReadonlySet<number>>(new Set());
+  protected readonly selected = computed(() => this.trajectories().filter((t) => this.selectedIds().has(t.id)));
+  protected readonly allOnPageSelected = computed(() => this.pageRows().length > 0 && this.pageRows().every((t) => this.selectedIds().has(t.id)));
   private readonly sort = viewChild(MatSort);
   private readonly paginator = viewChild(MatPaginator);
 
@@ -132,7 +66,11 @@ export class TrajectoriesTable {
     this.dataSource.sortingDataAccessor = (t, column) =>
       column === 'uploaded' ? t.createdAt : ((t as unknown as Record<string, string | number | null>)[column] ?? '');
     effect(() => {
-      this.dataSource.data = this.trajectories();
+      const list = this.trajectories();
+      this.dataSource.data = list;
+      // A trajectory that is gone cannot stay selected.
+      const ids = new Set(list.map((t) => t.id));
+      if ([...this.selectedIds()].some((id) => !ids.has(id))) this.selectedIds.update((s) => new Set([...s].filter((id) => ids.has(id))));
     });
     effect(() => {
       const sort = this.sort();
@@ -144,5 +82,31 @@ export class TrajectoriesTable {
 
   protected applyFilter(value: string): void {
     this.dataSource.filter = value.trim().toLowerCase();
+  }
+
+  protected toggle(t: TrajectoryDto, on: boolean): void {
+    this.selectedIds.update((s) => {
+      const next = new Set(s);
+      if (on) next.add(t.id);
+      else next.delete(t.id);
+      return next;
+    });
+  }
+
+  protected toggleAllOnPage(on: boolean): void {
+    const page = this.pageRows().map((t) => t.id);
+    this.selectedIds.update((s) => new Set(on ? [...s, ...page] : [...s].filter((id) => !page.includes(id))));
+  }
+
+  protected isSelected(t: TrajectoryDto): boolean {
+    return this.selectedIds().has(t.id);
+  }
+
+  protected editTheSelected(): void {
+    this.editSelected.emit(this.selected());
+  }
+
+  protected clearSelection(): void {
+    this.selectedIds.set(new Set());
   }
 }

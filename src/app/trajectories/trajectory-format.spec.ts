@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { bytesText, formatText, speciesText } from './trajectory-format';
+import { formatText, nameParts, speciesText } from './trajectory-format';
 
 describe('trajectory table text', () => {
   it('when a run has several species, then the most abundant comes first with its count', () => {
@@ -9,8 +9,8 @@ describe('trajectory table text', () => {
     expect(formatText({ format: 'extxyz', compression: 'gzip' })).toBe('Extended XYZ (gzip)');
     expect(formatText({ format: 'pdb', compression: 'none' })).toBe('PDB');
   });
-  it('when sizes cross a binary unit, then they switch unit', () => {
-    expect(bytesText(512)).toBe('512 B');
-    expect(bytesText(3 * 1024 * 1024)).toBe('3.0 MiB');
+  it('when a name is long, then it may break only after its own separators', () => {
+    expect(nameParts('argon-liquid_300K.extxyz')).toEqual(['argon-', 'liquid_', '300K.', 'extxyz']);
+    expect(nameParts('run1').join('')).toBe('run1');
   });
 });

@@ -20,11 +20,10 @@ export function filterText(t: TrajectoryDto): string {
     .join(' ').toLowerCase();
 }
 
-/** Bytes in the binary units people expect for files. */
-export function bytesText(bytes: number): string {
-  const units = ['B', 'KiB', 'MiB', 'GiB', 'TiB'];
-  let v = bytes;
-  let u = 0;
-  while (v >= 1024 && u < units.length - 1) { v /= 1024; u++; }
-  return `${u === 0 ? v : v.toFixed(1)} ${units[u]}`;
+/**
+ * A file name in pieces that may break after "-", "_" or ".", so a long name
+ * wraps at its own separators instead of in the middle of a word.
+ */
+export function nameParts(name: string): string[] {
+  return name.split(/(?<=[-_.])/);
 }

@@ -1,7 +1,7 @@
 import { inject, Injectable, signal } from '@angular/core';
 import type { Subscription } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
-import type { TrajectoryDto } from '../../../shared/trajectory';
+import type { TrajectoryDto, TrajectoryMetadata } from '../../../shared/trajectory';
 import { TrajectoriesApi } from './trajectories-api';
 
 export interface UploadItem {
@@ -29,11 +29,11 @@ export class UploadQueue {
   private readonly itemsState = signal<UploadItem[]>([]);
   readonly items = this.itemsState.asReadonly();
 
-  add(projectId: number, files: readonly File[], onStored: (t: TrajectoryDto) => void): void {
+  add(projectId: number, files: readonly File[], onStored: (t: TrajectoryDto) => void, metadata: TrajectoryMetadata = {}): void {
     for (const file of files) {
       const key = this.nextKey++;
       this.itemsState.update((list) => [...list, { key, projectId, name: file.name, size: file.size, percent: 0, state: 'sending' }]);
-      const subscription = this.api.upload(projectId, file).subscribe({
+      const subscription = this.api.upload(projectId, file, metadata).subscribe({
         next: (event) => {
           if (event.kind === 'progress') {
             this.patch(key, { percent: event.total ? Math.min(99, Math.round((100 * event.loaded) / event.total)) : 0 });
