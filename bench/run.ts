@@ -5,6 +5,7 @@
  * npm run bench` on a shared machine). Ends with the four headline figures.
  */
 import type { BenchRow } from './bench-row.ts';
+import { buildPrebuilt } from '../server/prebuilt/build.ts';
 import { benchEnergy } from './energy.ts';
 import { benchCostModel } from './cost-model.ts';
 import { benchEndToEnd, E2E_TARGET, PARSE_TARGET } from './end-to-end.ts';
@@ -15,6 +16,8 @@ import { benchPipeline } from './pipeline.ts';
 import { benchReaders } from './readers.ts';
 import { benchViewer } from './viewer.ts';
 
+// As after an install: the command line and job threads start from their prebuilt bundles.
+await buildPrebuilt({ log: (m) => console.log(m) });
 const headline: Record<string, string> = {};
 const suites: [string, () => Promise<BenchRow[]>][] = [
   ['end-to-end', async () => {

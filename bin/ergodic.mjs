@@ -1,7 +1,7 @@
 #!/usr/bin/env node
-// The command-line entry: the engine is TypeScript, run through the tsx loader.
-import { register } from 'tsx/esm/api';
+// The command-line entry: the prebuilt bundle when it matches the sources,
+// else the TypeScript engine through the tsx loader.
+import { importEntry } from '../server/prebuilt/load.mjs';
 
-register();
-const { main } = await import('../server/cli/main.ts');
+const { main } = await importEntry('cli');
 process.exitCode = await main(process.argv.slice(2));

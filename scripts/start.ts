@@ -3,6 +3,7 @@ import { join, resolve } from 'node:path';
 import { loadConfig } from '../server/config.ts';
 import { startServer } from '../server/main.ts';
 import { seedDemo } from '../server/demo/seed.ts';
+import { buildPrebuilt } from '../server/prebuilt/build.ts';
 import { buildAppIfNeeded } from './build-app.ts';
 import { startStack } from './services/stack.ts';
 
@@ -44,6 +45,7 @@ async function stopEverything(code: number, server?: { stop(): Promise<void> }) 
 try {
   // ERGODIC_BUILD_APP=false serves the API alone (and whatever build is already there).
   if (env['ERGODIC_BUILD_APP'] !== 'false') buildAppIfNeeded(root, log);
+  await buildPrebuilt({ log });
   const config = loadConfig({ ...env, ...stack.env, STATIC_DIR: join(root, 'dist/ergodic/browser') });
   const server = await startServer(config);
   // ERGODIC_DEMO=false starts without the invented demo lab.

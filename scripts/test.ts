@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { loadConfig } from '../server/config.ts';
 import { startServer } from '../server/main.ts';
 import { buildAppIfNeeded } from './build-app.ts';
+import { buildPrebuilt } from '../server/prebuilt/build.ts';
 import { ensureDebianPackages } from './services/debian-package.ts';
 import { startTestStack } from './services/test-stack.ts';
 import { freePort } from './services/wait-for-port.ts';
@@ -62,6 +63,8 @@ function add(counts: Counts | null, what: string) {
 
 // The build comes first so the unit suite can also check the built assets.
 if (suites.includes('e2e')) buildAppIfNeeded(root, log);
+// Job threads, engine threads and the command line start from these bundles (or from source if this fails).
+await buildPrebuilt({ log });
 const needsStack = suites.some((s) => s !== 'unit');
 const stack = needsStack ? await startTestStack(log) : null;
 try {

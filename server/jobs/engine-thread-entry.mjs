@@ -1,6 +1,6 @@
 // The engine thread a job starts does not inherit the TypeScript loader of
-// its parent thread: register it here, then run the engine's side in TypeScript.
-import { register } from 'tsx/esm/api';
+// its parent thread: take the prebuilt bundle when it is current, else
+// register the loader and run the engine's side from the source.
+import { importEntry } from '../prebuilt/load.mjs';
 
-register();
-await import('./engine-thread.ts');
+await importEntry('engine-thread');

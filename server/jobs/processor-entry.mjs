@@ -1,9 +1,8 @@
 // BullMQ starts sandboxed processors in fresh worker threads, which do not
-// inherit the TypeScript loader of the parent process: register it here,
-// then hand over to the processor written in TypeScript.
-import { register } from 'tsx/esm/api';
+// inherit the TypeScript loader of the parent process: take the prebuilt
+// bundle when it is current, else register the loader and use the source.
+import { importEntry } from '../prebuilt/load.mjs';
 
-register();
-const { default: processJob } = await import('./processor.ts');
+const { default: processJob } = await importEntry('processor');
 
 export default processJob;

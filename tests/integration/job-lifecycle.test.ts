@@ -76,7 +76,7 @@ describe('an analysis job from queue to report', () => {
     const worker = await startWorker(testApp.config, ctx.log);
     try {
       // One long stage: the cancel must land inside it.
-      const run = await startRun(ctx, trajectoryId, userId, ['lindemann'], {});
+      const run = await startRun(ctx, trajectoryId, userId, ['rdf'], {});
       await pollUntil(() => runRow(run.id), (r) => r.status === 'running' && r.progress >= 30, 60_000, 100);
       await cancelRun(ctx, run.id);
       expect(await pollUntil(() => jobState(run.id), (s) => s === 'completed' || s === 'failed', 60_000)).toBe('completed');
