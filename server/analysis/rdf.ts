@@ -16,6 +16,7 @@
  * stands above the histogram's own counting noise (rdf-shells.ts); an ideal
  * gas has none, and then both are null.
  */
+import { PARAM_LIMITS } from '../../shared/analysis-params.ts';
 import { cellFramesOf } from './cell-geometry.ts';
 import { PairHistogram, type PairMethod } from './pair-histogram.ts';
 import { firstShell, independentFrames } from './rdf-shells.ts';
@@ -83,6 +84,8 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
   }
   const binWidth = options.binWidthA ?? DEFAULT_RDF_BIN_WIDTH_A;
   const nBins = Math.max(1, Math.round(rMax / binWidth));
+  // The planner refuses this with advice before a job starts; the engine holds the same line for any other caller.
+  if (nBins > PARAM_LIMITS.maxBins) throw new RangeError(`g(r) over ${rMax.toPrecision(6)} Å in bins of ${binWidth} Å needs ${nBins} bins, more than ${PARAM_LIMITS.maxBins}.`);
   const dr = rMax / nBins;
 
   const labels = [...new Set(traj.species)];

@@ -12,7 +12,7 @@ export function analysisRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'post', path: '/trajectories/:id/analyses', access: { kind: 'project', role: 'editor', via: 'trajectory' },
-      summary: "Queues analyses of a ready trajectory as one job; 409 while it is not ready or states no time between frames; 422 when the frame selection cannot work or the estimated cost is past the site's limits (with the estimate and advice).",
+      summary: "Queues analyses of a ready trajectory as one job; 400 when a setting is out of bounds (also for the range the trajectory's cell implies); 409 while it is not ready or states no time between frames; 422 when the frame selection cannot work or the estimated cost is past the site's limits (with the estimate and advice).",
       request: { body: startAnalysisSchema }, response: wrapped('job', analysisRunSchema, 202),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });

@@ -5,7 +5,7 @@
  * cost estimated and held against the site's limits with advice on how to
  * get under them.
  */
-import { analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
+import { analysisParamsSchema, PARAM_LIMITS, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import { selectFrames, type FrameSelection } from '../../shared/frame-selection.ts';
 import { resolvePair } from '../../shared/interaction-model.ts';
 import type { RunEstimate } from '../../shared/run-estimate.ts';
@@ -42,6 +42,14 @@ export class PlanProblem extends Error {
   }
 }
 
+/** A setting out of bounds once the trajectory's defaults are filled in: refused like a schema error, naming the field. */
+export class ParamOutOfBounds extends PlanProblem {
+  constructor(readonly field: string, readonly detail: string) {
+    super(`${field}: ${detail}`);
+    this.name = 'ParamOutOfBounds';
+  }
+}
+
 function costInput(facts: TrajectoryFacts, frames: number, params: AnalysisParams): CostInput {
   const geometry = facts.cell ? cellWidths(facts.cell) : null;
   const cutoffs = params.interactionModel?.pairs.map((p) => resolvePair(p).cutoffA) ?? [];
@@ -64,7 +72,25 @@ export function planRun(facts: TrajectoryFacts, analyses: readonly AnalysisKey[]
     const bounded = defaultRMaxA(facts.atoms, facts.cell);
     if (bounded !== undefined) params.rMaxA = Number(bounded.toPrecision(6));
   }
+  if (analyses.includes('rdf') || analyses.includes('sq')) checkRdfBins(facts, params);
   return { params, selection, estimate: estimateCost(analyses, costInput(facts, selection.frames, params)) };
+}
+
+/**
+ * The bin limit of g(r) holds for the range actually used: the one given,
+ * or else the default (half the shortest cell width), which the schema
+ * alone cannot know.
+ */
+function checkRdfBins(facts: TrajectoryFacts, params: AnalysisParams): void {
+  const given = params.rMaxA !== undefined;
+  const rMax = params.rMaxA ?? (facts.cell ? Math.min(...cellWidths(facts.cell).widths) / 2 : undefined);
+  if (rMax === undefined || !(rMax > 0)) return;
+  const bins = Math.round(rMax / params.binWidthA);
+  if (bins <= PARAM_LIMITS.maxBins) return;
+  const range = given ? `rMaxA ${rMax} Å` : `the default range (half the shortest cell width, ${Number(rMax.toPrecision(6))} Å)`;
+  // Rounded up to the next 0.001 Å so the advice itself passes.
+  const narrowest = Math.ceil((rMax / PARAM_LIMITS.maxBins) * 1000) / 1000;
+  throw new ParamOutOfBounds('binWidthA', `${range} in bins of ${params.binWidthA} Å makes ${bins} bins, more than ${PARAM_LIMITS.maxBins}: use bins of at least ${narrowest} Å or give a shorter rMaxA`);
 }
 
 const within = (e: CostEstimate, limits: CostLimits) => e.seconds <= limits.seconds && e.memoryBytes <= limits.memoryBytes;

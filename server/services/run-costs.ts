@@ -9,7 +9,7 @@ import type { AppContext } from '../context.ts';
 import type { TrajectoryRow } from '../db/schema/index.ts';
 import { AppError, conflict } from '../errors.ts';
 import { LENGTH_TO_ANGSTROM, TIME_TO_PS, type LengthUnit, type TimeUnit } from '../formats/units.ts';
-import { adviceFor, describeEstimate, planRun, PlanProblem, type CostLimits, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
+import { adviceFor, describeEstimate, ParamOutOfBounds, planRun, PlanProblem, type CostLimits, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
 import { energyInputs } from './interaction-models.ts';
 import { getTrajectoryRow } from './trajectories.ts';
 
@@ -31,7 +31,7 @@ export interface CostedPlan {
   estimate: RunEstimate;
 }
 
-/** Plans a run on a ready trajectory; a selection that cannot work is a 422 naming the field. */
+/** Plans a run on a ready trajectory; a setting out of bounds is a 400 and a selection that cannot work a 422, each naming the field. */
 export async function planFor(ctx: AppContext, row: TrajectoryRow, analyses: AnalysisKey[], paramsInput: AnalysisParamsInput): Promise<CostedPlan> {
   if (row.status !== 'ready') throw conflict(`The trajectory is ${row.status}; analyses can start once it is ready.`);
   if (!row.timeStep) throw conflict(`${row.name} states no time between frames: set "Time between frames" in its metadata first.`);
@@ -42,6 +42,8 @@ export async function planFor(ctx: AppContext, row: TrajectoryRow, analyses: Ana
   try {
     plan = planRun(facts, analyses, { ...paramsInput, ...energy });
   } catch (err) {
+    // Like a schema refusal: 400 naming the field.
+    if (err instanceof ParamOutOfBounds) throw new AppError(400, 'invalid_input', err.message, [{ field: err.field, message: err.detail }]);
     if (err instanceof PlanProblem) throw new AppError(422, 'invalid_selection', err.message);
     throw err;
   }

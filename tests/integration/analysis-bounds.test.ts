@@ -25,4 +25,23 @@ describe('analysis parameters out of bounds', () => {
     }
     expect(await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.trajectoryId, id))).toEqual([]);
   });
+
+  it('when no rMaxA is given and the default range (half the cell) would need more than 20 000 bins, then 400 names binWidthA and no run is made', async () => {
+    const owner = await signUp(app, 'default-range');
+    const [{ id: projectId }] = await ctx.db.insert(projects).values({ name: 'Wide box', createdBy: owner.id, lastActivityAt: new Date() }).$returningId();
+    await ctx.db.insert(projectMembers).values({ projectId, userId: owner.id, role: 'owner' });
+    const [{ id }] = await ctx.db.insert(trajectories).values({
+      projectId, name: 'wide.xyz', objectKey: `projects/${projectId}/trajectories/fixture/wide.xyz`, uploadedBy: owner.id,
+      status: 'ready', atoms: 2, frames: 3, timeStep: 0.01, boundary: 'periodic', cell: [250, 0, 0, 0, 250, 0, 0, 0, 250],
+    }).$returningId();
+    for (const path of ['analyses', 'analyses/estimate']) {
+      const res = await owner.client.post(`/api/trajectories/${id}/${path}`, { analyses: ['rdf'], params: { binWidthA: 0.005 } });
+      expect(res.status, JSON.stringify(res.body)).toBe(400);
+      expect(res.body.error.message).toMatch(/^binWidthA: the default range \(half the shortest cell width, 125 Å\) in bins of 0\.005 Å makes 25000 bins, more than 20000/);
+      expect(res.body.error.details).toEqual([{ field: 'binWidthA', message: expect.stringMatching(/use bins of at least 0\.007 Å or give a shorter rMaxA/) }]);
+    }
+    const fine = await owner.client.post(`/api/trajectories/${id}/analyses/estimate`, { analyses: ['rdf'], params: { binWidthA: 0.007 } });
+    expect(fine.status, JSON.stringify(fine.body)).toBe(200);
+    expect(await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.trajectoryId, id))).toEqual([]);
+  });
 });

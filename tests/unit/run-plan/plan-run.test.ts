@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { runAnalyses } from '../../../server/analysis/index.ts';
 import type { Trajectory } from '../../../server/analysis/trajectory.ts';
 import { estimateCost } from '../../../server/run-plan/cost-estimate.ts';
-import { adviceFor, planRun, PlanProblem, type TrajectoryFacts } from '../../../server/run-plan/plan-run.ts';
+import { adviceFor, ParamOutOfBounds, planRun, PlanProblem, type TrajectoryFacts } from '../../../server/run-plan/plan-run.ts';
 import { defaultRMaxA } from '../../../server/run-plan/rdf-range.ts';
 import { fccLattice } from '../../../server/simulate/fcc-lattice.ts';
 import { AUTO_STRIDE_MAX_FRAMES, selectFrames } from '../../../shared/frame-selection.ts';
@@ -40,6 +40,26 @@ describe('which frames an analysis uses', () => {
 });
 
 describe('the default range of g(r)', () => {
+  it('when no rMaxA is given, then the 20 000-bin limit holds for the default range, half the shortest cell width', () => {
+    // 500 atoms keep the textbook range: a 250 Å box gives r_max 125 Å, 25 000 bins of 0.005 Å.
+    const wide = facts({ cell: [250, 0, 0, 0, 260, 0, 0, 0, 270] });
+    const refuse = () => planRun(wide, ['rdf'], { binWidthA: 0.005 });
+    expect(refuse).toThrow(ParamOutOfBounds);
+    expect(refuse).toThrow(/^binWidthA: the default range \(half the shortest cell width, 125 Å\) in bins of 0.005 Å makes 25000 bins, more than 20000: use bins of at least 0.007 Å or give a shorter rMaxA/);
+    expect(() => planRun(wide, ['sq'], { binWidthA: 0.005 })).toThrow(ParamOutOfBounds);
+    // The advised width, a shorter range, or an analysis without g(r) all pass.
+    expect(planRun(wide, ['rdf'], { binWidthA: 0.007 }).params.rMaxA).toBeUndefined();
+    expect(planRun(wide, ['rdf'], { binWidthA: 0.005, rMaxA: 100 }).params.rMaxA).toBe(100);
+    expect(() => planRun(wide, ['msd'], { binWidthA: 0.005 })).not.toThrow();
+    // Exactly at the limit is allowed: 100 Å / 0.005 Å = 20 000 bins.
+    expect(() => planRun(facts({ cell: cube(200) }), ['rdf'], { binWidthA: 0.005 })).not.toThrow();
+  });
+
+  it('when a large system gets the bounded default range, then its bins are counted on that range', () => {
+    const l = Math.cbrt(50_000 / 0.021);
+    expect(() => planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], { binWidthA: 0.005 })).not.toThrow();
+  });
+
   it('when a system is small, then g(r) keeps the textbook range of half the cell', () => {
     expect(defaultRMaxA(500, cube(28.6))).toBeUndefined();
     expect(planRun(facts(), ['rdf'], {}).params.rMaxA).toBeUndefined();
