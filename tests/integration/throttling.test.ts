@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { passwordHashGate } from '../../server/services/hash-gate.ts';
 import { SIGN_IN_LIMITS } from '../../server/services/sign-in-limit.ts';
@@ -75,6 +76,13 @@ describe('sign-in throttling holds under bursts', () => {
     expect((await signInFrom(ip, user.email, user.password)).status).toBe(200);
     for (let i = 0; i < SIGN_IN_LIMITS.perAccountAndAddress - 1; i++) expect((await signInFrom(ip, user.email, 'nearly-right')).status).toBe(401);
     expect((await signInFrom(ip, user.email, user.password)).status).toBe(200);
+  });
+
+  it('when the database is migrated, then it keeps no table of sign-in attempts: they are counted in Redis alone', async () => {
+    const [rows] = await ctx.db.execute(sql`SELECT table_name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'sign_in_attempts'`);
+    expect(rows).toEqual([]);
+    const [users] = await ctx.db.execute(sql`SELECT table_name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'users'`);
+    expect(users).toHaveLength(1);
   });
 });
 

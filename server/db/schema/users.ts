@@ -41,13 +41,5 @@ export const passwordResets = mysqlTable('password_resets', {
   createdAt: createdAt(),
 });
 
-/** Failed sign-in attempts, kept in the database so every web node sees them. */
-export const signInAttempts = mysqlTable('sign_in_attempts', {
-  id: id(),
-  email: varchar('email', { length: 254 }).notNull(),
-  ip: varchar('ip', { length: 64 }).notNull(),
-  createdAt: createdAt(),
-}, (t) => [index('sign_in_attempts_email').on(t.email, t.createdAt), index('sign_in_attempts_ip').on(t.ip, t.createdAt)]);
-
 export type UserRow = typeof users.$inferSelect;
 export const userRoles = ['admin', 'member'] as const;
