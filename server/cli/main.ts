@@ -1,11 +1,12 @@
 import { existsSync } from 'node:fs';
 import { writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey } from '../../shared/analysis-params.ts';
+import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shared/trajectory.ts';
 import { analyzeFile, planFile, type AnalyzeFileOptions } from './analyze-file.ts';
 import { printEstimate, printSummary } from './print-summary.ts';
 import { readPotential } from './read-potential.ts';
+import { mergeParams, readParamsFile } from './read-params.ts';
 import { ENERGY_UNIT_LIST } from '../../shared/energy-units.ts';
 
 const USAGE = `Usage: ergodic analyze FILE [options]
@@ -17,6 +18,14 @@ web API serves.
 Options:
   --analyses LIST      comma-separated, from: ${ANALYSIS_KEYS.join(', ')}
                        (default: thermo,msd,vacf,vdos,rdf, and energy with --potential)
+  --params FILE        every analysis setting as JSON: the same object as the web API's
+                       "params" (or the whole request body {"analyses": [...], "params": {...}}),
+                       checked by the same rules, e.g. {"binWidthA": 0.02, "fitWindow":
+                       {"mode": "manual", "startPs": 1, "endPs": 5}, "species": ["O"]}.
+                       The flags below that set a setting (--temperature, --r-max, --potential,
+                       --file-energy, --ensemble, --drift-threshold, --from-frame, --to-frame,
+                       --stride, --discard-ps, and --analyses for a whole body) may be added for
+                       settings the file leaves out; the same setting in both is refused.
   --potential FILE     interaction model (JSON, see shared/interaction-model.ts), e.g.
                        {"pairs": [{"species": ["Ar","Ar"], "form": "lj", "epsilonEV": 0.0103236,
                        "sigmaA": 3.405, "cutoffA": 10.5}]}
@@ -76,7 +85,7 @@ export async function main(argv: string[]): Promise<number> {
         boundary: { type: 'string' }, 'r-max': { type: 'string' }, json: { type: 'string' }, help: { type: 'boolean', short: 'h' },
         potential: { type: 'string' }, ensemble: { type: 'string' }, 'file-energy': { type: 'string' }, 'drift-threshold': { type: 'string' },
         'from-frame': { type: 'string' }, 'to-frame': { type: 'string' }, stride: { type: 'string' }, 'discard-ps': { type: 'string' },
-        estimate: { type: 'boolean' },
+        estimate: { type: 'boolean' }, params: { type: 'string' },
       },
     });
     const [command, file, ...extra] = positionals;
@@ -88,26 +97,38 @@ export async function main(argv: string[]): Promise<number> {
     if (!file) throw new Error('give the trajectory file: ergodic analyze FILE');
     if (extra.length) throw new Error(`unexpected arguments: ${extra.join(' ')}`);
     if (!existsSync(file)) throw new Error(`${file}: no such file`);
+    const paramsFile = values.params !== undefined ? await readParamsFile(values.params) : undefined;
+    if (paramsFile?.analyses && values.analyses !== undefined) throw new Error(`--analyses and --params ${values.params} both choose the analyses: give them in one place`);
     const interactionModel = values.potential !== undefined ? await readPotential(values.potential) : undefined;
     const [energyKey, energyUnit = 'eV'] = values['file-energy']?.split(':') ?? [];
     const fileQuantities = energyKey ? { potentialEnergy: { key: energyKey, unit: oneOf(energyUnit, ENERGY_UNIT_LIST, '--file-energy unit')! } } : undefined;
-    const defaults = interactionModel || fileQuantities ? 'thermo,msd,vacf,vdos,rdf,energy' : 'thermo,msd,vacf,vdos,rdf';
-    const analyses = (values.analyses ?? defaults).split(',').map((k) => k.trim()).filter(Boolean).map((k) => {
+    const energyGiven = interactionModel || fileQuantities || paramsFile?.params.interactionModel || paramsFile?.params.fileQuantities;
+    const defaults = energyGiven ? 'thermo,msd,vacf,vdos,rdf,energy' : 'thermo,msd,vacf,vdos,rdf';
+    const analyses = paramsFile?.analyses ?? (values.analyses ?? defaults).split(',').map((k) => k.trim()).filter(Boolean).map((k) => {
       const parsed = analysisKeySchema.safeParse(k);
       if (!parsed.success) throw new Error(`unknown analysis "${k}"; choose from ${ANALYSIS_KEYS.join(', ')}`);
       return parsed.data;
     }) as AnalysisKey[];
     const timeUnit = oneOf(values['time-unit'], TIME_UNITS, '--time-unit') ?? 'ps';
     const dtPs = positive(values['dt-ps'], '--dt-ps');
+    const flagParams = {
+      temperatureK: { flag: '--temperature', value: positive(values.temperature, '--temperature') },
+      rMaxA: { flag: '--r-max', value: positive(values['r-max'], '--r-max') },
+      interactionModel: { flag: '--potential', value: interactionModel },
+      fileQuantities: { flag: '--file-energy', value: fileQuantities },
+      ensemble: { flag: '--ensemble', value: oneOf(values.ensemble, ['NVE', 'NVT', 'NPT'] as const, '--ensemble') },
+      driftThresholdKTPerNs: { flag: '--drift-threshold', value: positive(values['drift-threshold'], '--drift-threshold') },
+      fromFrame: { flag: '--from-frame', value: count(values['from-frame'], '--from-frame', 0) },
+      toFrame: { flag: '--to-frame', value: count(values['to-frame'], '--to-frame', 1) },
+      frameStride: { flag: '--stride', value: count(values.stride, '--stride', 1) },
+      discardPs: { flag: '--discard-ps', value: nonNegative(values['discard-ps'], '--discard-ps') },
+    };
+    const params = paramsFile
+      ? mergeParams(values.params!, paramsFile.params, flagParams)
+      : Object.fromEntries(Object.entries(flagParams).map(([k, v]) => [k, v.value])) as AnalysisParamsInput;
     const options: AnalyzeFileOptions = {
       analyses,
-      params: {
-        temperatureK: positive(values.temperature, '--temperature'), rMaxA: positive(values['r-max'], '--r-max'),
-        interactionModel, fileQuantities, ensemble: oneOf(values.ensemble, ['NVE', 'NVT', 'NPT'] as const, '--ensemble'),
-        driftThresholdKTPerNs: positive(values['drift-threshold'], '--drift-threshold'),
-        fromFrame: count(values['from-frame'], '--from-frame', 0), toFrame: count(values['to-frame'], '--to-frame', 1),
-        frameStride: count(values.stride, '--stride', 1), discardPs: nonNegative(values['discard-ps'], '--discard-ps'),
-      },
+      params,
       lengthUnit: oneOf(values['length-unit'], LENGTH_UNITS, '--length-unit') ?? 'angstrom',
       velocityUnit: oneOf(values['velocity-unit'], VELOCITY_UNITS, '--velocity-unit') ?? 'angstrom/ps',
       timeUnit: dtPs !== undefined ? 'ps' : timeUnit,
