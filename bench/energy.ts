@@ -17,6 +17,7 @@ import type { Trajectory } from '../server/analysis/trajectory.ts';
 import { fccLattice } from '../server/simulate/fcc-lattice.ts';
 import { SeededRandom } from '../server/simulate/random.ts';
 import type { BenchRow } from './bench-row.ts';
+import { findReferencePython } from '../scripts/services/reference-python.ts';
 
 const N = 10_000, FRAMES = 1_000, PEER_FRAMES = 100, CELLS = 14, SIGMA = 3.405, EPS_EV = 0.0103236, RC = 10.5;
 /** Liquid-argon number density, atoms/Å³ (≈ 1.4 g/cm³). */
@@ -71,13 +72,14 @@ function synthesise(): { traj: Trajectory; box: number } {
 }
 
 function scipyPeer(traj: Trajectory, box: number): { seconds: number; frames: number; meanPairEV: number } | null {
-  if (spawnSync('python3', ['-c', 'import numpy, scipy.spatial'], { encoding: 'utf8' }).status !== 0) return null;
+  const python = findReferencePython();
+  if (!python) return null;
   const dir = mkdtempSync(join(tmpdir(), 'ergodic-bench-energy-'));
   try {
     const file = join(dir, 'positions.f32');
     writeFileSync(file, traj.positions.subarray(0, 3 * N * PEER_FRAMES));
     const script = join(dirname(fileURLToPath(import.meta.url)), 'energy-scipy.py');
-    const r = spawnSync('python3', [script, file, String(N), String(PEER_FRAMES), String(box), String(RC), String(SIGMA), String(EPS_EV)], { encoding: 'utf8', maxBuffer: 1 << 20 });
+    const r = spawnSync(python, [script, file, String(N), String(PEER_FRAMES), String(box), String(RC), String(SIGMA), String(EPS_EV)], { encoding: 'utf8', maxBuffer: 1 << 20 });
     if (r.status !== 0) throw new Error(`scipy peer failed: ${r.stderr}`);
     return JSON.parse(r.stdout) as { seconds: number; frames: number; meanPairEV: number };
   } finally {

@@ -20,6 +20,7 @@ import { vacf } from '../server/analysis/vacf.ts';
 import { vdos } from '../server/analysis/vdos.ts';
 import { SeededRandom } from '../server/simulate/random.ts';
 import type { BenchRow } from './bench-row.ts';
+import { findReferencePython } from '../scripts/services/reference-python.ts';
 
 const N = 500, T = 4000, DT = 0.01, BOX = 28.6, R_MAX = 9, BIN = 0.05;
 /** Frames the O(N²) references actually run; their times are scaled to all frames. */
@@ -125,7 +126,8 @@ function bruteRdfSeconds(traj: Trajectory): number {
 }
 
 function numpyTimes(traj: Trajectory): Record<string, number> | null {
-  if (spawnSync('python3', ['-c', 'import numpy'], { encoding: 'utf8' }).status !== 0) return null;
+  const python = findReferencePython();
+  if (!python) return null;
   const dir = mkdtempSync(join(tmpdir(), 'ergodic-bench-'));
   try {
     const file = join(dir, 'traj.f32');
@@ -135,7 +137,7 @@ function numpyTimes(traj: Trajectory): Record<string, number> | null {
     both.set(v, traj.positions.length);
     writeFileSync(file, both);
     const script = join(dirname(fileURLToPath(import.meta.url)), 'engine-numpy.py');
-    const r = spawnSync('python3', [script, file, String(N), String(T), String(DT), String(BOX), String(R_MAX), String(BIN), String(REFERENCE_RDF_FRAMES)], { encoding: 'utf8', maxBuffer: 1 << 20 });
+    const r = spawnSync(python, [script, file, String(N), String(T), String(DT), String(BOX), String(R_MAX), String(BIN), String(REFERENCE_RDF_FRAMES)], { encoding: 'utf8', maxBuffer: 1 << 20 });
     if (r.status !== 0) throw new Error(`numpy reference failed: ${r.stderr}`);
     return JSON.parse(r.stdout) as Record<string, number>;
   } finally {

@@ -7,6 +7,7 @@ import { startServer } from '../server/main.ts';
 import { buildAppIfNeeded } from './build-app.ts';
 import { buildPrebuilt } from '../server/prebuilt/build.ts';
 import { ensureDebianPackages } from './services/debian-package.ts';
+import { ensureReferencePython, REFERENCE_PYTHON_ENV } from './services/reference-python.ts';
 import { startTestStack } from './services/test-stack.ts';
 import { freePort } from './services/wait-for-port.ts';
 
@@ -65,6 +66,17 @@ function add(counts: Counts | null, what: string) {
 if (suites.includes('e2e')) buildAppIfNeeded(root, log);
 // Job threads, engine threads and the command line start from these bundles (or from source if this fails).
 await buildPrebuilt({ log });
+// The numpy/scipy cross-checks run everywhere: Debian's packages are installed
+// when no interpreter has them (the check itself fails if that was possible but
+// did not happen, and is skipped only where nothing can be installed).
+const referencePython: Record<string, string> = {};
+if (suites.includes('unit')) {
+  try {
+    referencePython[REFERENCE_PYTHON_ENV] = ensureReferencePython(log);
+  } catch (err) {
+    log(`numpy/scipy cross-check cannot run: ${(err as Error).message}`);
+  }
+}
 const needsStack = suites.some((s) => s !== 'unit');
 const stack = needsStack ? await startTestStack(log) : null;
 try {
@@ -81,7 +93,7 @@ try {
     const out = join(results, 'vitest.json');
     const status = await run('npx', ['vitest', 'run', ...vitestProjects.flatMap((p) => ['--project', p]),
       '--reporter=default', '--reporter=json', `--outputFile.json=${out}`, ...extraFiles],
-      stack ? { ERGODIC_STACK_ENV: JSON.stringify(stack.env) } : {});
+      { ...referencePython, ...(stack ? { ERGODIC_STACK_ENV: JSON.stringify(stack.env) } : {}) });
     add(readVitest(out), 'vitest');
     if (status !== 0 && total.failed === 0) crashed = true;
   }

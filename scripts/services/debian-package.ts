@@ -9,17 +9,30 @@ export function hasBinary(binary: string): boolean {
   return spawnSync('sh', ['-c', `command -v ${binary}`], { stdio: 'ignore' }).status === 0;
 }
 
+/** True when this process may install Debian packages itself (root, with apt-get). */
+export function canInstallDebianPackages(): boolean {
+  return process.getuid?.() === 0 && hasBinary('apt-get');
+}
+
 /**
  * Installs Debian packages when `binary` is missing. The project promises a
  * two-command set-up on a fresh machine, so the services it needs come from
  * Debian's own archive rather than a download of our choosing.
  */
 export function ensureDebianPackages(binary: string, packages: string[], log: (m: string) => void): void {
-  if (hasBinary(binary)) return;
-  if (process.getuid?.() !== 0) {
-    throw new Error(`${binary} is missing; install it with: sudo apt-get install -y ${packages.join(' ')}`);
+  ensureDebianPackagesFor(binary, () => hasBinary(binary), packages, log);
+}
+
+/**
+ * Installs Debian packages unless `present()` already holds; `what` names the
+ * missing thing in messages. Throws when it still does not hold afterwards.
+ */
+export function ensureDebianPackagesFor(what: string, present: () => boolean, packages: string[], log: (m: string) => void): void {
+  if (present()) return;
+  if (!canInstallDebianPackages()) {
+    throw new Error(`${what} is missing; install it with: sudo apt-get install -y ${packages.join(' ')}`);
   }
-  log(`installing ${packages.join(', ')} from Debian's packages (${binary} is missing)…`);
+  log(`installing ${packages.join(', ')} from Debian's packages (${what} is missing)…`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   if (!aptUpdated) {
     execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
@@ -35,5 +48,5 @@ export function ensureDebianPackages(binary: string, packages: string[], log: (m
   } finally {
     if (wrotePolicy) rmSync(policy, { force: true });
   }
-  if (!hasBinary(binary)) throw new Error(`${binary} still missing after installing ${packages.join(' ')}`);
+  if (!present()) throw new Error(`${what} still missing after installing ${packages.join(' ')}`);
 }

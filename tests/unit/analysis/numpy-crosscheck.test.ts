@@ -5,19 +5,31 @@ import { Autocorrelator } from '../../../server/analysis/fft.ts';
 import { FftMsd } from '../../../server/analysis/fft-msd.ts';
 import { harmonicThermo } from '../../../server/analysis/harmonic-thermo.ts';
 import { SeededRandom } from '../../../server/simulate/random.ts';
+import { referencePythonState } from '../../../scripts/services/reference-python.ts';
 
-/** Independent implementations in numpy/scipy, run only where python3 has them. */
-const probe = spawnSync('python3', ['-c', 'import numpy, scipy'], { encoding: 'utf8' });
-const available = probe.status === 0;
-if (!available) console.warn('numpy/scipy cross-check skipped: python3 with numpy and scipy is not available.');
+/**
+ * Independent implementations in numpy/scipy. `npm test` installs Debian's
+ * python3-numpy and python3-scipy when no interpreter has them, so these run
+ * on every machine that can install packages; where it could but they are
+ * still missing, the check fails instead of quietly skipping.
+ */
+const reference = referencePythonState();
+const interpreter = reference.kind === 'ready' ? reference.interpreter : 'python3';
+if (reference.kind === 'unavailable') console.warn(`numpy/scipy cross-check skipped: ${reference.reason}`);
 
 function python(script: string, input: unknown): unknown {
-  const r = spawnSync('python3', ['-c', script], { input: JSON.stringify(input), encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+  const r = spawnSync(interpreter, ['-c', script], { input: JSON.stringify(input), encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
   if (r.status !== 0) throw new Error(r.stderr);
   return JSON.parse(r.stdout);
 }
 
-describe.skipIf(!available)('Cross-check against numpy / scipy', () => {
+describe('numpy and scipy for the cross-check', () => {
+  it('when this machine can install them, then an interpreter that imports both is found', () => {
+    expect(reference.kind, reference.kind === 'installable' ? reference.reason : '').not.toBe('installable');
+  });
+});
+
+describe.skipIf(reference.kind !== 'ready')('Cross-check against numpy / scipy', () => {
   const rng = new SeededRandom(31);
   const series = Float64Array.from({ length: 777 }, () => rng.normal());
   for (let i = 1; i < series.length; i++) series[i] += series[i - 1];
