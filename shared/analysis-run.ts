@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { isoDate, personRef, recordId } from './api-fields.ts';
-import { analysisKeySchema, analysisParamsSchema } from './analysis-params.ts';
+import { ANALYSIS_KEYS, analysisKeySchema, analysisParamsSchema } from './analysis-params.ts';
 
 export const RUN_NOTES_MAX_LENGTH = 2000;
 
 /** Body of POST /api/trajectories/:id/analyses. */
 export const startAnalysisSchema = z.object({
-  analyses: z.array(analysisKeySchema).min(1, 'pick at least one analysis').max(8),
+  // Every analysis at once is a valid choice (the dialog's checklist can tick them all).
+  analyses: z.array(analysisKeySchema).min(1, 'pick at least one analysis').max(ANALYSIS_KEYS.length, 'name each analysis once'),
   params: analysisParamsSchema.default(analysisParamsSchema.parse({})),
   /** Why this run, in the user's words ("longer fit window"); shown with its report. */
   notes: z.string({ error: 'must be text' }).trim().max(RUN_NOTES_MAX_LENGTH, `must be at most ${RUN_NOTES_MAX_LENGTH} characters`).default(''),
