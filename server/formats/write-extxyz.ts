@@ -5,6 +5,9 @@
  */
 import type { Frame } from './frame.ts';
 
+/** Property name velocities are written under. */
+export const VELOCITY_PROPERTY = 'velocity';
+
 /** Output is handed on in pieces about this size. */
 const CHUNK_CHARS = 256 * 1024;
 
@@ -42,7 +45,8 @@ function frameHeader(frame: Frame): string {
   }
   const parts: string[] = [];
   if (frame.cell) parts.push(`Lattice="${Array.from(frame.cell).join(' ')}"`);
-  parts.push(`Properties=species:S:1:pos:R:3${frame.velocities ? ':velo:R:3' : ''}`);
+  // Velocities (Å/ps) go under the plain word, a name of Ergodic's own choosing that its reader also takes.
+  parts.push(`Properties=species:S:1:pos:R:3${frame.velocities ? `:${VELOCITY_PROPERTY}:R:3` : ''}`);
   if (frame.time !== undefined) parts.push(`Time=${frame.time}`);
   if (frame.step !== undefined) parts.push(`Step=${frame.step}`);
   if (frame.pbc) parts.push(`pbc="${frame.pbc.map((p) => (p ? 'T' : 'F')).join(' ')}"`);

@@ -3,6 +3,8 @@ import { expect, test, type Page } from '@playwright/test';
 import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder.ts';
 import { lennardJonesExtxyz } from '../support/fixtures.ts';
 import { syntheticSystemExtxyz } from '../support/synthetic-system.ts';
+import { elementColour } from '../../shared/element-colour.ts';
+import { ELEMENTS } from '../../shared/elements.ts';
 import { canvasPixels } from './helpers/canvas-pixels.ts';
 import { readyTrajectory, settledTrajectory } from './helpers/viewer-data.ts';
 
@@ -101,6 +103,32 @@ test.describe('frame viewer', () => {
     const payload = decodeFramesPayload(body.buffer.slice(body.byteOffset, body.byteOffset + body.byteLength) as ArrayBuffer);
     await expect(selected).toContainText(new RegExp(`z\\s*${payload.frames[0]!.positions[index * 3 + 2]!.toFixed(3).replace('.', '\\.')} Å`));
     await screen(page, 'viewer-large-system');
+  });
+
+  test('when a system holds several elements, then each species is drawn and listed in its element’s colour', async ({ page, context }) => {
+    // A made-up mixed oxide with water and a chloride: light and heavy elements from five groups.
+    const species = ['O', 'H', 'Si', 'Na', 'Cl', 'Fe', 'Au', 'Ar'];
+    const lines = Array.from({ length: 64 }, (_, a) => {
+      const x = (a % 4) * 3 + 1.5, y = (Math.floor(a / 4) % 4) * 3 + 1.5, z = Math.floor(a / 16) * 3 + 1.5;
+      return `${species[a % species.length]} ${x} ${y} ${z}`;
+    });
+    const frame = (t: number) => `64\nLattice="12 0 0 0 12 0 0 0 12" Properties=species:S:1:pos:R:3 Time=${t} pbc="T T T"\n${lines.join('\n')}\n`;
+    const trajectory = await readyTrajectory(context, 'larkspur-mixed-oxide.extxyz', Buffer.from(frame(0) + frame(0.1)));
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.goto(`/trajectories/${trajectory.id}/view`);
+    const canvas = page.getByRole('img', { name: /3D view of frame 1 of/ });
+    await expect.poll(async () => (await canvasPixels(page, canvas, BACKGROUND)).solidPoint).not.toBeNull();
+
+    const list = page.getByRole('listbox', { name: 'Species shown' });
+    for (const symbol of species) {
+      const swatch = list.getByRole('option', { name: `${symbol}, 8 atoms` }).locator('.swatch');
+      const [r, g, b] = [1, 3, 5].map((i) => parseInt(elementColour(ELEMENTS.get(symbol)!.atomicNumber).slice(i, i + 2), 16));
+      await expect(swatch).toHaveCSS('background-color', `rgb(${r}, ${g}, ${b})`);
+    }
+    await screen(page, 'viewer-elements-1440');
+    await page.setViewportSize({ width: 390, height: 844 });
+    await expect(canvas).toBeVisible();
+    await page.screenshot({ path: `${SCREENS}/viewer-elements-390.png`, fullPage: true });
   });
 
   test('when a species is switched off, then its spheres disappear from the view', async ({ page, context }) => {

@@ -8,7 +8,7 @@ import { Subscription, switchMap, timer } from 'rxjs';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { AnalysisDialog, type AnalysisDialogData, type AnalysisDialogResult } from './analysis-dialog';
-import { ConfirmDialog, type ConfirmData } from './confirm-dialog';
+import { ConfirmDialog, type ConfirmData } from '../shell/confirm-dialog';
 import { CutDialog } from './cut-dialog';
 import { DropZone } from './drop-zone';
 import { ProjectRuns } from './project-runs';

@@ -1,3 +1,4 @@
+import { unlistedSpeciesColour } from '../../../shared/element-colour';
 import { elementOf } from '../../../shared/elements';
 
 export interface SpeciesStyle {
@@ -10,7 +11,7 @@ export interface SpeciesStyle {
 }
 
 /** Stand-in for labels such as coarse-grained beads that name no element. */
-const UNKNOWN: SpeciesStyle = { colour: '#b48ead', radiusA: 1, known: false };
+const UNKNOWN: SpeciesStyle = { colour: unlistedSpeciesColour(), radiusA: 1, known: false };
 
 /** Spheres are drawn at this fraction of the covalent radius so neighbours stay apart. */
 export const SPHERE_SCALE = 0.5;

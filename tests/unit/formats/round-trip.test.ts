@@ -100,6 +100,9 @@ describe('writing extended XYZ', () => {
   it('when frames are written and read back, then every value, cell, time and pbc is identical', async () => {
     const original = await readAll(bytes(extxyzText(system)), 'a.extxyz');
     const written = await collect(writeExtxyz(original));
+    // Velocities go under Ergodic's own property name, whatever the input called them.
+    expect(written.toString('utf8').split('\n')[1]).toMatch(/Properties=species:S:1:pos:R:3:velocity:R:3(\s|$)/);
+    expect(written.toString('utf8')).not.toMatch(/:velo:|:vel:/);
     const back = await readAll(written, 'cut.extxyz');
     expect(content(back)).toEqual(content(original));
   });

@@ -1,6 +1,9 @@
+import { VIEWER_BACKDROP } from '../../../../shared/element-colour';
+
 /** Colours chosen for Ergodic's light theme. */
 export const STAGE_COLOURS = {
-  background: '#eef2f3',
+  /** Element colours are derived to stand out against this (`shared/element-colour.ts`). */
+  background: VIEWER_BACKDROP,
   cell: '#40646b',
   selection: '#a16c2d',
   path: '#663d07',
