@@ -60,6 +60,8 @@ export const patchSeriesBody = z.object({
   addTrajectoryIds: trajectoryIdList('addTrajectoryIds').min(1, 'must list at least one trajectory').optional(),
   removeTrajectoryIds: trajectoryIdList('removeTrajectoryIds').min(1, 'must list at least one trajectory').optional(),
   members: z.array(memberSettingsBody).min(1, 'must list at least one member').max(SERIES_MAX_MEMBERS).optional(),
+  /** Start again the analyses of members whose run failed or was cancelled. */
+  retryFailed: z.boolean().optional(),
 }).strict()
   .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'give at least one field to change' })
   .refine((b) => !(b.trajectoryIds && (b.addTrajectoryIds || b.removeTrajectoryIds)), {
@@ -313,7 +315,8 @@ export const seriesListItemSchema = z.object({
   activationEnergy: z.object({ kJPerMol: z.number(), kJPerMolStdError: z.number().nullable() }).nullable(),
   /** Melting bracket of the whole series, when there is one. */
   meltingBracketK: z.object({ belowK: z.number(), aboveK: z.number() }).nullable(),
-  createdBy: personRef,
+  /** Null behind an access link, which never shows people. */
+  createdBy: personRef.nullable(),
   createdAt: isoDate,
   updatedAt: isoDate,
 });

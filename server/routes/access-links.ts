@@ -2,7 +2,9 @@ import { z } from 'zod';
 import { currentUser } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
-import { createAccessLink, listAccessLinks, resolveAccessLink, revokeAccessLink } from '../services/access-links.ts';
+import { createAccessLink, listAccessLinks, resolveAccessLink, resolveReportLink, revokeAccessLink } from '../services/access-links.ts';
+import { getLinkedSeries } from '../services/series/series.ts';
+import { linkedSeriesSchema, seriesSchema } from '../../shared/series-api.ts';
 import { getReportHead } from '../services/reports.ts';
 import { curvesPlaceholder, sendWithStoredCurves } from '../services/report-stream.ts';
 import { secretTokenField } from '../../shared/accounts.ts';
@@ -48,25 +50,34 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'get', path: '/links/:token', access: { kind: 'public' },
-      summary: 'The report behind a valid, unexpired, unrevoked link, read only, and when the link expires.',
-      response: wrapped('link', linkedReportSchema),
+      summary: 'The report or series behind a valid, unexpired, unrevoked link, read only, and when the link expires: `{link: {expiresAt, report}}` or `{link: {expiresAt, series}}`.',
+      response: wrapped('link', z.union([linkedReportSchema, linkedSeriesSchema])),
       before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
-        const { report, curvesKey } = await getReportHead(ctx, link.reportId);
+        if (link.seriesId !== null) {
+          res.json({ link: { expiresAt: link.expiresAt.toISOString(), series: await getLinkedSeries(ctx, link.seriesId) } });
+          return;
+        }
+        const { report, curvesKey } = await getReportHead(ctx, link.reportId as number);
         await sendWithStoredCurves(ctx, req, res, { link: { expiresAt: link.expiresAt.toISOString(), report: { ...report, curves: curvesPlaceholder } } }, curvesKey);
       },
     },
     {
       method: 'get', path: '/links/:token/export.json', access: { kind: 'public' },
-      summary: 'The report document behind a link, as a download.',
-      response: download('application/json', 'The report document: the same object as `report` in GET /api/reports/{id}.', reportSchema),
+      summary: 'The report or series document behind a link, as a download.',
+      response: download('application/json', 'The report document (the same object as `report` in GET /api/reports/{id}) or the series document (as `series` in GET /api/series/{id}).', z.union([reportSchema, seriesSchema])),
       before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
-        const { report, curvesKey } = await getReportHead(ctx, link.reportId);
+        if (link.seriesId !== null) {
+          res.setHeader('Content-Disposition', `attachment; filename="ergodic-series-${link.seriesId}.json"`);
+          res.json(await getLinkedSeries(ctx, link.seriesId));
+          return;
+        }
+        const { report, curvesKey } = await getReportHead(ctx, link.reportId as number);
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-report-${link.reportId}.json"`);
         await sendWithStoredCurves(ctx, req, res, { ...report, curves: curvesPlaceholder }, curvesKey);
       },
@@ -78,7 +89,7 @@ export function accessLinkRoutes(ctx: AppContext): RouteDef[] {
       before: [limits.accessLinkReads],
       handler: async (req, res) => {
         const { token, curve } = params(req, { token: secretTokenField, curve: curveField });
-        const link = await resolveAccessLink(ctx.db, token);
+        const link = await resolveReportLink(ctx.db, token);
         await sendCurveCsv(ctx, res, link.reportId, curve);
       },
     },

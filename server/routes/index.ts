@@ -15,6 +15,7 @@ import { memberRoutes } from './members.ts';
 import { openApiRoutes } from './openapi.ts';
 import { projectRoutes } from './projects.ts';
 import { reportRoutes } from './reports.ts';
+import { seriesRoutes } from './series.ts';
 import type { RouteDef } from './route-table.ts';
 import { markGuard, markSharedMiddleware } from './stack-marks.ts';
 import { tokenRoutes } from './tokens.ts';
@@ -36,6 +37,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...reportRoutes(ctx),
     ...accessLinkRoutes(ctx),
     ...commentRoutes(ctx),
+    ...seriesRoutes(ctx),
     ...adminRoutes(ctx),
   ];
   table.push(...openApiRoutes(() => table));

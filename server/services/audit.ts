@@ -9,6 +9,7 @@ export type AuditAction =
   | 'invitation.sent' | 'invitation.revoked'
   | 'token.created' | 'token.revoked'
   | 'access_link.created' | 'access_link.revoked'
+  | 'series.created' | 'series.deleted'
   | 'user.role_changed' | 'user.disabled' | 'user.enabled' | 'user.password_reset';
 
 export interface AuditEntry {

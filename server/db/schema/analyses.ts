@@ -1,6 +1,7 @@
 import { char, index, int, json, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, timestamp } from './columns.ts';
 import { projects } from './projects.ts';
+import { series } from './sharing.ts';
 import { trajectories } from './trajectories.ts';
 import { users } from './users.ts';
 import { RUN_STATUSES, type RunStatusName } from '../../../shared/analysis-run.ts';
@@ -49,9 +50,11 @@ export const reports = mysqlTable('reports', {
 
 export const comments = mysqlTable('comments', {
   id: id(),
-  reportId: ref('report_id').references(() => reports.id, { onDelete: 'cascade' }),
+  /** A comment is on one report or on one series (exactly one of the two). */
+  reportId: int('report_id').references(() => reports.id, { onDelete: 'cascade' }),
+  seriesId: int('series_id').references(() => series.id, { onDelete: 'cascade' }),
   userId: ref('user_id').references(() => users.id, { onDelete: 'cascade' }),
   body: text('body').notNull(),
   createdAt: createdAt(),
-}, (t) => [index('comments_report').on(t.reportId)]);
+}, (t) => [index('comments_report').on(t.reportId), index('comments_series').on(t.seriesId)]);
 

@@ -10,8 +10,14 @@ describe('describeAuditEntry', () => {
     expect(describeAuditEntry(entry('member.role_changed', { userId: 7, from: 'viewer', to: 'owner' }))).toBe('changed member #7 from viewer to owner');
   });
 
+  it('when a series or a link to one is logged, then the words name the series', () => {
+    expect(describeAuditEntry(entry('series.created', { seriesId: 3, name: 'Argon heating' }))).toBe('made the series "Argon heating"');
+    expect(describeAuditEntry(entry('access_link.created', { seriesId: 3 }))).toBe('made an access link to series #3');
+    expect(describeAuditEntry(entry('access_link.revoked', { reportId: 9 }))).toBe('revoked an access link to report #9');
+  });
+
   it('when the action is unknown or a detail is missing, then the code or a question mark shows instead of nothing', () => {
-    expect(describeAuditEntry(entry('series.created', {}))).toBe('series.created');
+    expect(describeAuditEntry(entry('series.renamed', {}))).toBe('series.renamed');
     expect(describeAuditEntry(entry('member.joined', {}))).toBe('joined as ?');
   });
 });

@@ -5,6 +5,11 @@ function text(details: Record<string, unknown>, key: string): string {
   return typeof value === 'string' || typeof value === 'number' ? String(value) : '?';
 }
 
+/** A link shares one report or one series. */
+function linkTarget(details: Record<string, unknown>): string {
+  return 'seriesId' in details ? `series #${text(details, 'seriesId')}` : `report #${text(details, 'reportId')}`;
+}
+
 /** One audit entry in plain words; unknown actions fall back to their code. */
 export function describeAuditEntry(entry: AuditEntry): string {
   const d = entry.details;
@@ -18,8 +23,10 @@ export function describeAuditEntry(entry: AuditEntry): string {
     case 'member.role_changed': return `changed member #${text(d, 'userId')} from ${text(d, 'from')} to ${text(d, 'to')}`;
     case 'member.removed': return `removed member #${text(d, 'userId')} (${text(d, 'role')})`;
     case 'member.left': return 'left the project';
-    case 'access_link.created': return `made an access link to report #${text(d, 'reportId')}`;
-    case 'access_link.revoked': return `revoked an access link to report #${text(d, 'reportId')}`;
+    case 'access_link.created': return `made an access link to ${linkTarget(d)}`;
+    case 'access_link.revoked': return `revoked an access link to ${linkTarget(d)}`;
+    case 'series.created': return `made the series "${text(d, 'name')}"`;
+    case 'series.deleted': return `deleted the series "${text(d, 'name')}"`;
     default: return entry.action;
   }
 }
