@@ -41,7 +41,7 @@ function argonRun(temperatureK: number, reducedDensity: number, seed: number) {
 
 export const DEMO_TRAJECTORIES: DemoTrajectory[] = [
   {
-    project: 'Noble-liquid benchmark', fileName: 'argon-like-40K-solid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'energy'],
+    project: 'Noble-liquid benchmark', fileName: 'argon-like-40K-solid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'sq', 'lindemann', 'energy'],
     metadata: { temperatureK: 40, ensemble: 'NVE', potential: LJ, engine: ENGINE, notes: 'Invented demo run: FCC solid well below melting.' },
     simulate: argonRun(40, 1.05, 11),
   },
@@ -51,7 +51,7 @@ export const DEMO_TRAJECTORIES: DemoTrajectory[] = [
     simulate: argonRun(90, 0.8442, 12),
   },
   {
-    project: 'Noble-liquid benchmark', fileName: 'argon-like-130K-hot-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'lindemann', 'energy'],
+    project: 'Noble-liquid benchmark', fileName: 'argon-like-130K-hot-liquid.extxyz', analyses: ['thermo', 'msd', 'vacf', 'vdos', 'rdf', 'sq', 'lindemann', 'energy'],
     metadata: { temperatureK: 130, ensemble: 'NVE', potential: LJ, engine: ENGINE, notes: 'Invented demo run: hot, less dense liquid.' },
     simulate: argonRun(130, 0.75, 13),
   },

@@ -24,3 +24,12 @@ export const DEMO_PROJECTS = [
     description: 'A box of harmonic diatomics, for sharp VDOS peaks.',
   },
 ];
+
+/** State-point series of the lab: runs of one system compared across temperature. */
+export const DEMO_SERIES = [
+  {
+    project: 'Noble-liquid benchmark',
+    name: 'Argon-like melting: 40, 90 and 130 K',
+    files: ['argon-like-40K-solid.extxyz', 'argon-like-90K-liquid.extxyz', 'argon-like-130K-hot-liquid.extxyz'],
+  },
+];

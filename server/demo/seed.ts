@@ -7,7 +7,8 @@ import { hashPassword } from '../services/passwords.ts';
 import { registerStoredFile } from '../services/trajectories.ts';
 import { objectKeyFor } from '../services/upload-to-store.ts';
 import { DEMO_TRAJECTORIES, toExtxyzBytes } from './demo-trajectories.ts';
-import { DEMO_ACCOUNTS, DEMO_PROJECTS } from './scenario.ts';
+import { DEMO_ACCOUNTS, DEMO_PROJECTS, DEMO_SERIES } from './scenario.ts';
+import { createSeries } from '../services/series/series.ts';
 import { interactionModelSchema } from '../../shared/interaction-model.ts';
 
 export interface SeededDemo {
@@ -53,6 +54,7 @@ export async function seedDemo(ctx: AppContext, log: (m: string) => void): Promi
 }
 
 async function seedRuns(ctx: AppContext, userId: number, projectIds: Map<string, number>, log: (m: string) => void): Promise<void> {
+  const ready = new Map<string, number>();
   for (const demo of DEMO_TRAJECTORIES) {
     const projectId = projectIds.get(demo.project)!;
     const bytes = await toExtxyzBytes(demo.simulate());
@@ -66,7 +68,15 @@ async function seedRuns(ctx: AppContext, userId: number, projectIds: Map<string,
       continue;
     }
     await startRun(ctx, trajectory.id, userId, demo.analyses, {});
+    ready.set(demo.fileName, trajectory.id);
     log(`demo trajectory ${demo.fileName} uploaded; analyses queued`);
+  }
+  // The series starts no runs of its own: the runs just queued have its settings, so it waits for them.
+  for (const demo of DEMO_SERIES) {
+    const trajectoryIds = demo.files.map((f) => ready.get(f)).filter((id): id is number => id !== undefined);
+    if (trajectoryIds.length < 2) continue;
+    await createSeries(ctx, projectIds.get(demo.project)!, userId, { name: demo.name, trajectoryIds });
+    log(`demo series "${demo.name}" made`);
   }
 }
 

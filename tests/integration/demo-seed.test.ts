@@ -1,8 +1,9 @@
 import { eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { analysisRuns, projects, reports, trajectories, users } from '../../server/db/schema/index.ts';
+import { analysisRuns, projects, reports, series, trajectories, users } from '../../server/db/schema/index.ts';
+import { getSeries } from '../../server/services/series/series.ts';
 import { seedDemo } from '../../server/demo/seed.ts';
-import { DEMO_ACCOUNTS, DEMO_PROJECTS } from '../../server/demo/scenario.ts';
+import { DEMO_ACCOUNTS, DEMO_PROJECTS, DEMO_SERIES } from '../../server/demo/scenario.ts';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
 import { createTestApp } from '../support/test-app.ts';
 
@@ -64,6 +65,21 @@ describe('the demo lab seed', () => {
     const diatomics = (byFile.get('model-diatomics-300K.extxyz')!.summary as { thermo: { temperatureK: { mean: number }; degreesOfFreedom: number } }).thermo;
     expect(diatomics.degreesOfFreedom).toBe(3 * 128 - 128 - 3);
     expect(Math.abs(diatomics.temperatureK.mean / 300 - 1)).toBeLessThan(0.05);
+
+    // The three argon runs form a series that started no runs of its own and, by the engine's own
+    // criteria (phase-criteria.ts), names the 40 K run solid and the 90 K and 130 K runs liquid, so
+    // melting is bracketed between 40 and 90 K (LJ argon melts near 84 K at its triple point; FROM MEMORY).
+    expect(runs).toHaveLength(4);
+    const [demoSeries] = await ctx.db.select().from(series).where(inArray(series.projectId, labIds));
+    expect(demoSeries!.name).toBe(DEMO_SERIES[0]!.name);
+    const lab = await getSeries(ctx, demoSeries!.id, { requesterId: null });
+    expect(lab.status).toBe('ready');
+    expect(lab.members.map((m) => m.trajectoryName)).toEqual(DEMO_SERIES[0]!.files);
+    expect(lab.results!.members.map((m) => m.phase.phase), JSON.stringify(lab.results!.members.map((m) => m.phase))).toEqual(['solid', 'liquid', 'liquid']);
+    const melting = lab.results!.melting.brackets[0]!;
+    expect([melting.below?.temperatureK, melting.above?.temperatureK].map((t) => Math.round((t ?? 0) / 10) * 10)).toEqual([40, 90]);
+    expect(lab.results!.caloric.energyKind).toBe('total');
+    expect(lab.results!.caloric.latentHeat).not.toBeNull();
 
     const again = await seedDemo(ctx, () => {});
     await again.ready;
