@@ -10,6 +10,7 @@
  * moves more than half a cell width between stored frames.
  */
 import { cellFramesOf, minimumImage, type CellFrames } from './cell-geometry.ts';
+import { AtomCursor, checkCoordinateShape } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export class AtomSeriesReader {
@@ -19,6 +20,8 @@ export class AtomSeriesReader {
   readonly comPositions: Float64Array | null;
   private readonly comVelocities: Float64Array | null;
   private readonly d = new Float64Array(3);
+  private readonly positionCursor: AtomCursor;
+  private readonly velocityCursor: AtomCursor | null;
 
   constructor(
     private readonly traj: Trajectory,
@@ -27,8 +30,9 @@ export class AtomSeriesReader {
   ) {
     this.nFrames = traj.nFrames;
     this.geometry = cellFramesOf(traj);
-    if (traj.positions.length !== traj.nFrames * traj.nAtoms * 3) throw new Error('Position array length does not match atoms × frames × 3.');
-    if (traj.velocities && traj.velocities.length !== traj.positions.length) throw new Error('Velocity array length does not match positions.');
+    checkCoordinateShape(traj);
+    this.positionCursor = new AtomCursor(traj, 'positions');
+    this.velocityCursor = traj.velocities ? new AtomCursor(traj, 'velocities') : null;
     this.comPositions = null;
     this.comVelocities = null;
     if (removeComDrift) {
@@ -80,21 +84,18 @@ export class AtomSeriesReader {
   }
 
   private rawVelocities(atom: number, out: Float64Array): void {
-    const v = this.traj.velocities as Float32Array;
+    const { data: v, base: p0, stride } = this.velocityCursor!.at(atom);
     const T = this.nFrames;
-    const stride = 3 * this.traj.nAtoms;
     for (let c = 0; c < 3; c++) {
-      let p = 3 * atom + c;
+      let p = p0 + c;
       const base = c * T;
       for (let t = 0; t < T; t++, p += stride) out[base + t] = v[p];
     }
   }
 
   private rawUnwrapped(atom: number, out: Float64Array): void {
-    const x = this.traj.positions;
+    const { data: x, base: p0, stride } = this.positionCursor.at(atom);
     const T = this.nFrames;
-    const stride = 3 * this.traj.nAtoms;
-    const p0 = 3 * atom;
     const geom = this.geometry;
     out[0] = x[p0];
     out[T] = x[p0 + 1];

@@ -23,6 +23,7 @@ import { AVOGADRO_PER_MOL, BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, GRAM_PER_AMU,
 import { fitLine } from './least-squares.ts';
 import { compileModel, FrameEnergyEvaluator } from './pair-energy.ts';
 import { degreesOfFreedomFor, kineticEnergies } from './thermo.ts';
+import { FrameCursor } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 const EV_PER_ENGINE_ENERGY = JOULE_PER_ENGINE_ENERGY / ELEMENTARY_CHARGE_C;
@@ -162,9 +163,10 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
   const v = traj.velocities;
   if (v) {
     kineticSource = 'stored velocities';
+    const velocityFrames = new FrameCursor(traj, 'velocities');
     for (let f = 0; f < T; f++) {
       let xx = 0, yy = 0, zz = 0, xy = 0, xz = 0, yz = 0, px = 0, py = 0, pz = 0;
-      const base = 3 * N * f;
+      const { data: v, offset: base } = velocityFrames.frame(f);
       for (let i = 0; i < N; i++) {
         const p = base + 3 * i, m = masses[i];
         const vx = v[p], vy = v[p + 1], vz = v[p + 2];
@@ -224,10 +226,12 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
       pressureTensorBar = Array.from({ length: 6 }, () => new Float64Array(T));
     }
     let tailU = 0, tailP = 0;
+    const positionFrames = new FrameCursor(traj, 'positions');
     for (let f = 0; f < T; f++) {
       let e: ReturnType<FrameEnergyEvaluator['evaluate']>;
       try {
-        e = evaluator.evaluate(traj.positions, 3 * N * f, periodic ? traj.cells : null, 9 * f);
+        const here = positionFrames.frame(f);
+        e = evaluator.evaluate(here.data, here.offset, periodic ? traj.cells : null, 9 * f);
       } catch (err) {
         throw new Error(`frame ${f + 1}: ${err instanceof Error ? err.message : String(err)}`);
       }

@@ -25,6 +25,7 @@ import { AtomSeriesReader } from './atom-series.ts';
 import { selectAtoms } from './atom-groups.ts';
 import { cellFramesOf } from './cell-geometry.ts';
 import { nearestNeighbourDistance } from './nearest-neighbour.ts';
+import { FrameCursor } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export const BULK_MELTING_THRESHOLD = 0.1;
@@ -112,17 +113,19 @@ function perAtomDisplacement(traj: Trajectory, masses: Float64Array, atoms: Int3
 
 /** The pair form over every pair of a finite cluster. */
 function allPairsIndex(traj: Trajectory, atoms: Int32Array, budget: number): { perAtom: Float64Array; index: number; pairs: number; stride: number; frames: number } {
-  const n = atoms.length, N = traj.nAtoms, T = traj.nFrames, x = traj.positions;
+  const n = atoms.length, T = traj.nFrames;
+  const cursor = new FrameCursor(traj, 'positions');
   const nPairs = (n * (n - 1)) / 2;
   const stride = Math.max(1, Math.ceil((nPairs * T) / budget));
   const sum = new Float64Array(nPairs), sum2 = new Float64Array(nPairs);
   let frames = 0;
   for (let f = 0; f < T; f += stride) {
     let p = 0;
+    const { data: x, offset } = cursor.frame(f);
     for (let a = 0; a < n; a++) {
-      const pa = 3 * (N * f + atoms[a]);
+      const pa = offset + 3 * atoms[a];
       for (let b = a + 1; b < n; b++, p++) {
-        const pb = 3 * (N * f + atoms[b]);
+        const pb = offset + 3 * atoms[b];
         const r = Math.hypot(x[pb] - x[pa], x[pb + 1] - x[pa + 1], x[pb + 2] - x[pa + 2]);
         sum[p] += r;
         sum2[p] += r * r;

@@ -8,6 +8,7 @@
  * which holds the first shell and needs no density (clusters have none).
  */
 import { cellFramesOf, minimumImage } from './cell-geometry.ts';
+import { FrameCursor } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export const SAMPLE_ATOMS = 96;
@@ -62,18 +63,20 @@ export function nearestNeighbourDistance(traj: Trajectory, atoms: Int32Array): n
 /** Calls back with every distance from a sampled atom to every other selected atom; `last` marks the end of one atom's row. */
 function sampledDistances(traj: Trajectory, atoms: Int32Array, each: (r: number, last: boolean) => void): void {
   const geom = cellFramesOf(traj);
-  const x = traj.positions, N = traj.nAtoms, T = traj.nFrames, n = atoms.length;
+  const T = traj.nFrames, n = atoms.length;
+  const cursor = new FrameCursor(traj, 'positions');
   const sampleStep = Math.max(1, Math.floor(n / SAMPLE_ATOMS));
   const frameStep = Math.max(1, Math.floor(T / SAMPLE_FRAMES));
   const d = new Float64Array(3);
   for (let f = 0; f < T; f += frameStep) {
+    const { data: x, offset } = cursor.frame(f);
     for (let s = 0; s < n; s += sampleStep) {
       const i = atoms[s];
-      const pi = 3 * (N * f + i);
+      const pi = offset + 3 * i;
       for (let k = 0; k < n; k++) {
         const j = atoms[k];
         if (j !== i) {
-          const pj = 3 * (N * f + j);
+          const pj = offset + 3 * j;
           d[0] = x[pj] - x[pi];
           d[1] = x[pj + 1] - x[pi + 1];
           d[2] = x[pj + 2] - x[pi + 2];

@@ -21,6 +21,7 @@ import { cellFramesOf } from './cell-geometry.ts';
 import { PairHistogram, type PairMethod } from './pair-histogram.ts';
 import { firstShell, independentFrames } from './rdf-shells.ts';
 import { minimumImage } from './cell-geometry.ts';
+import { FrameCursor } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export interface RdfOptions {
@@ -121,10 +122,12 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
   const step = new Float64Array(3);
   let stepSquares = 0, steps = 0, previous = -1;
 
+  const cursor = new FrameCursor(traj, 'positions');
   for (let f = 0; f < T; f += stride) {
     const o = 9 * f;
     frameHist.fill(0);
-    histogram.addFrame(traj.positions, 3 * N * f, [geom.cells[o], geom.cells[o + 4], geom.cells[o + 8]], frameHist);
+    const here = cursor.frame(f);
+    histogram.addFrame(here.data, here.offset, [geom.cells[o], geom.cells[o + 4], geom.cells[o + 8]], frameHist);
     const V = geom.volumes[f];
     densitySum += N / V;
     const block = Math.min(nBlocks - 1, Math.floor((frames * nBlocks) / framesToUse));
@@ -154,11 +157,12 @@ export function rdf(traj: Trajectory, options: RdfOptions = {}, onProgress?: (fr
       blockTotalG[block][k] += c / ideal;
     }
     if (previous >= 0) {
+      const before = cursor.frame(previous), x = here.data, y = before.data;
       for (let i = 0; i < N; i += moverStep) {
-        const p = 3 * (N * f + i), q = 3 * (N * previous + i);
-        step[0] = traj.positions[p] - traj.positions[q];
-        step[1] = traj.positions[p + 1] - traj.positions[q + 1];
-        step[2] = traj.positions[p + 2] - traj.positions[q + 2];
+        const p = here.offset + 3 * i, q = before.offset + 3 * i;
+        step[0] = x[p] - y[q];
+        step[1] = x[p + 1] - y[q + 1];
+        step[2] = x[p + 2] - y[q + 2];
         minimumImage(geom, f, step);
         stepSquares += step[0] ** 2 + step[1] ** 2 + step[2] ** 2;
         steps++;

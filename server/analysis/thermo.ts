@@ -20,6 +20,7 @@ import { blockAverage, type BlockAverage } from './block-average.ts';
 import { degreesOfFreedom } from './degrees-of-freedom.ts';
 import { statedTemperatureWarning } from './temperature-choice.ts';
 import { cellFramesOf, minimumImage } from './cell-geometry.ts';
+import { FrameCursor } from './coordinate-blocks.ts';
 import { BOLTZMANN_ENGINE, GRAM_PER_AMU, CM3_PER_A3, JOULE_PER_ENGINE_ENERGY, ELEMENTARY_CHARGE_C } from './constants.ts';
 import { frameIntervalPs } from './frame-timing.ts';
 import type { Trajectory } from './trajectory.ts';
@@ -135,23 +136,26 @@ export function frameKineticEnergies(traj: Trajectory, masses: Float64Array, rem
   const frames = v ? Int32Array.from({ length: T }, (_, f) => f) : Int32Array.from({ length: T - 2 }, (_, f) => f + 1);
   const dt = v ? 0 : frameIntervalPs(traj);
   const geom = v ? null : cellFramesOf(traj);
-  const x = traj.positions;
+  const cursor = new FrameCursor(traj, v ? 'velocities' : 'positions');
   const step = new Float64Array(3), vel = new Float64Array(3);
   let totalMass = 0;
   for (let i = 0; i < N; i++) totalMass += masses[i];
   const kinetic = new Float64Array(frames.length);
   frames.forEach((f, k) => {
     let sum = 0, px = 0, py = 0, pz = 0;
+    // Frame by frame (a block at a time when the coordinates are not in memory).
+    const here = cursor.frame(f);
+    const before = v ? here : cursor.frame(f - 1), after = v ? here : cursor.frame(f + 1);
     for (let i = 0; i < N; i++) {
       if (v) {
-        const p = 3 * (N * f + i);
-        vel[0] = v[p], vel[1] = v[p + 1], vel[2] = v[p + 2];
+        const p = here.offset + 3 * i, data = here.data;
+        vel[0] = data[p], vel[1] = data[p + 1], vel[2] = data[p + 2];
       } else {
         vel.fill(0);
-        for (const [a, b] of [[f - 1, f], [f, f + 1]]) {
-          const pa = 3 * (N * a + i), pb = 3 * (N * b + i);
-          step[0] = x[pb] - x[pa], step[1] = x[pb + 1] - x[pa + 1], step[2] = x[pb + 2] - x[pa + 2];
-          if (geom) minimumImage(geom, b, step);
+        for (const [a, b, fb] of [[before, here, f], [here, after, f + 1]] as const) {
+          const pa = a.offset + 3 * i, pb = b.offset + 3 * i, xa = a.data, xb = b.data;
+          step[0] = xb[pb] - xa[pa], step[1] = xb[pb + 1] - xa[pa + 1], step[2] = xb[pb + 2] - xa[pa + 2];
+          if (geom) minimumImage(geom, fb, step);
           for (let c = 0; c < 3; c++) vel[c] += step[c] / (2 * dt);
         }
       }
@@ -177,17 +181,18 @@ export function kineticEnergies(traj: Trajectory, masses: Float64Array, onProgre
   const out = new Float64Array(T);
   const dt = frameIntervalPs(traj);
   const geom = cellFramesOf(traj);
-  const x = traj.positions;
+  const cursor = new FrameCursor(traj, 'positions');
   const d = new Float64Array(3);
   for (let f = 0; f < T; f++) {
     const a = Math.max(0, f - 1), b = Math.min(T - 1, f + 1);
     const span = (b - a) * dt;
+    const { data: xa, offset: oa } = cursor.frame(a), { data: xb, offset: ob } = cursor.frame(b);
     let sum = 0;
     for (let i = 0; i < N; i++) {
-      const pa = 3 * (N * a + i), pb = 3 * (N * b + i);
-      d[0] = x[pb] - x[pa];
-      d[1] = x[pb + 1] - x[pa + 1];
-      d[2] = x[pb + 2] - x[pa + 2];
+      const pa = oa + 3 * i, pb = ob + 3 * i;
+      d[0] = xb[pb] - xa[pa];
+      d[1] = xb[pb + 1] - xa[pa + 1];
+      d[2] = xb[pb + 2] - xa[pa + 2];
       if (geom) minimumImage(geom, f, d);
       sum += (masses[i] * (d[0] * d[0] + d[1] * d[1] + d[2] * d[2])) / (span * span);
     }

@@ -3,6 +3,8 @@
  * engine's units (Å, ps, amu). Float32 storage keeps a 500-atom × 4000-frame
  * run at 24 MB; every long sum in the engine accumulates in Float64.
  */
+import type { CoordinateBlocks } from './coordinate-blocks.ts';
+
 export interface Trajectory {
   nAtoms: number;
   nFrames: number;
@@ -29,4 +31,11 @@ export interface Trajectory {
    * file's; the energy analysis converts the ones the user mapped.
    */
   observables?: Record<string, Float64Array>;
+  /**
+   * Set when positions and velocities are too big to hold: they are then
+   * read from these blocks, and `positions` (and `velocities`, when the
+   * file had them) are empty arrays that only say what exists. Engine code
+   * reads coordinates through AtomCursor and FrameCursor, which serve both.
+   */
+  blocks?: CoordinateBlocks;
 }

@@ -3,7 +3,9 @@ import { createReadStream } from 'node:fs';
 import { basename } from 'node:path';
 import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import { runAnalyses, type AnalysisRun, type SimulationFacts } from '../analysis/index.ts';
-import { assembleTrajectory } from '../formats/assemble.ts';
+import { assembleTrajectory, type AssembleSpill } from '../formats/assemble.ts';
+import { IN_MEMORY_COORDINATE_BYTES, withScratch } from '../out-of-core/scratch.ts';
+import { thinBlocks } from '../out-of-core/thin.ts';
 import { inspectTrajectory, type InspectResult } from '../formats/inspect.ts';
 import { readFrames } from '../formats/read-frames.ts';
 import { openTrajectory } from '../formats/open-trajectory.ts';
@@ -88,7 +90,7 @@ function choosesFrames(params: AnalysisParamsInput): boolean {
  * inspection pass), then plan on what was read. Only a run longer than the
  * automatic stride limit is thinned afterwards.
  */
-async function readWhole(path: string, options: AnalyzeFileOptions): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
+async function readWhole(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
   const name = basename(path);
   const opened = await openTrajectory(path, name);
   const timeStepPs = options.timeStep !== undefined ? options.timeStep * TIME_TO_PS[options.timeUnit] : undefined;
@@ -96,7 +98,7 @@ async function readWhole(path: string, options: AnalyzeFileOptions): Promise<{ t
   try {
     traj = await assembleTrajectory(opened.frames, {
       length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit, timeStepPs, boundary: options.boundary,
-    }, undefined, name);
+    }, undefined, name, spill);
   } catch (err) {
     if (err instanceof TrajectoryFormatError && /frames carry no time/.test(err.message)) throw new Error(`${name} states no time between frames: give it with --dt-ps`);
     throw err;
@@ -114,7 +116,9 @@ async function readWhole(path: string, options: AnalyzeFileOptions): Promise<{ t
     throw err;
   }
   const info = { format: opened.format, atoms: traj.nAtoms, frames: traj.nFrames };
-  return { traj: plan.selection.stride > 1 ? everyNth(traj, plan.selection.stride) : traj, plan, info };
+  const stride = plan.selection.stride;
+  if (stride > 1) traj = traj.blocks ? await thinBlocks(traj, stride, spill, name) : everyNth(traj, stride);
+  return { traj, plan, info };
 }
 
 /** Every stride-th frame of an assembled trajectory. */
@@ -134,7 +138,7 @@ function everyNth(t: Trajectory, stride: number): Trajectory {
 }
 
 /** The chosen frames only: counted by an inspection pass first, then read again stepping over the rest without parsing them. */
-async function readSelected(path: string, options: AnalyzeFileOptions): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
+async function readSelected(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
   const name = basename(path);
   const { plan, info, facts } = await planFile(path, options);
   const { selection } = plan;
@@ -142,15 +146,20 @@ async function readSelected(path: string, options: AnalyzeFileOptions): Promise<
   const traj = await assembleTrajectory(frames, {
     length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit,
     timeStepPs: facts.framePs * selection.stride, boundary: options.boundary,
-  }, { atoms: info.atoms, frames: selection.frames }, name);
+  }, { atoms: info.atoms, frames: selection.frames }, name, spill);
   return { traj, plan, info: { format: info.format, atoms: info.atoms, frames: info.frames } };
 }
 
 /** Reads any supported file, runs the same engine the server runs on the selected frames, and returns the report document. */
 export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: FileInfo }> {
+  // Coordinates beyond the memory budget wait in a scratch file that goes when the report is made.
+  return withScratch(IN_MEMORY_COORDINATE_BYTES, (spill) => analyzeWithin(path, options, spill));
+}
+
+async function analyzeWithin(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ report: LocalReport; info: FileInfo }> {
   const name = basename(path);
   const [{ traj, plan, info }, inputSha256] = await Promise.all([
-    choosesFrames(options.params) ? readSelected(path, options) : readWhole(path, options), sha256Of(path),
+    choosesFrames(options.params) ? readSelected(path, options, spill) : readWhole(path, options, spill), sha256Of(path),
   ]);
   const { selection, params } = plan;
   const run = runAnalyses(traj, options.analyses, params, undefined, options.facts);

@@ -5,6 +5,7 @@
  */
 import { TrajectoryFormatError, type Frame } from './frame.ts';
 import type { Trajectory } from '../analysis/trajectory.ts';
+import { BlockFileReader, BlockFileWriter, type BlockSizes } from '../out-of-core/block-file.ts';
 import {
   LENGTH_TO_ANGSTROM,
   TIME_TO_PS,
@@ -29,11 +30,25 @@ export interface AssembleExpected {
   frames: number;
 }
 
+/** Where coordinates go once they outgrow memory. */
+export interface AssembleSpill {
+  /** Folder for the scratch file; the caller creates it and removes it after the engine is done. */
+  directory: string;
+  /** Positions and velocities beyond this many bytes go to the scratch file instead of memory. */
+  memoryBytes: number;
+  /** Block and chunk sizes other than the scratch file's defaults. */
+  sizes?: BlockSizes;
+}
+
+/** An empty marker array, one per use: a trajectory's arrays may be moved to another thread. */
+const empty = () => new Float32Array(0);
+
 export async function assembleTrajectory(
   frames: AsyncIterable<Frame> | Iterable<Frame>,
   units: AssembleUnits,
   expected?: AssembleExpected,
   file = 'trajectory',
+  spill?: AssembleSpill,
 ): Promise<Trajectory> {
   const lengthFactor = LENGTH_TO_ANGSTROM[units.length];
   const timeFactor = TIME_TO_PS[units.time];
@@ -49,7 +64,7 @@ export async function assembleTrajectory(
   let capacity = expected?.frames ?? 0;
   let species: string[] = [];
   let lastSpecies: readonly string[] | null = null;
-  let positions: Float32Array = new Float32Array(nAtoms > 0 ? capacity * nAtoms * 3 : 0);
+  let positions: Float32Array = empty();
   let velocities: Float32Array | undefined;
   let cells: Float64Array | null = null;
   let times: Float64Array = new Float64Array(capacity);
@@ -57,99 +72,130 @@ export async function assembleTrajectory(
   let allPeriodic = true;
   let count = 0;
   const observables = new Map<string, Float64Array>();
+  /** Set once coordinates go to a scratch file; `positions` and `velocities` are then empty markers. */
+  let writer: BlockFileWriter | null = null;
+  const coordinateBytes = (frameCount: number, withVelocities: boolean) => frameCount * nAtoms * 12 * (withVelocities ? 2 : 1);
+  /** Moves the frames held so far into a new scratch file. */
+  const startSpilling = (dir: string): BlockFileWriter => {
+    const w = new BlockFileWriter(dir, nAtoms, velocities !== undefined, spill?.sizes);
+    const n3 = nAtoms * 3;
+    for (let k = 0; k < count; k++) {
+      w.positions.set(positions.subarray(k * n3, (k + 1) * n3), w.slot());
+      if (velocities) w.velocities!.set(velocities.subarray(k * n3, (k + 1) * n3), w.slot());
+      w.commit();
+    }
+    positions = empty();
+    if (velocities) velocities = empty();
+    return w;
+  };
 
-  for await (const frame of frames) {
-    const where = { file, frame: frame.index };
-    const n = frame.species.length;
-    if (count === 0) {
-      if (nAtoms >= 0 && n !== nAtoms) {
-        throw new TrajectoryFormatError(`frame has ${n} atoms but inspection found ${nAtoms}`, where);
-      }
-      nAtoms = n;
-      species = frame.species.slice();
-      if (positions.length === 0) {
-        capacity = Math.max(capacity, 16);
-        positions = new Float32Array(capacity * n * 3);
-        times = new Float64Array(capacity);
-      }
-      if (frame.velocities) velocities = new Float32Array(capacity * n * 3);
-      if (frame.cell) cells = new Float64Array(capacity * 9);
-      timed = frame.time !== undefined;
-      if (!timed && units.timeStepPs === undefined) {
-        throw new TrajectoryFormatError('frames carry no time; a time step (timeStepPs) is needed', where);
-      }
-    } else if (n !== nAtoms) {
-      throw new TrajectoryFormatError(`frame has ${n} atoms but the first frame has ${nAtoms}`, where);
-    }
-    // Readers hand over the same species array while it does not change, so a full comparison is rare.
-    if (frame.species !== lastSpecies) {
-      if (count > 0) {
-        const atom = species.findIndex((s, k) => s !== frame.species[k]);
-        if (atom >= 0) throw new TrajectoryFormatError(`species of atom ${atom + 1} changes from ${species[atom]} to ${frame.species[atom]}; atoms must keep their species and order`, where);
-      }
-      lastSpecies = frame.species;
-    }
-    if (count >= capacity) {
-      if (expected) throw new TrajectoryFormatError(`more frames than the ${expected.frames} inspection found`, where);
-      capacity *= 2;
-      positions = grow32(positions, capacity * nAtoms * 3);
-      if (velocities) velocities = grow32(velocities, capacity * nAtoms * 3);
-      if (cells) cells = grow64(cells, capacity * 9);
-      times = grow64(times, capacity);
-    }
-    const base = count * nAtoms * 3;
-    scaleInto(positions, base, frame.positions, lengthFactor);
-    if (velocities) {
-      if (!frame.velocities) throw new TrajectoryFormatError('frame has no velocities but the first frame has', where);
-      scaleInto(velocities, base, frame.velocities, velocityFactor);
-    }
-    if (cells) {
-      if (!frame.cell) throw new TrajectoryFormatError('frame has no cell but the first frame has one', where);
-      for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;
-    }
-    if (frame.pbc && !frame.pbc.every(Boolean)) allPeriodic = false;
-    if (frame.values) {
-      for (const key in frame.values) {
-        let series = observables.get(key);
-        if (!series) {
-          if (observables.size >= 64) continue;
-          series = new Float64Array(capacity).fill(NaN);
-          observables.set(key, series);
-        } else if (series.length < capacity) {
-          const filled = series.length;
-          series = grow64(series, capacity);
-          series.fill(NaN, filled);
-          observables.set(key, series);
+  let boundary: Trajectory['boundary'] = 'none';
+  try {
+    for await (const frame of frames) {
+      const where = { file, frame: frame.index };
+      const n = frame.species.length;
+      if (count === 0) {
+        if (nAtoms >= 0 && n !== nAtoms) {
+          throw new TrajectoryFormatError(`frame has ${n} atoms but inspection found ${nAtoms}`, where);
         }
-        series[count] = frame.values[key];
+        nAtoms = n;
+        species = frame.species.slice();
+        capacity = expected ? expected.frames : 16;
+        times = new Float64Array(capacity);
+        if (spill && expected && coordinateBytes(expected.frames, frame.velocities !== undefined) > spill.memoryBytes) {
+          if (frame.velocities) velocities = empty();
+          writer = startSpilling(spill.directory);
+        } else {
+          positions = new Float32Array(capacity * n * 3);
+          if (frame.velocities) velocities = new Float32Array(capacity * n * 3);
+        }
+        if (frame.cell) cells = new Float64Array(capacity * 9);
+        timed = frame.time !== undefined;
+        if (!timed && units.timeStepPs === undefined) {
+          throw new TrajectoryFormatError('frames carry no time; a time step (timeStepPs) is needed', where);
+        }
+      } else if (n !== nAtoms) {
+        throw new TrajectoryFormatError(`frame has ${n} atoms but the first frame has ${nAtoms}`, where);
       }
+      // Readers hand over the same species array while it does not change, so a full comparison is rare.
+      if (frame.species !== lastSpecies) {
+        if (count > 0) {
+          const atom = species.findIndex((s, k) => s !== frame.species[k]);
+          if (atom >= 0) throw new TrajectoryFormatError(`species of atom ${atom + 1} changes from ${species[atom]} to ${frame.species[atom]}; atoms must keep their species and order`, where);
+        }
+        lastSpecies = frame.species;
+      }
+      if (count >= capacity) {
+        if (expected) throw new TrajectoryFormatError(`more frames than the ${expected.frames} inspection found`, where);
+        capacity *= 2;
+        if (!writer && spill && coordinateBytes(capacity, velocities !== undefined) > spill.memoryBytes) writer = startSpilling(spill.directory);
+        if (!writer) {
+          positions = grow32(positions, capacity * nAtoms * 3);
+          if (velocities) velocities = grow32(velocities, capacity * nAtoms * 3);
+        }
+        if (cells) cells = grow64(cells, capacity * 9);
+        times = grow64(times, capacity);
+      }
+      const base = writer ? writer.slot() : count * nAtoms * 3;
+      scaleInto(writer ? writer.positions : positions, base, frame.positions, lengthFactor);
+      if (velocities) {
+        if (!frame.velocities) throw new TrajectoryFormatError('frame has no velocities but the first frame has', where);
+        scaleInto(writer ? writer.velocities! : velocities, base, frame.velocities, velocityFactor);
+      }
+      if (cells) {
+        if (!frame.cell) throw new TrajectoryFormatError('frame has no cell but the first frame has one', where);
+        for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;
+      }
+      if (frame.pbc && !frame.pbc.every(Boolean)) allPeriodic = false;
+      if (frame.values) {
+        for (const key in frame.values) {
+          let series = observables.get(key);
+          if (!series) {
+            if (observables.size >= 64) continue;
+            series = new Float64Array(capacity).fill(NaN);
+            observables.set(key, series);
+          } else if (series.length < capacity) {
+            const filled = series.length;
+            series = grow64(series, capacity);
+            series.fill(NaN, filled);
+            observables.set(key, series);
+          }
+          series[count] = frame.values[key];
+        }
+      }
+      if (timed) {
+        if (frame.time === undefined) throw new TrajectoryFormatError('frame has no time but the first frame has one', where);
+        times[count] = frame.time * timeFactor;
+      } else {
+        times[count] = count * units.timeStepPs!;
+      }
+      writer?.commit();
+      count++;
     }
-    if (timed) {
-      if (frame.time === undefined) throw new TrajectoryFormatError('frame has no time but the first frame has one', where);
-      times[count] = frame.time * timeFactor;
-    } else {
-      times[count] = count * units.timeStepPs!;
+    if (count === 0) throw new TrajectoryFormatError('no frames to assemble', { file });
+    if (expected && count !== expected.frames) {
+      throw new TrajectoryFormatError(`found ${count} frames but inspection found ${expected.frames}`, { file });
     }
-    count++;
-  }
-  if (count === 0) throw new TrajectoryFormatError('no frames to assemble', { file });
-  if (expected && count !== expected.frames) {
-    throw new TrajectoryFormatError(`found ${count} frames but inspection found ${expected.frames}`, { file });
-  }
-  const boundary = units.boundary ?? (cells && allPeriodic ? 'periodic' : 'none');
-  if (boundary === 'periodic' && !cells) {
-    throw new TrajectoryFormatError('periodic boundary requested but the trajectory has no cell', { file });
+    boundary = units.boundary ?? (cells && allPeriodic ? 'periodic' : 'none');
+    if (boundary === 'periodic' && !cells) {
+      throw new TrajectoryFormatError('periodic boundary requested but the trajectory has no cell', { file });
+    }
+  } catch (err) {
+    writer?.abandon();
+    throw err;
   }
   const trajectory: Trajectory = {
     nAtoms,
     nFrames: count,
     species,
-    positions: count === capacity ? positions : positions.slice(0, count * nAtoms * 3),
+    // A view, not a copy: trimming would briefly hold both.
+    positions: writer ? empty() : positions.subarray(0, count * nAtoms * 3),
     cells: cells ? (count === capacity ? cells : cells.slice(0, count * 9)) : null,
     times: count === capacity ? times : times.slice(0, count),
     boundary,
   };
-  if (velocities) trajectory.velocities = count === capacity ? velocities : velocities.slice(0, count * nAtoms * 3);
+  if (velocities) trajectory.velocities = writer ? empty() : velocities.subarray(0, count * nAtoms * 3);
+  if (writer) trajectory.blocks = new BlockFileReader(writer.finish());
   if (observables.size > 0) {
     trajectory.observables = {};
     for (const [key, series] of observables) {

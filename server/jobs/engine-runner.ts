@@ -7,6 +7,7 @@
 import { Worker } from 'node:worker_threads';
 import type { AnalysisRun } from '../analysis/index.ts';
 import type { EngineReply, EngineRequest } from './engine-messages.ts';
+import { BlockFileReader } from '../out-of-core/block-file.ts';
 
 const entry = new URL('./engine-thread-entry.mjs', import.meta.url);
 
@@ -32,6 +33,14 @@ function transferables(request: EngineRequest): ArrayBuffer[] {
   const buffers = new Set<ArrayBuffer>();
   for (const a of arrays) if (a && a.buffer instanceof ArrayBuffer) buffers.add(a.buffer);
   return [...buffers];
+}
+
+/** A trajectory read from a scratch file travels as the file's layout; the engine thread opens it itself. */
+function posted(request: EngineRequest): EngineRequest {
+  const { blocks, ...trajectory } = request.trajectory;
+  if (!blocks) return request;
+  if (!(blocks instanceof BlockFileReader)) throw new Error('only coordinates in a scratch file can go to the engine thread');
+  return { ...request, trajectory, blockFile: blocks.layout };
 }
 
 /**
@@ -63,7 +72,7 @@ export async function runInEngineThread(request: EngineRequest, watch: EngineWat
       timer = setTimeout(tick, watch.checkEveryMs);
       onAbort = () => watch.check(fraction).catch(reject);
       watch.signal?.addEventListener('abort', onAbort, { once: true });
-      worker.postMessage(request, transferables(request));
+      worker.postMessage(posted(request), transferables(request));
     });
   } finally {
     clearTimeout(timer);

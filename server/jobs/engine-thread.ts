@@ -7,6 +7,7 @@
 import { parentPort } from 'node:worker_threads';
 import { runAnalyses, type AnalysisRun } from '../analysis/index.ts';
 import type { EngineReply, EngineRequest } from './engine-messages.ts';
+import { BlockFileReader } from '../out-of-core/block-file.ts';
 
 const PROGRESS_EVERY_MS = 200;
 
@@ -20,7 +21,8 @@ function merge(a: AnalysisRun, b: AnalysisRun): AnalysisRun {
 }
 
 function run(request: EngineRequest): AnalysisRun {
-  const { trajectory, stages, params, facts } = request;
+  const { stages, params, facts } = request;
+  const trajectory = request.blockFile ? { ...request.trajectory, blocks: new BlockFileReader(request.blockFile) } : request.trajectory;
   let result: AnalysisRun | null = null;
   let lastPost = 0;
   stages.forEach((stage, i) => {

@@ -84,4 +84,21 @@ describe('the job worker (BullMQ in worker threads)', () => {
     expect(Object.keys(curves).sort()).toEqual(['msd', 'rdf', 'thermo', 'vacf']);
     expect(curves['msd']!.columns[0]).toBe('lag');
   });
+
+  it('when a worker may hold no coordinates in memory, then the run reads them from its scratch file and reports exactly what the in-memory run reports', async () => {
+    const { bytes } = await lennardJonesExtxyz();
+    const id = await storedTrajectory('scratch.extxyz', bytes);
+    await pollUntil(() => rowOf(id), (r) => r.status !== 'inspecting');
+    const readRun = async (runId: number) => (await ctx.db.select().from(analysisRuns).where(eq(analysisRuns.id, runId)))[0]!;
+    const summaryOf = async () => {
+      const run = await startRun(ctx, id, userId, ['thermo', 'msd', 'vacf', 'vdos', 'rdf'], {});
+      const done = await pollUntil(() => readRun(run.id), (r) => r.status === 'done' || r.status === 'failed', 120_000);
+      expect(done.error).toBeNull();
+      return (await ctx.db.select().from(reports).where(eq(reports.id, done.reportId!)))[0]!.summary;
+    };
+    const inMemory = await summaryOf();
+    await worker.close();
+    worker = await startWorker({ ...testApp.config, ANALYSIS_IN_MEMORY_BYTES: 0 }, ctx.log);
+    expect(await summaryOf()).toEqual(inMemory);
+  });
 });

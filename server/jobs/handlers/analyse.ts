@@ -5,7 +5,8 @@ import { reportTitle } from '../../../shared/report-title.ts';
 import type { AppContext } from '../../context.ts';
 import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
-import { assembleTrajectory } from '../../formats/assemble.ts';
+import { assembleTrajectory, type AssembleSpill } from '../../formats/assemble.ts';
+import { withScratch } from '../../out-of-core/scratch.ts';
 import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '../../formats/units.ts';
 import { claimRun, completeRun, failRun, recordProgress, releaseRun, RunLost, runLostReason } from '../../services/analysis-runs.ts';
 import { trajectoryFacts } from '../../services/run-costs.ts';
@@ -55,16 +56,19 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     const params = analysisParamsSchema.parse(run.params);
     const selection = selectFrames(trajectory.frames ?? 0, trajectoryFacts(trajectory).framePs, params);
     if ('problem' in selection) throw new UnrecoverableError(selection.problem);
-    const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f));
     const stages = STAGES.map((s) => s.filter((k) => run.analyses.includes(k))).filter((s) => s.length > 0);
     if (stages.length === 0) throw new UnrecoverableError('No analysis was selected.');
-    // The engine runs in its own thread; this one checks for a cancel or a
-    // shutdown every half second of its work and ends it on the spot.
     const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
-    const result = await runInEngineThread({ trajectory: traj, stages, params, facts }, {
-      checkEveryMs: CHECK_EVERY_MS,
-      signal: attempt.signal,
-      check: (f) => checkpoint(LOAD_SHARE + (100 - LOAD_SHARE - 5) * f, true),
+    // Coordinates beyond the memory budget wait in a scratch file for the engine, removed once it is done.
+    const result = await withScratch(ctx.config.ANALYSIS_IN_MEMORY_BYTES, async (spill) => {
+      const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f), spill);
+      // The engine runs in its own thread; this one checks for a cancel or a
+      // shutdown every half second of its work and ends it on the spot.
+      return runInEngineThread({ trajectory: traj, stages, params, facts }, {
+        checkEveryMs: CHECK_EVERY_MS,
+        signal: attempt.signal,
+        check: (f) => checkpoint(LOAD_SHARE + (100 - LOAD_SHARE - 5) * f, true),
+      });
     });
     await checkpoint(96, true);
     curvesKey = curvesKeyFor(trajectory.objectKey, runId);
@@ -129,7 +133,7 @@ function framesDescription(s: FrameSelection, discardPs: number) {
 }
 
 /** The selected frames in the engine's units, from the binary frame store (no text is parsed) or, for older uploads, the file. */
-async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: FrameSelection, progress: (fraction: number) => Promise<void>) {
+async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: FrameSelection, progress: (fraction: number) => Promise<void>, spill: AssembleSpill) {
   let seen = 0;
   async function* counted(): AsyncGenerator<Frame> {
     for await (const frame of storedFrames(ctx, row, { from: selection.from, to: selection.to, stride: selection.stride })) {
@@ -142,5 +146,5 @@ async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: Fr
     length: row.lengthUnit as LengthUnit, time: row.timeUnit as TimeUnit, velocity: row.velocityUnit as VelocityUnit,
     // Without times in the file, frames are the stated interval apart, times the stride.
     timeStepPs: framePs === undefined ? undefined : framePs * selection.stride, boundary: row.boundary,
-  }, row.atoms ? { atoms: row.atoms, frames: selection.frames } : undefined, row.name);
+  }, row.atoms ? { atoms: row.atoms, frames: selection.frames } : undefined, row.name, spill);
 }
