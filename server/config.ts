@@ -34,6 +34,15 @@ const configSchema = z.object({
   DECOMPRESSED_MAX_BYTES: bytes.default(20 * 1024 ** 3),
   DECOMPRESSION_MAX_RATIO: z.coerce.number().positive().default(1000),
   /**
+   * Where jobs keep temporary files (H5MD arriving as a stream or inside
+   * gzip/zip is copied to disk, as HDF5 needs random access): one folder
+   * per job, removed when the job ends however it ends. Default: the
+   * system's temp folder.
+   */
+  JOB_TEMP_DIR: z.string().min(1).optional(),
+  /** Most bytes one job may write to its temp folder; counted with the decompressed size. */
+  JOB_TEMP_MAX_BYTES: bytes.default(4 * 1024 ** 3),
+  /**
    * Where jobs run: `process` starts a worker as a child process of the web
    * server (a crash or out-of-memory in a job cannot take the API down),
    * `in-process` runs it inside the web process, `off` leaves jobs to

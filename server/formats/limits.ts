@@ -12,6 +12,12 @@ export interface ReaderLimits {
   maxCompressionRatio?: number;
   /** Longest text line accepted; a longer one means binary data or a corrupt file. */
   maxLineBytes?: number;
+  /**
+   * Most bytes one temporary copy may take on disk: H5MD (HDF5 needs random
+   * access) that arrives as a stream or inside gzip/zip is copied to a temp
+   * file first. Counted with the decompressed size, so both limits hold.
+   */
+  maxTempFileBytes?: number;
   /** Where H5MD data that arrives as a stream is spooled (defaults to the OS temp dir). */
   tempDir?: string;
 }
@@ -23,11 +29,12 @@ export const DEFAULT_LIMITS: ResolvedLimits = {
   maxDecompressedBytes: 20 * 1024 ** 3,
   maxCompressionRatio: 1000,
   maxLineBytes: 4 * 1024 ** 2,
+  maxTempFileBytes: 4 * 1024 ** 3,
 };
 
 export function resolveLimits(limits: ReaderLimits = {}): ResolvedLimits {
   const out: ResolvedLimits = { ...DEFAULT_LIMITS };
-  for (const key of ['maxAtoms', 'maxDecompressedBytes', 'maxCompressionRatio', 'maxLineBytes'] as const) {
+  for (const key of ['maxAtoms', 'maxDecompressedBytes', 'maxCompressionRatio', 'maxLineBytes', 'maxTempFileBytes'] as const) {
     const value = limits[key];
     if (value !== undefined) {
       if (!(value > 0)) throw new RangeError(`${key} must be a positive number, got ${value}`);

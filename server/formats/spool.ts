@@ -1,12 +1,14 @@
 /**
  * HDF5 needs random access, so H5MD that arrives as a stream (an upload,
  * or inside gzip/zip) is written to a private temp directory first. The
- * write is bounded by the decompressed-size limit; the directory is removed
- * when the reader is done.
+ * write is bounded by the smaller of the temp-file limit and the
+ * decompressed-size limit, checked before each chunk reaches the disk; the
+ * directory is removed when the reader is done, fails or is stopped.
  */
 import { mkdtemp, open, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { formatBytes } from '../../shared/byte-size.ts';
 import { TrajectoryFormatError } from './frame.ts';
 import type { ResolvedLimits } from './limits.ts';
 
@@ -25,9 +27,7 @@ export async function spoolToTempFile(source: AsyncIterable<Buffer>, limits: Res
       let written = 0;
       for await (const chunk of source) {
         written += chunk.length;
-        if (written > limits.maxDecompressedBytes) {
-          throw new TrajectoryFormatError(`HDF5 data exceeds the limit of ${limits.maxDecompressedBytes} bytes`, { file });
-        }
+        if (written > limits.maxTempFileBytes || written > limits.maxDecompressedBytes) throw tooLarge(written, limits, file);
         await handle.write(chunk);
       }
     } finally {
@@ -38,4 +38,15 @@ export async function spoolToTempFile(source: AsyncIterable<Buffer>, limits: Res
     throw error;
   }
   return { path, remove };
+}
+
+/** Names the limit that was reached, in bytes and as people read them, and the setting that raises it. */
+function tooLarge(written: number, limits: ResolvedLimits, file: string): TrajectoryFormatError {
+  const temp = limits.maxTempFileBytes <= limits.maxDecompressedBytes;
+  const limit = temp ? limits.maxTempFileBytes : limits.maxDecompressedBytes;
+  const which = temp ? 'the temporary-file limit (JOB_TEMP_MAX_BYTES)' : 'the decompressed-size limit (DECOMPRESSED_MAX_BYTES)';
+  return new TrajectoryFormatError(
+    `HDF5 data needs a temporary copy of more than ${limit} bytes (${formatBytes(limit)}, ${which}); refused on reaching ${written} bytes`,
+    { file },
+  );
 }

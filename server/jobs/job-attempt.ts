@@ -6,6 +6,8 @@
 export interface JobAttempt {
   token: string;
   signal?: AbortSignal;
+  /** This job's own temp folder, removed when the job ends (see job-temp-dir.ts). */
+  tempDir?: string;
 }
 
 /** The abort reason a worker gives when it is shutting down. */

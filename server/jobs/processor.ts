@@ -3,6 +3,7 @@ import { workerData } from 'node:worker_threads';
 import { createContext, type RunningContext } from '../bootstrap.ts';
 import type { Config } from '../config.ts';
 import { jobHandlers } from './handlers/index.ts';
+import { jobTempRoot, withJobTempDir } from './job-temp-dir.ts';
 
 /** What the worker hands each of its threads (see `startWorker`); never read from the environment. */
 export interface ProcessorThreadData {
@@ -26,5 +27,6 @@ export default async function processJob(job: SandboxedJob, token?: string, sign
   context ??= createContext(threadConfig());
   const handler = jobHandlers[job.name];
   if (!handler) throw new Error(`No handler for job kind "${job.name}".`);
-  return handler(job, context, { token: token ?? '', signal });
+  const ctx = context;
+  return withJobTempDir(jobTempRoot(ctx.config.JOB_TEMP_DIR), (tempDir) => handler(job, ctx, { token: token ?? '', signal, tempDir }));
 }

@@ -13,6 +13,8 @@ export interface SupervisedWorker {
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const entry = fileURLToPath(new URL('./worker-main.ts', import.meta.url));
+/** Keeps h5wasm away from the TypeScript loader when the worker runs from source (see plain-packages-hooks.mjs). */
+const plainPackages = fileURLToPath(new URL('../prebuilt/plain-packages.mjs', import.meta.url));
 const FIRST_RESTART_MS = 1000;
 const LONGEST_RESTART_MS = 30_000;
 /** A worker that ran this long before dying starts again without delay growth. */
@@ -44,7 +46,7 @@ export function superviseWorkerProcess(config: Config, log: Logger): SupervisedW
     const startedAt = Date.now();
     // The prebuilt bundle starts in a fraction of the loader's time; a changed source falls back to the loader.
     const bundle = prebuiltPath('worker-main');
-    const proc = spawn(process.execPath, bundle ? [bundle] : ['--import', 'tsx', entry], {
+    const proc = spawn(process.execPath, bundle ? [bundle] : ['--import', 'tsx', '--import', plainPackages, entry], {
       cwd: root, env: childEnv(config), stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
     });
     child = proc;

@@ -7,6 +7,7 @@ import { redisConnection } from './connection.ts';
 import { RELEASE_ON_SHUTDOWN } from './job-attempt.ts';
 import type { ProcessorThreadData } from './processor.ts';
 import { QUEUE_NAME } from './queue.ts';
+import { jobTempRoot, removeOrphanedJobTempDirs } from './job-temp-dir.ts';
 import { requeueStranded } from './requeue-stranded.ts';
 
 export interface RunningWorker {
@@ -29,6 +30,9 @@ const processorFile = new URL('./processor-entry.mjs', import.meta.url);
  * stalled-job check; work whose queue entry was lost, by a periodic sweep.
  */
 export async function startWorker(config: Config, log: Logger, shared?: AppContext): Promise<RunningWorker> {
+  // Temp folders of jobs whose process died (a crash cannot clean up after itself).
+  const orphans = await removeOrphanedJobTempDirs(jobTempRoot(config.JOB_TEMP_DIR));
+  if (orphans) log.info({ orphans }, 'removed temp folders of jobs whose process had ended');
   const connection = redisConnection(config.REDIS_URL);
   const threadData: ProcessorThreadData = { config };
   const worker = new Worker(QUEUE_NAME, processorFile, {

@@ -76,5 +76,7 @@ export async function importEntry(name) {
   if (bundle) return import(pathToFileURL(bundle).href);
   const { register } = await import('tsx/esm/api');
   register();
+  // Registered second so its hooks run first: h5wasm is kept away from the TypeScript loader (about 600 MB otherwise).
+  await import('./plain-packages.mjs');
   return import(pathToFileURL(join(ROOT, PREBUILT_ENTRIES[name])).href);
 }

@@ -55,7 +55,7 @@ export function frameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<Frame
  * store no text is parsed, and positions and velocities are views into
  * their chunk (keeping a frame keeps its chunk's memory).
  */
-export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: FrameRange = {}): AsyncGenerator<Frame> {
+export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: FrameRange = {}, tempDir?: string): AsyncGenerator<Frame> {
   const store = frameStoreOf(ctx, row);
   if (store) {
     yield* (await store).frames(range);
@@ -63,7 +63,7 @@ export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: 
   }
   const index = await loadFrameIndex(ctx, row);
   yield* readFrames(storedSource(ctx, row), range, index?.offsets, {
-    ...readerLimits(ctx.config), name: row.name, totalBytes: row.sizeBytes,
+    ...readerLimits(ctx.config, tempDir), name: row.name, totalBytes: row.sizeBytes,
     format: index?.format, compression: index?.compression,
   });
 }

@@ -59,9 +59,10 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     const stages = STAGES.map((s) => s.filter((k) => run.analyses.includes(k))).filter((s) => s.length > 0);
     if (stages.length === 0) throw new UnrecoverableError('No analysis was selected.');
     const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
-    // Coordinates beyond the memory budget wait in a scratch file for the engine, removed once it is done.
+    // Coordinates beyond the memory budget wait in a scratch file for the engine, removed once it is done
+    // (inside the job's own temp folder, so even a job whose process dies leaves nothing for long).
     const result = await withScratch(ctx.config.ANALYSIS_IN_MEMORY_BYTES, async (spill) => {
-      const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f), spill);
+      const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f), spill, attempt.tempDir);
       // The engine runs in its own thread; this one checks for a cancel or a
       // shutdown every half second of its work and ends it on the spot.
       return runInEngineThread({ trajectory: traj, stages, params, facts }, {
@@ -69,7 +70,7 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
         signal: attempt.signal,
         check: (f) => checkpoint(LOAD_SHARE + (100 - LOAD_SHARE - 5) * f, true),
       });
-    });
+    }, attempt.tempDir);
     await checkpoint(96, true);
     curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
@@ -133,10 +134,10 @@ function framesDescription(s: FrameSelection, discardPs: number) {
 }
 
 /** The selected frames in the engine's units, from the binary frame store (no text is parsed) or, for older uploads, the file. */
-async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: FrameSelection, progress: (fraction: number) => Promise<void>, spill: AssembleSpill) {
+async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: FrameSelection, progress: (fraction: number) => Promise<void>, spill: AssembleSpill, tempDir?: string) {
   let seen = 0;
   async function* counted(): AsyncGenerator<Frame> {
-    for await (const frame of storedFrames(ctx, row, { from: selection.from, to: selection.to, stride: selection.stride })) {
+    for await (const frame of storedFrames(ctx, row, { from: selection.from, to: selection.to, stride: selection.stride }, tempDir)) {
       if (++seen % 50 === 0) await progress(seen / selection.frames);
       yield frame;
     }

@@ -9,6 +9,7 @@ import { discardIfDeleted, getTrajectoryRow } from '../../services/trajectories.
 import { FrameStoreWriter } from '../../frame-store/writer.ts';
 import { EquilibrationSeries } from '../../run-plan/equilibration-series.ts';
 import { frameStorePrefixFor } from '../../storage/object-keys.ts';
+import type { JobAttempt } from '../job-attempt.ts';
 import type { InspectJobData } from '../queue.ts';
 
 /**
@@ -18,7 +19,7 @@ import type { InspectJobData } from '../queue.ts';
  * on. A malformed file marks only its own trajectory failed, with the
  * reader's message (file, frame, line), and leaves no partial store.
  */
-export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<unknown> {
+export async function inspectJob(job: SandboxedJob, ctx: AppContext, attempt: JobAttempt = { token: '' }): Promise<unknown> {
   const { trajectoryId } = job.data as InspectJobData;
   const row = await getTrajectoryRow(ctx, trajectoryId).catch(() => null);
   if (!row) return { skipped: 'trajectory deleted' };
@@ -28,7 +29,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext): Promise<un
   const store = new FrameStoreWriter(ctx.store, frameStorePrefixFor(row.objectKey), { file: row.name, chunkBytes: ctx.config.FRAME_STORE_CHUNK_BYTES });
   try {
     const stream = await ctx.store.getStream(row.objectKey);
-    const result = await inspectTrajectory(stream, row.name, { ...readerLimits(ctx.config), totalBytes: row.sizeBytes }, (p) => {
+    const result = await inspectTrajectory(stream, row.name, { ...readerLimits(ctx.config, attempt.tempDir), totalBytes: row.sizeBytes }, (p) => {
       const now = Date.now();
       if (now - lastReport < 500) return;
       lastReport = now;
