@@ -93,6 +93,9 @@ test.describe('report page and access links', () => {
         const dialog = page.getByRole('dialog');
         await dialog.getByRole('button', { name: /^Revoke the link/ }).click();
         await expect(dialog.getByRole('list', { name: 'Access links' })).toContainText('Revoked');
+        // The link just made no longer works, so it is no longer offered for copying.
+        await expect(dialog.getByLabel('New access link')).toHaveCount(0);
+        await expect(dialog.getByRole('button', { name: /Copy link|Copied/ })).toHaveCount(0);
         await guest.reload();
         await expect(guest.getByRole('heading', { name: 'This link has been revoked or has expired' })).toBeVisible();
         await expect(guest.getByRole('list', { name: 'Headline results' })).toHaveCount(0);

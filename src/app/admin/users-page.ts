@@ -4,12 +4,14 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatTableModule } from '@angular/material/table';
+import { MatDialog } from '@angular/material/dialog';
 import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import { AuthState } from '../core/auth-state';
 import { adminUserSchema, type AdminUser } from '../../../shared/admin';
 import { unwrapList } from '../core/api-envelope';
 import { AdminApi } from './admin-api';
+import { confirmed } from '../shell/confirm-dialog';
 
 @Component({
   selector: 'erg-users-page',
@@ -69,6 +71,7 @@ import { AdminApi } from './admin-api';
 })
 export default class UsersPage {
   private readonly api = inject(AdminApi);
+  private readonly dialog = inject(MatDialog);
   private readonly auth = inject(AuthState);
 
   protected readonly users = httpResource(() => '/api/admin/users', { parse: unwrapList('users', adminUserSchema) });
@@ -83,6 +86,12 @@ export default class UsersPage {
 
   protected async update(user: AdminUser, changes: { role?: 'admin' | 'member'; disabled?: boolean }): Promise<void> {
     this.error.set('');
+    const question = changes.disabled === true
+      ? { title: `Disable ${user.displayName}?`, message: `${user.displayName} is signed out everywhere at once and their API tokens stop working, until an admin enables the account again.`, confirm: 'Disable account' }
+      : changes.role === 'admin'
+        ? { title: `Make ${user.displayName} a site admin?`, message: `${user.displayName} will manage every account on this site: disable people, enable them, and make or unmake admins.`, confirm: 'Make admin', tone: 'plain' as const }
+        : null;
+    if (question && !(await confirmed(this.dialog, { ...question, cancel: 'Cancel' }))) return;
     try {
       await firstValueFrom(this.api.updateUser(user.id, changes));
       this.users.reload();

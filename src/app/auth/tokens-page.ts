@@ -5,6 +5,7 @@ import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@
 import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -15,6 +16,7 @@ import { firstValueFrom } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import { apiTokenSchema, type ApiToken, type NewApiToken } from '../../../shared/accounts';
 import { unwrapList } from '../core/api-envelope';
+import { confirmed } from '../shell/confirm-dialog';
 import { tokenState, TokensApi } from './tokens-api';
 
 @Component({
@@ -99,6 +101,7 @@ import { tokenState, TokensApi } from './tokens-api';
 export default class TokensPage {
   private readonly api = inject(TokensApi);
   private readonly clipboard = inject(Clipboard);
+  private readonly dialog = inject(MatDialog);
 
   protected readonly tokens = httpResource(() => '/api/tokens', { parse: unwrapList('tokens', apiTokenSchema) });
   protected readonly columns = ['name', 'prefix', 'created', 'used', 'expires', 'state', 'actions'];
@@ -147,6 +150,12 @@ export default class TokensPage {
 
   protected async revoke(token: ApiToken): Promise<void> {
     this.error.set('');
+    const sure = await confirmed(this.dialog, {
+      title: `Revoke token “${token.name}”?`,
+      message: 'Scripts that send it are refused from now on. A revoked token cannot be brought back; make a new one if a script needs access again.',
+      confirm: 'Revoke token',
+    });
+    if (!sure) return;
     try {
       await firstValueFrom(this.api.revoke(token.id));
       if (this.created()?.id === token.id) this.created.set(null);

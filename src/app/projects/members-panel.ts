@@ -1,11 +1,15 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
+import { Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { AuthState } from '../core/auth-state';
+import { confirmed } from '../shell/confirm-dialog';
 import { apiErrorMessage } from '../core/api-error';
 import { memberSchema, PROJECT_ROLES, type Member, type ProjectRole } from '../../../shared/projects';
 import { unwrapList } from '../core/api-envelope';
@@ -48,7 +52,11 @@ import { ProjectsApi } from './projects-api';
         <ng-container matColumnDef="actions">
           <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
           <td mat-cell *matCellDef="let m">
-            <button mat-button type="button" (click)="remove(m)" [attr.aria-label]="'Remove ' + m.displayName">Remove</button>
+            @if (m.userId === auth.user()?.id) {
+              <button mat-button type="button" (click)="remove(m)" aria-label="Leave this project">Leave</button>
+            } @else {
+              <button mat-button type="button" (click)="remove(m)" [attr.aria-label]="'Remove ' + m.displayName">Remove</button>
+            }
           </td>
         </ng-container>
         <tr mat-header-row *matHeaderRowDef="columns()"></tr>
@@ -60,10 +68,15 @@ import { ProjectsApi } from './projects-api';
 })
 export class MembersPanel {
   private readonly api = inject(ProjectsApi);
+  protected readonly auth = inject(AuthState);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
 
   readonly projectId = input.required<number>();
   /** Owners may change roles and remove members. */
   readonly canManage = input(false);
+  /** After a role change or a removal went through, so the page can refresh the audit log. */
+  readonly changed = output<void>();
   protected readonly roles = PROJECT_ROLES;
   protected readonly meaning = ROLE_MEANING;
   protected readonly members = httpResource(() => `/api/projects/${this.projectId()}/members`, { parse: unwrapList('members', memberSchema) });
@@ -79,6 +92,7 @@ export class MembersPanel {
     this.error.set('');
     try {
       await firstValueFrom(this.api.changeRole(this.projectId(), member.userId, role));
+      this.changed.emit();
     } catch (err) {
       this.error.set(apiErrorMessage(err));
     }
@@ -88,9 +102,27 @@ export class MembersPanel {
 
   protected async remove(member: Member): Promise<void> {
     this.error.set('');
+    const yourself = member.userId === this.auth.user()?.id;
+    const sure = await confirmed(this.dialog, yourself
+      ? {
+          title: 'Leave this project?',
+          message: 'You will no longer see its trajectories, reports or comments, and its access links stay as they are. Only an owner can add you again.',
+          confirm: 'Leave the project', cancel: 'Stay',
+        }
+      : {
+          title: `Remove ${member.displayName}?`,
+          message: `${member.displayName} will no longer see this project's trajectories, reports or comments. You can invite them again later.`,
+          confirm: 'Remove from project',
+        });
+    if (!sure) return;
     try {
       await firstValueFrom(this.api.removeMember(this.projectId(), member.userId));
+      if (yourself) {
+        await this.router.navigateByUrl('/projects');
+        return;
+      }
       this.members.reload();
+      this.changed.emit();
     } catch (err) {
       this.error.set(apiErrorMessage(err));
     }

@@ -149,6 +149,11 @@ export class ShareDialog {
     this.revokeError.set(null);
     try {
       await firstValueFrom(this.api.revokeLink(this.data.reportId, link.id));
+      // A revoked link no longer works: stop offering it for copying.
+      if (this.created()?.id === link.id) {
+        this.created.set(null);
+        this.copied.set(false);
+      }
       this.links.reload();
     } catch (err) {
       this.revokeError.set(apiErrorMessage(err, 'The link could not be revoked.'));
