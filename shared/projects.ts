@@ -70,6 +70,8 @@ export const auditEntrySchema = z.object({
   action: z.string(),
   details: z.record(z.string(), z.unknown()),
   actor: z.object({ id: recordId, displayName: z.string(), email: z.string() }).nullable(),
+  /** What the entry's ids name today: the report's title, the series' name, the member's name; null once deleted or when the entry names none. */
+  names: z.object({ report: z.string().nullable(), series: z.string().nullable(), member: z.string().nullable() }),
   createdAt: isoDate,
 });
 export type AuditEntry = z.infer<typeof auditEntrySchema>;

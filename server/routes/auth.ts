@@ -51,6 +51,14 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
       },
     },
     {
+      method: 'get', path: '/auth/session', access: { kind: 'public' },
+      summary: 'Who this request is signed in as, or null: the browser app asks this at start-up, so a signed-out visitor gets no 401.',
+      response: wrapped('user', signedInUserSchema.nullable()),
+      handler: (req, res) => {
+        res.json({ user: req.user ?? null });
+      },
+    },
+    {
       method: 'get', path: '/auth/me', access: { kind: 'signed-in' },
       summary: 'The signed-in user.',
       response: wrapped('user', signedInUserSchema),

@@ -7,7 +7,7 @@ import { badRequest } from '../errors.ts';
 import {
   abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata, updateMetadataOfMany,
 } from '../services/trajectories.ts';
-import { extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
+import { cutFileName, extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
 import { body, idField, params, query } from './request-parts.ts';
 import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 import { trajectoryUpload } from './upload-middleware.ts';
@@ -127,9 +127,8 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
         const range = query(req, frameRangeQuery);
         const chunks = extxyzCut(ctx, row, range);
         const first = await chunks.next();
-        const base = row.name.replace(/\.(gz|zip)$/i, '').replace(/\.[^.]*$/, '') || 'trajectory';
         // The name as uploaded, in filename* (RFC 6266/8187), with an ASCII fallback for old clients.
-        res.attachment(`${base}-frames-${range.from}.extxyz`);
+        res.attachment(cutFileName(row.name, row.frames ?? 0, range));
         res.type('text/plain; charset=utf-8');
         if (!first.done) res.write(first.value);
         for await (const chunk of chunks) {

@@ -41,6 +41,21 @@ export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested
   return encodeFrames(frames, toAngstrom);
 }
 
+/**
+ * The download name of a cut, with frames numbered from 1 as the interface
+ * shows them: "run-frames-4-6.extxyz", "run-frame-1.extxyz",
+ * "run-frames-1-91-every-10.extxyz" (the last frame is the last one taken).
+ */
+export function cutFileName(uploadName: string, frames: number, requested: Required<FrameRange>): string {
+  const base = uploadName.replace(/\.(gz|zip)$/i, '').replace(/\.[^.]*$/, '') || 'trajectory';
+  const { from, stride } = requested;
+  const to = Math.max(from + 1, Math.min(requested.to, frames));
+  const first = from + 1;
+  const last = from + Math.floor((to - 1 - from) / stride) * stride + 1;
+  if (first === last) return `${base}-frame-${first}.extxyz`;
+  return `${base}-frames-${first}-${last}${stride > 1 ? `-every-${stride}` : ''}.extxyz`;
+}
+
 /** A frame range written as extended XYZ, streamed. */
 export async function* extxyzCut(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): AsyncGenerator<Uint8Array> {
   assertReady(row);

@@ -26,6 +26,20 @@ describe('sign-up, sign-in and sign-out', () => {
     expect(me.body.user).toEqual({ id: account.id, email: account.email, displayName: account.displayName, role: 'member' });
   });
 
+  it('when the app asks who is signed in, then GET /api/auth/session answers 200 with the user, or with null and no 401 when signed out', async () => {
+    const anonymous = await new ApiClient(app).prime();
+    const nobody = await anonymous.get('/api/auth/session');
+    expect(nobody.status).toBe(200);
+    expect(nobody.body).toEqual({ user: null });
+    expect((await anonymous.get('/api/auth/me')).status).toBe(401);
+    const account = await signUp(app, 'session-reader');
+    const someone = await account.client.get('/api/auth/session');
+    expect(someone.status).toBe(200);
+    expect(someone.body.user).toEqual({ id: account.id, email: account.email, displayName: account.displayName, role: 'member' });
+    await account.client.post('/api/auth/logout', {});
+    expect((await account.client.get('/api/auth/session')).body).toEqual({ user: null });
+  });
+
   it('when the e-mail is mixed case with spaces, then it is stored trimmed and lower-case and signs in either way', async () => {
     const client = await new ApiClient(app).prime();
     const email = uniqueEmail('case');

@@ -216,6 +216,9 @@ describe('access links and comments on a report', () => {
     const audit = await owner.client.get(`/api/projects/${id}/audit`);
     const actions = audit.body.entries.map((e: { action: string }) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['access_link.created', 'access_link.revoked', 'invitation.sent', 'member.joined', 'project.created']));
+    // Entries about a report carry its title, so the log can name it rather than give its number.
+    const linkEntries = audit.body.entries.filter((e: { action: string }) => e.action.startsWith('access_link.'));
+    expect(linkEntries.map((e: { names: { report: string | null } }) => e.names.report)).toEqual(['MSD of a test run', 'MSD of a test run']);
   });
 
   it('when a link has expired, then it reads nothing; when the lifetime is out of range, then 400 names expiresInDays', async () => {

@@ -222,7 +222,8 @@ describe('trajectory metadata, frames and cuts', () => {
   it('when a cut is downloaded, then it is extended XYZ with exactly the asked frames', async () => {
     const res = await script.raw('get', `/api/trajectories/${id}/cut?from=3&to=6`).buffer(true);
     expect(res.status).toBe(200);
-    expect(res.headers['content-disposition']).toMatch(/liquid-frames-3\.extxyz/);
+    // Named with the frame numbers the interface shows, from 1: frames 3, 4, 5 counted from 0 are 4–6.
+    expect(res.headers['content-disposition']).toMatch(/liquid-frames-4-6\.extxyz/);
     const text = res.text;
     const headers = text.split('\n').filter((l: string) => l.includes('Lattice='));
     expect(headers).toHaveLength(3);

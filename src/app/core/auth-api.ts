@@ -5,14 +5,16 @@ import { noticeSchema, signedInUserSchema, type SignedInUser } from '../../../sh
 import { unwrap } from './api-envelope';
 
 const readUser = unwrap('user', signedInUserSchema);
+const readSession = unwrap('user', signedInUserSchema.nullable());
 
 /** One method per /api/auth endpoint. */
 @Injectable({ providedIn: 'root' })
 export class AuthApi {
   private readonly http = inject(HttpClient);
 
-  me(): Observable<SignedInUser> {
-    return this.http.get('/api/auth/me').pipe(map(readUser));
+  /** Who the session belongs to, or null: answers 200 either way, so a signed-out start logs no failed request. */
+  session(): Observable<SignedInUser | null> {
+    return this.http.get('/api/auth/session').pipe(map(readSession));
   }
 
   signIn(email: string, password: string): Observable<SignedInUser> {

@@ -14,12 +14,16 @@ export class AuthState {
   readonly isSignedIn = computed(() => this.current() !== null);
   readonly isAdmin = computed(() => this.current()?.role === 'admin');
 
-  /** Asks the server who the session belongs to; a 401 simply means nobody. */
+  /**
+   * Asks the server who the session belongs to; null means nobody, an
+   * ordinary answer rather than a failed request. If the server cannot be
+   * asked, the app starts signed out and says why once, as a warning.
+   */
   async restore(): Promise<void> {
     try {
-      this.current.set(await firstValueFrom(this.api.me()));
+      this.current.set(await firstValueFrom(this.api.session()));
     } catch (err) {
-      if (!(err instanceof HttpErrorResponse && err.status === 401)) console.error('could not restore the session', err);
+      console.warn('Ergodic could not ask the server who is signed in; starting signed out.', err instanceof HttpErrorResponse ? err.status : err);
       this.current.set(null);
     }
   }

@@ -5,7 +5,7 @@ import { catchError, throwError } from 'rxjs';
 import { AuthState } from './auth-state';
 
 /** Calls whose 401 is an ordinary answer (nobody signed in, wrong password), not a lost session. */
-const EXPECTED_401 = ['/api/auth/me', '/api/auth/login'];
+const EXPECTED_401 = ['/api/auth/login'];
 
 /** When the session is gone (signed out elsewhere, account disabled), go to sign-in and come back after. */
 export const unauthorizedInterceptor: HttpInterceptorFn = (req, next) => {

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, input, untracked } from '@angular/core';
 import { MatListModule } from '@angular/material/list';
 import { apiErrorMessage } from '../core/api-error';
 import { describeAuditEntry } from './audit-wording';
@@ -31,9 +31,17 @@ import { unwrapList } from '../core/api-envelope';
 })
 export class AuditPanel {
   readonly projectId = input.required<number>();
+  /** Raised by the page after each change it made, so the log shows it without a reload. */
+  readonly revision = input(0);
   protected readonly audit = httpResource(() => `/api/projects/${this.projectId()}/audit`, { parse: unwrapList('entries', auditEntrySchema) });
   protected readonly entries = computed(() => this.audit.value() ?? []);
   protected readonly describe = describeAuditEntry;
+
+  constructor() {
+    effect(() => {
+      if (this.revision() > 0) untracked(() => this.audit.reload());
+    });
+  }
 
   protected loadError(): string {
     return apiErrorMessage(this.audit.error(), 'The audit log could not be loaded.');

@@ -1,6 +1,6 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal, viewChild } from '@angular/core';
 import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -62,6 +62,8 @@ import { ProjectsApi } from './projects-api';
 })
 export class InvitationsPanel {
   private readonly api = inject(ProjectsApi);
+  /** After an invitation is sent or withdrawn, so the page can refresh what depends on it (the audit log). */
+  readonly changed = output<void>();
 
   readonly projectId = input.required<number>();
   protected readonly roles = PROJECT_ROLES;
@@ -92,6 +94,7 @@ export class InvitationsPanel {
       // Resetting through the directive also clears "submitted", so the empty field shows no error.
       this.formDirective().resetForm({ email: '', role });
       this.invitations.reload();
+      this.changed.emit();
     } catch (err) {
       this.error.set(apiErrorMessage(err));
     } finally {
@@ -104,6 +107,7 @@ export class InvitationsPanel {
     try {
       await firstValueFrom(this.api.revokeInvitation(this.projectId(), invitation.id));
       this.invitations.reload();
+      this.changed.emit();
     } catch (err) {
       this.error.set(apiErrorMessage(err));
     }

@@ -1,5 +1,5 @@
 import { httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
@@ -34,7 +34,7 @@ import { unwrap } from '../core/api-envelope';
         } @else {
           <mat-card appearance="outlined">
             <mat-card-header><h2 mat-card-title>Name and description</h2></mat-card-header>
-            <mat-card-content><erg-project-details-form [project]="p" (changed)="project.reload()" /></mat-card-content>
+            <mat-card-content><erg-project-details-form [project]="p" (changed)="project.reload(); logChanged()" /></mat-card-content>
           </mat-card>
           <mat-card appearance="outlined">
             <mat-card-header><h2 mat-card-title>Interaction model</h2></mat-card-header>
@@ -42,16 +42,16 @@ import { unwrap } from '../core/api-envelope';
           </mat-card>
           <mat-card appearance="outlined">
             <mat-card-header><h2 mat-card-title>Members</h2></mat-card-header>
-            <mat-card-content><erg-members-panel [projectId]="p.id" [canManage]="isOwner()" /></mat-card-content>
+            <mat-card-content><erg-members-panel [projectId]="p.id" [canManage]="isOwner()" (changed)="logChanged()" /></mat-card-content>
           </mat-card>
           @if (isOwner()) {
             <mat-card appearance="outlined">
               <mat-card-header><h2 mat-card-title>Invite by e-mail</h2></mat-card-header>
-              <mat-card-content><erg-invitations-panel [projectId]="p.id" /></mat-card-content>
+              <mat-card-content><erg-invitations-panel [projectId]="p.id" (changed)="logChanged()" /></mat-card-content>
             </mat-card>
             <mat-card appearance="outlined">
               <mat-card-header><h2 mat-card-title>Audit log</h2></mat-card-header>
-              <mat-card-content><erg-audit-panel [projectId]="p.id" /></mat-card-content>
+              <mat-card-content><erg-audit-panel [projectId]="p.id" [revision]="auditRevision()" /></mat-card-content>
             </mat-card>
             <mat-card appearance="outlined" class="danger-zone">
               <mat-card-header><h2 mat-card-title>Delete project</h2></mat-card-header>
@@ -74,6 +74,13 @@ export default class ProjectSettingsPage {
   protected readonly project = httpResource(() => `/api/projects/${encodeURIComponent(this.id())}`, { parse: unwrap('project', projectSchema) });
   protected readonly summary = computed(() => this.project.value() ?? null);
   protected readonly isOwner = computed(() => this.summary()?.role === 'owner');
+
+  /** Counts changes made on this page; the audit log reloads on each. */
+  protected readonly auditRevision = signal(0);
+
+  protected logChanged(): void {
+    this.auditRevision.update((n) => n + 1);
+  }
 
   protected loadError(): string {
     return apiErrorMessage(this.project.error(), 'This project could not be loaded.');

@@ -44,6 +44,18 @@ describe('methods text', () => {
     expect(msd!.body).toContain('standard error from the spread of D over independent groups of atoms');
   });
 
+  it('when the fit and plateau windows were set by hand, then the text says so and never that they were chosen automatically', () => {
+    const auto = report();
+    const msdGroup = { ...auto.summary.msd!.groups[0]!, fitWindowPs: { start: 2, end: 8, source: 'manual' as const } };
+    const vacf = { velocitySource: 'stored-velocities' as const, groups: [{ label: 'all', atoms: 108, dGreenKubo: D(0.15), dStdError: D(0.01), uncertaintyMethod: 'atom-blocks' as const, spread: D(0.01), converged: true, plateauWindowPs: { start: 1, end: 3, source: 'manual' as const } }] };
+    const byHand = report({ analyses: ['thermo', 'msd', 'vacf'], summary: { ...auto.summary, msd: { dimensions: 3, groups: [msdGroup] }, vacf }, methods: { ...auto.methods, vacf: {} } });
+    const text = methodsPlainText(methodsParagraphs(byHand), '');
+    expect(text).toContain('by a least-squares line over a window set by hand — all: 2–8 ps (set by hand)');
+    expect(text).toContain('read as the mean of the running integral over a window set by hand — all: 1–3 ps (set by hand)');
+    expect(text).not.toMatch(/automatic|slope is near 1/);
+    expect(methodsPlainText(methodsParagraphs(auto), '')).toContain('over the window where the log–log slope is near 1 — all: 0.9–1.7 ps (chosen automatically)');
+  });
+
   it('when an analysis did not run, then it has no paragraph', () => {
     const headings = methodsParagraphs(report()).map((p) => p.heading);
     expect(headings).toEqual(['Input', 'Temperature', 'Mean-square displacement and diffusion', 'Software']);

@@ -13,6 +13,9 @@ export interface MethodsParagraph {
 const f = (x: number | null, digits = 4) => (x === null ? '?' : formatNumber(x, digits));
 const span = (w: { start: number; end: number; source: string }) => `${f(w.start, 3)}–${f(w.end, 3)} ps (${w.source === 'auto' ? 'chosen automatically' : 'set by hand'})`;
 
+/** True when every window was set by hand, so the text must not describe an automatic choice. */
+const byHand = (windows: readonly { source: string }[]) => windows.length > 0 && windows.every((w) => w.source === 'manual');
+
 const WINDOW_NAMES: Partial<Record<string, string>> = {
   hann: 'Hann window', blackman: 'Blackman window', gaussian: 'Gaussian window', lorch: 'Lorch window', none: 'no window',
 };
@@ -94,7 +97,7 @@ function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Jso
     heading: 'Mean-square displacement and diffusion',
     body: `MSD by the FFT (Wiener–Khinchin) algorithm averaged over all time origins, on positions ${flag(m, 'unwrapped') === false ? 'as stored' : 'unwrapped across periodic boundaries'}` +
       `${flag(m, 'comDriftRemoved') ? ', centre-of-mass drift removed' : ''}, in ${s.dimensions} dimension${s.dimensions === 1 ? '' : 's'} (${text(params, 'components') ?? 'xyz'}). ` +
-      `Self-diffusion coefficient from the Einstein relation, MSD(t) = 2·${s.dimensions}·D·t, by a least-squares line over the window where the log–log slope is near 1 — ${fits.join('; ')}.`,
+      `Self-diffusion coefficient from the Einstein relation, MSD(t) = 2·${s.dimensions}·D·t, by a least-squares line ${byHand(s.groups.map((g) => g.fitWindowPs)) ? 'over a window set by hand' : 'over the window where the log–log slope is near 1'} — ${fits.join('; ')}.`,
   };
 }
 
@@ -108,7 +111,7 @@ function vacfParagraph(s: NonNullable<ReportSummary['vacf']>, m: Json): MethodsP
   return {
     heading: 'Velocity autocorrelation and Green–Kubo diffusion',
     body: `VACF ⟨v(0)·v(t)⟩ by FFT over all time origins from ${source}${flag(m, 'comDriftRemoved') ? ', centre-of-mass motion removed' : ''}. ` +
-      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral over its plateau — ${windows}; ${errorNote}.`,
+      `Green–Kubo integral D = (1/d)∫⟨v(0)·v(t)⟩dt, read as the mean of the running integral ${byHand(s.groups.map((g) => g.plateauWindowPs)) ? 'over a window set by hand' : 'over its plateau'} — ${windows}; ${errorNote}.`,
   };
 }
 

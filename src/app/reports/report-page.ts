@@ -1,4 +1,4 @@
-import { httpResource } from '@angular/common/http';
+import { HttpErrorResponse, httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -35,9 +35,13 @@ import { ShareDialog, type ShareDialogData } from './share-dialog';
         <div class="state" role="alert">
           <mat-icon aria-hidden="true">error</mat-icon>
           <span>{{ loadError() }}</span>
-          <button mat-button type="button" (click)="report.reload()">Try again</button>
+          @if (missing()) {
+            <a mat-button routerLink="/projects">Your projects</a>
+          } @else {
+            <button mat-button type="button" (click)="report.reload()">Try again</button>
+          }
         </div>
-      } @else if (report.value(); as r) {
+      } @else if (report.hasValue() ? report.value() : undefined; as r) {
         <nav class="crumbs" aria-label="Breadcrumb"><a [routerLink]="['/projects', r.projectId]">← Back to the project</a></nav>
         <erg-report-view [report]="r" [source]="source()" [canShare]="canShare()" (share)="openShare()">
           @if (canShare()) {
@@ -70,12 +74,20 @@ export default class ReportPage {
   private readonly reportId = computed(() => Number(this.id()));
   protected readonly source = computed((): ReportSource => ({ kind: 'member', reportId: this.reportId() }));
   protected readonly report = httpResource(() => (Number.isInteger(this.reportId()) ? `/api/reports/${this.reportId()}` : undefined), { parse: unwrap('report', parseReport) });
+  // A resource in error throws from value(), so each read asks hasValue() first: a report the
+  // user cannot see must end in its message, not in an uncaught error.
   private readonly project = httpResource(() => {
-    const r = this.report.value();
+    const r = this.report.hasValue() ? this.report.value() : undefined;
     return r ? `/api/projects/${r.projectId}` : undefined;
   }, { parse: unwrap('project', projectSchema) });
   /** The server refuses viewers anyway; the button is hidden so they are not offered what they cannot do. */
-  protected readonly canShare = computed(() => ['owner', 'editor'].includes(this.project.value()?.role ?? 'viewer'));
+  protected readonly canShare = computed(() => ['owner', 'editor'].includes((this.project.hasValue() ? this.project.value()?.role : undefined) ?? 'viewer'));
+
+  /** Not there, or not for this user (the server does not say which): trying again would not help. */
+  protected readonly missing = computed(() => {
+    const err = this.report.error();
+    return err instanceof HttpErrorResponse && err.status === 404;
+  });
 
   protected loadError(): string {
     return apiErrorMessage(this.report.error(), 'The report could not be loaded.');
@@ -119,7 +131,7 @@ export default class ReportPage {
   }
 
   protected openShare(): void {
-    const r = this.report.value();
+    const r = this.report.hasValue() ? this.report.value() : undefined;
     if (!r) return;
     this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, { data: { reportId: r.id, projectId: r.projectId, title: r.title }, width: '640px', autoFocus: 'first-tabbable' });
   }
