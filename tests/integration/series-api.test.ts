@@ -192,6 +192,23 @@ describe('series of runs through the API', () => {
     expect((await stranger.get(`/api/links/${made.body.link.token}`)).status).toBe(404);
   });
 
+  it('when a member cannot be analysed, then it is failed with the reason, and the series is incomplete with results from the others', async () => {
+    const [{ id: single }] = await ctx.db.insert(trajectories).values({
+      projectId, name: 'argon-one-frame.xyz', objectKey: `test/${projectId}/argon-one-frame.xyz`, uploadedBy: owner.id, status: 'ready',
+      atoms: 108, frames: 1, speciesCounts: { Ar: 108 }, timeStep: 0.1, timeUnit: 'ps', temperatureK: 150,
+    }).$returningId();
+    const created = await editor.client.post(`/api/projects/${projectId}/series`, { name: 'With a broken member', trajectoryIds: [ids.liquid100, ids.liquid125, single] });
+    expect(created.status, created.text).toBe(201);
+    const dto = await settled(owner.client, created.body.series.id);
+    expect(dto.status).toBe('incomplete');
+    expect(dto.members.map((m) => m.status)).toEqual(['done', 'done', 'failed']);
+    expect(dto.members[2]!.message).toMatch(/frame/i);
+    expect(dto.members[2]!.runs).toEqual([]);
+    expect(dto.results!.arrhenius.points.map((p) => p.trajectoryId)).toEqual([ids.liquid100, ids.liquid125]);
+    expect(dto.results!.warnings).toContain('1 of 3 members have no report yet; results use the others.');
+    expect((await runsOf(single)).length).toBe(0);
+  });
+
   it('when an editor deletes the series, then it is gone with an audit entry, and its members\' reports stay', async () => {
     expect((await editor.client.delete(`/api/series/${seriesId}`)).status).toBe(204);
     expect((await editor.client.get(`/api/series/${seriesId}`)).status).toBe(404);
