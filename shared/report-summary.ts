@@ -239,6 +239,8 @@ export interface EnergySummary {
   heatCapacity: FluctuationHeatCapacity | null;
   /** Why there is no heat capacity, when there is none. */
   heatCapacityNote: string | null;
+  /** Which pressure is shown (the model's virial or the file's) and why the other, or the tensor, is missing. Absent in reports made before it existed. */
+  pressureNote?: string;
   /** File energies or pressure set beside the model's. */
   comparisons: EnergyComparison[];
 }

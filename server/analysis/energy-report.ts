@@ -49,6 +49,7 @@ function summaryOf(r: EnergyResult, params: AnalysisParams): EnergySummary {
       jPerGK: { mean: h.jPerGK, stdError: h.jPerGKStdError },
     } : null,
     heatCapacityNote: h ? null : r.heatCapacityNote,
+    pressureNote: r.pressureNote,
     comparisons: r.comparisons,
   };
 }

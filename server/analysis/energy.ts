@@ -134,6 +134,8 @@ export interface EnergyResult {
   } | null;
   heatCapacity: HeatCapacityEstimate | null;
   heatCapacityNote: string;
+  /** What pressure is shown and why (file or virial, and why the other or the tensor is missing). */
+  pressureNote: string;
   comparisons: Comparison[];
   modelPairs: number;
 }
@@ -313,6 +315,12 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
     comparisons.push(compare('pressure', 'bar', file.pressureBar, pressureBar, (m) => Math.max(5, 0.01 * Math.abs(m))));
   }
 
+  const pressureKey = file.keys.find((k) => k.quantity === 'pressure');
+  const pressureNote = pressureNoteFor({
+    source: pressureSource, hasModel: options.model != null, periodic: periodic && volumeA3 !== null,
+    fileKey: pressureKey ? `"${pressureKey.key}" (${pressureKey.unit})` : null, fileHasNumbers: Object.keys(traj.observables ?? {}).length > 0,
+  });
+
   onProgress?.(1);
   return {
     atoms: N, degreesOfFreedom: dof, timesPs: traj.times,
@@ -320,8 +328,36 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
     potentialPerAtomEV, kineticPerAtomEV, totalPerAtomEV, temperatureK, pressureBar, pressureTensorBar, volumeA3,
     filePotentialPerAtomEV: file.potentialEV && modelPotential ? file.potentialEV.map((u) => u / N) : null,
     filePressureBar: pressureSource === 'virial' ? file.pressureBar : null,
-    means, tail, drift, nveCheck, heatCapacity, heatCapacityNote, comparisons, modelPairs,
+    means, tail, drift, nveCheck, heatCapacity, heatCapacityNote, pressureNote, comparisons, modelPairs,
   };
+}
+
+interface PressureFacts {
+  source: EnergyResult['sources']['pressure'];
+  hasModel: boolean;
+  periodic: boolean;
+  /** The file key mapped to the pressure, with its unit. */
+  fileKey: string | null;
+  fileHasNumbers: boolean;
+}
+
+/**
+ * Which pressure the report shows and why the other is missing: the
+ * virial (and its tensor) needs pair forces from a model and a periodic
+ * cell volume; the file's pressure needs a key mapped to it.
+ */
+export function pressureNoteFor(f: PressureFacts): string {
+  const noVirial = !f.hasModel
+    ? 'there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces)'
+    : 'the model\'s virial pressure and tensor need a periodic cell volume, and this run has open boundaries';
+  if (f.source === 'virial') {
+    if (f.fileKey) return `Shown: the virial pressure and its tensor from the interaction model, beside the file's pressure (key ${f.fileKey}).`;
+    return f.fileHasNumbers
+      ? 'Shown: the virial pressure and its tensor from the interaction model; none of the file\'s per-frame numbers is mapped as the pressure, so there is nothing to compare it with (map one in the metadata).'
+      : 'Shown: the virial pressure and its tensor from the interaction model; the file states no pressure to compare it with.';
+  }
+  if (f.source === 'file') return `Shown: the pressure as the file states it, key ${f.fileKey}, a scalar per frame without a tensor; ${noVirial}.`;
+  return `No pressure: the file states none${f.fileHasNumbers ? ' (no per-frame number is mapped as the pressure)' : ''}, and ${noVirial}.`;
 }
 
 interface FileSeries {

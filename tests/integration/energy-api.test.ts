@@ -11,6 +11,7 @@ import { trajectoryToFrames } from '../../server/simulate/to-frames.ts';
 import { signUp, type TestAccount } from '../support/accounts.ts';
 import { pollUntil } from '../support/poll.ts';
 import { createTestApp } from '../support/test-app.ts';
+import { energyCards } from '../../src/app/reports/energy-cards.ts';
 
 const testApp = createTestApp();
 let worker: RunningWorker;
@@ -132,5 +133,71 @@ describe('interaction models and the energy analysis through the API', () => {
   it('when a non-member asks for or writes a model, then the project is invisible to them (404)', async () => {
     expect((await outsider.client.get(`/api/trajectories/${fileId}/interaction-model`)).status).toBe(404);
     expect((await outsider.client.send('put', `/api/projects/${projectId}/interaction-model`, { model: ARGON })).status).toBe(404);
+  });
+});
+
+describe('what the energy report says when file and model differ', () => {
+  let fileId: number;
+
+  /** The argon run with its own potential energy (eV) and a pressure column the file states (bar). */
+  async function argonWithPressure(): Promise<Buffer> {
+    const run = simulateLennardJones({ cellsPerSide: 3, reducedDensity: 0.8442, temperatureK: 86.5, meltTemperatureK: 250, meltSteps: 200, equilibrationSteps: 300, productionSteps: 1000, sampleEvery: 5, seed: 23 });
+    const press = Float64Array.from({ length: run.potentialEV.length }, (_, f) => 1.01325 + 0.001 * (f % 3));
+    const chunks: Uint8Array[] = [];
+    for await (const c of writeExtxyz(trajectoryToFrames(run.trajectory, { energy: run.potentialEV, press }))) chunks.push(c);
+    return Buffer.concat(chunks);
+  }
+
+  beforeAll(async () => {
+    // A project of its own, so no stored model of the tests above applies.
+    const p = await owner.client.post('/api/projects', { name: 'Energetics, file against model' });
+    projectId = p.body.project.id;
+    fileId = await upload('argon-pressure.extxyz', await argonWithPressure(), { ensemble: 'NVE' });
+    expect((await owner.client.get(`/api/trajectories/${fileId}`)).body.trajectory.fileValues).toEqual(['energy', 'press']);
+  }, 120_000);
+
+  const fromFile = { potentialEnergy: { key: 'energy', unit: 'eV' }, pressure: { key: 'press', unit: 'bar' } };
+
+  it('when the file states a pressure and there is no model to give a virial, then the summary and the pressure card say the file\'s pressure is shown and why there is no tensor', async () => {
+    const report = await analyse(fileId, ['energy'], { fileQuantities: fromFile });
+    const e = report.summary.energy;
+    expect(e.sources).toMatchObject({ potential: 'file', pressure: 'file' });
+    expect(e.pressureTensorBar).toBeNull();
+    expect(e.pressureBar.mean).toBeCloseTo(1.01425, 3);
+    expect(e.pressureNote).toBe('Shown: the pressure as the file states it, key "press" (bar), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
+    const card = energyCards(report.summary).find((c) => c.id === 'energy-pressure')!;
+    expect(card.title).toBe('Pressure (from the file)');
+    expect(card.detail).toBe(e.pressureNote);
+  });
+
+  it('when a model gives the virial beside the file\'s pressure, then both are compared, and where they disagree the card gives both values', async () => {
+    const report = await analyse(fileId, ['energy'], { fileQuantities: fromFile, interactionModel: ARGON });
+    const e = report.summary.energy;
+    expect(e.sources).toMatchObject({ potential: 'model', pressure: 'virial' });
+    expect(e.pressureTensorBar).not.toBeNull();
+    expect(e.pressureNote).toBe('Shown: the virial pressure and its tensor from the interaction model, beside the file\'s pressure (key "press" (bar)).');
+    // The stated 1 bar is not the dense liquid's virial pressure: the report says so with both numbers.
+    const pressure = e.comparisons.find((c: { quantity: string }) => c.quantity === 'pressure');
+    expect(pressure).toMatchObject({ agree: false });
+    expect(pressure.fileMean).toBeCloseTo(1.01425, 3);
+    expect(pressure.modelMean).toBeCloseTo(e.pressureBar.mean, 6);
+    const card = energyCards(report.summary).find((c) => c.id === 'energy-pressure')!;
+    expect(card.warning).toContain(`File and model disagree on the pressure: file 1.014 bar, model `);
+    // The same model the integrator used: the potential energies agree.
+    expect(e.comparisons.find((c: { quantity: string }) => c.quantity === 'potential energy')).toMatchObject({ agree: true });
+  });
+
+  it('when the file\'s energies and the model\'s disagree, then the API summary gives both means and the potential-energy card warns with both values', async () => {
+    const stronger = { pairs: [{ ...ARGON.pairs[0], epsilonEV: 0.0103236 * 1.1 }] };
+    const report = await analyse(fileId, ['energy'], { fileQuantities: fromFile, interactionModel: stronger });
+    const c = report.summary.energy.comparisons.find((x: { quantity: string }) => x.quantity === 'potential energy');
+    expect(c.agree).toBe(false);
+    // U is linear in ε: 10 % more ε gives 10 % more (negative) potential energy; the file matches the
+    // unchanged model to ~1e-5 relative (positions stored as 32-bit floats), hence 4 decimals here.
+    expect(c.modelMean / c.fileMean).toBeCloseTo(1.1, 4);
+    expect(report.summary.energy.potentialPerAtomEV.mean).toBeCloseTo(c.modelMean, 9);
+    const card = energyCards(report.summary).find((x) => x.id === 'energy-potential')!;
+    expect(card.warning).toMatch(/^File and model disagree on the potential energy: file -0\.05\d+ eV\/atom, model -0\.05\d+ eV\/atom \(mean difference/);
+    expect(card.warning).toMatch(/Check units, cut-off, shift and tail conventions\.$/);
   });
 });

@@ -39,6 +39,35 @@ describe('energy cards', () => {
     expect(c.warning).toMatch(/File and model disagree on the potential energy: file -0.0512 eV\/atom, model -0.0612 eV\/atom/);
   });
 
+  it('when the pressure comes from the file and there is no model, then the card is titled so and its detail says what is shown and why there is no tensor', () => {
+    const note = 'Shown: the pressure as the file states it, key "press" (bar), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).';
+    const p = energyCards({ energy: summary({ sources: { potential: 'file', kinetic: 'stored velocities', pressure: 'file' }, pressureTensorBar: null, pressureNote: note }) })
+      .find((c) => c.id === 'energy-pressure')!;
+    expect(p.title).toBe('Pressure (from the file)');
+    expect(p.value).toBe('420 ± 12');
+    expect(p.detail).toBe(note);
+  });
+
+  it('when the model gives the virial and the file no pressure, then the card shows the tensor and says there is nothing to compare with', () => {
+    const p = energyCards({ energy: summary({ pressureNote: 'Shown: the virial pressure and its tensor from the interaction model; the file states no pressure to compare it with.' }) })
+      .find((c) => c.id === 'energy-pressure')!;
+    expect(p.title).toBe('Virial pressure');
+    expect(p.detail).toMatch(/diagonal 410, 425, 425 bar.*\. Shown: the virial pressure and its tensor from the interaction model; the file states no pressure to compare it with\.$/);
+  });
+
+  it('when there is no pressure at all, then the card stays and says why instead of a number', () => {
+    const note = 'No pressure: the file states none, and the model\'s virial pressure and tensor need a periodic cell volume, and this run has open boundaries.';
+    const p = energyCards({ energy: summary({ pressureBar: null, pressureTensorBar: null, sources: { potential: 'model', kinetic: 'stored velocities', pressure: null }, pressureNote: note }) })
+      .find((c) => c.id === 'energy-pressure')!;
+    expect([p.value, p.detail]).toEqual(['—', note]);
+  });
+
+  it('when the file\'s pressure and the virial disagree, then the pressure card warns with both values', () => {
+    const p = energyCards({ energy: summary({ comparisons: [{ quantity: 'pressure', unit: 'bar', fileMean: 1.013, modelMean: 420, meanDifference: -419, rmsDifference: 30, tolerance: 5, agree: false }] }) })
+      .find((c) => c.id === 'energy-pressure')!;
+    expect(p.warning).toMatch(/File and model disagree on the pressure: file 1.013 bar, model 420 bar/);
+  });
+
   it('when there is no ensemble, then the heat-capacity card shows the reason instead of a number', () => {
     const c = energyCards({ energy: summary({ heatCapacity: null, heatCapacityNote: 'Set the run’s ensemble.', nveCheck: null }) }).find((x) => x.id === 'energy-cv')!;
     expect(c.value).toBe('—');

@@ -31,14 +31,18 @@ function potentialCard(e: EnergySummary): HeadlineCard {
 }
 
 function pressureCard(e: EnergySummary): HeadlineCard {
-  const p = e.pressureBar!;
+  const p = e.pressureBar;
+  if (!p) return { id: 'energy-pressure', title: 'Pressure', value: '—', unit: '', detail: e.pressureNote ?? 'Not available', warning: null };
   const t = e.pressureTensorBar;
   const tensor = t ? ` · diagonal ${[t.xx, t.yy, t.zz].map((c) => formatNumber(c.mean, 3)).join(', ')} bar; largest shear ${formatNumber(Math.max(...[t.xy, t.xz, t.yz].map((c) => Math.abs(c.mean))), 3)} bar` : '';
   const tail = e.tail ? `, tail ${formatNumber(e.tail.pressureBar, 3)} bar included` : '';
   return {
     id: 'energy-pressure', title: e.sources.pressure === 'virial' ? 'Virial pressure' : 'Pressure (from the file)',
     value: formatWithError(p.mean, p.stdError), unit: 'bar',
-    detail: `${e.sources.pressure === 'virial' ? 'Kinetic plus pair virial over the cell volume' : 'As the file states it'}${tail}${tensor}${comparisonNote(e, 'pressure')}`,
+    // The note says what is shown and why the rest is missing; a file's pressure needs nothing else.
+    detail: e.sources.pressure === 'virial'
+      ? `Kinetic plus pair virial over the cell volume${tail}${tensor}${comparisonNote(e, 'pressure')}.${e.pressureNote ? ` ${e.pressureNote}` : ''}`
+      : e.pressureNote ?? 'As the file states it.',
     warning: comparisonWarning(e, 'pressure'),
   };
 }
@@ -91,7 +95,8 @@ export function energyCards(summary: ReportSummary): HeadlineCard[] {
   if (!e) return [];
   return [
     potentialCard(e),
-    ...(e.pressureBar ? [pressureCard(e)] : []),
+    // Without any pressure the card stays, to say why (no model, open boundaries, nothing in the file).
+    ...(e.pressureBar || e.pressureNote ? [pressureCard(e)] : []),
     ...(e.drift ? [driftCard(e)] : []),
     heatCapacityCard(summary, e),
   ];

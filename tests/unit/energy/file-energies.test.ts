@@ -37,10 +37,10 @@ function frames(count: number) {
   });
 }
 
-function extxyz(list: ReturnType<typeof frames>, energyOf: (e: number, f: number) => number): string {
+function extxyz(list: ReturnType<typeof frames>, energyOf: (e: number, f: number) => number, extra = (_f: number) => ''): string {
   const n = list[0].positions.length / 3;
   return list.map((fr, f) => {
-    const lines = [`${n}`, `Lattice="${L} 0 0 0 ${L} 0 0 0 ${L}" Properties=species:S:1:pos:R:3 Time=${(f * 0.01).toFixed(2)} energy=${energyOf(fr.energyEV, f)} stress="1 2 3 4 5 6 7 8 9" pbc="T T T" note=hello Epot_kJmol=${(energyOf(fr.energyEV, f) * 96.4853321233).toFixed(8)}`];
+    const lines = [`${n}`, `Lattice="${L} 0 0 0 ${L} 0 0 0 ${L}" Properties=species:S:1:pos:R:3 Time=${(f * 0.01).toFixed(2)} energy=${energyOf(fr.energyEV, f)} stress="1 2 3 4 5 6 7 8 9" pbc="T T T" note=hello Epot_kJmol=${(energyOf(fr.energyEV, f) * 96.4853321233).toFixed(8)}${extra(f)}`];
     for (let i = 0; i < n; i++) lines.push(`Ar ${fr.positions[3 * i]} ${fr.positions[3 * i + 1]} ${fr.positions[3 * i + 2]}`);
     return lines.join('\n');
   }).join('\n') + '\n';
@@ -79,6 +79,41 @@ describe('energies from the trajectory file', () => {
     expect(c.meanDifference).toBeCloseTo(0.032, 9);
     expect(c.fileMean - c.modelMean).toBeCloseTo(0.032, 9);
     expect(r.sources.potential).toBe('model');
+  });
+
+  it('when the file states a pressure but there is no model (so no virial and no tensor), then the file\'s pressure is shown and the note says what and why', async () => {
+    const path = dir.file('pressure.extxyz');
+    await (await import('node:fs/promises')).writeFile(path, extxyz(frames(8), (e) => e, (f) => ` press=${(1.5 + 0.01 * f).toFixed(3)}`));
+    const { traj } = await load(path, 'pressure.extxyz');
+    const r = energy(traj, { model: null, fileQuantities: { potentialEnergy: { key: 'energy', unit: 'eV' }, pressure: { key: 'press', unit: 'MPa' } } });
+    expect(r.sources.pressure).toBe('file');
+    expect(r.pressureTensorBar).toBeNull();
+    // 1 MPa = 10 bar (the bar is defined as 10⁵ Pa).
+    expect(r.means.pressureBar!.mean).toBeCloseTo(15.35, 9);
+    expect(r.pressureNote).toBe('Shown: the pressure as the file states it, key "press" (MPa), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
+  });
+
+  it('when the model gives the virial and tensor but the file maps no pressure, then the note says the virial is shown with nothing to compare it with', async () => {
+    const path = dir.file('virial-only.extxyz');
+    await (await import('node:fs/promises')).writeFile(path, extxyz(frames(8), (e) => e));
+    const { traj } = await load(path, 'virial-only.extxyz');
+    const r = energy(traj, { model, fileQuantities: null });
+    expect(r.sources.pressure).toBe('virial');
+    expect(r.pressureTensorBar).toHaveLength(6);
+    expect(r.pressureNote).toMatch(/^Shown: the virial pressure and its tensor from the interaction model; none of the file's per-frame numbers is mapped as the pressure, so there is nothing to compare it with/);
+  });
+
+  it('when the model runs on open boundaries beside a file pressure, then the file\'s pressure is shown and the note says the virial needs a periodic cell', async () => {
+    const path = dir.file('open.extxyz');
+    await (await import('node:fs/promises')).writeFile(path, extxyz(frames(8), (e) => e, () => ' press=2.0'));
+    const { traj } = await load(path, 'open.extxyz');
+    const open = { ...traj, boundary: 'none' as const };
+    const r = energy(open, { model, fileQuantities: { pressure: { key: 'press', unit: 'bar' } } });
+    expect(r.sources.pressure).toBe('file');
+    expect(r.pressureNote).toMatch(/key "press" \(bar\).*the model's virial pressure and tensor need a periodic cell volume, and this run has open boundaries/);
+    const none = energy(open, { model, fileQuantities: null });
+    expect(none.pressureBar).toBeNull();
+    expect(none.pressureNote).toMatch(/^No pressure: the file states none \(no per-frame number is mapped as the pressure\), and the model's virial pressure and tensor need a periodic cell volume/);
   });
 
   it('when a mapped key is absent, then the error names the key and lists the keys the file has', async () => {
