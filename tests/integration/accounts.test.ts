@@ -61,6 +61,26 @@ describe('sign-up, sign-in and sign-out', () => {
     expect(again.status).toBe(201);
   });
 
+  it('when a display name or project name holds CR/LF or a right-to-left override, then 400 names the field, the character and its place, and nothing is made', async () => {
+    const client = await new ApiClient(app).prime();
+    const email = uniqueEmail('names');
+    for (const [displayName, problem] of [
+      ['Eve\r\nBcc: everyone', 'a control character (U+000D) at position 4'],
+      ['Mallory\u202Etxt.exe', 'a text-direction control character (U+202E) at position 8'],
+    ] as const) {
+      const res = await client.post('/api/auth/register', { email, password: 'long-enough-pw', displayName });
+      expect(res.status).toBe(400);
+      expect(res.body.error.details).toEqual([{ field: 'displayName', message: `must not contain ${problem}` }]);
+    }
+    const account = await signUp(app, 'names-ok');
+    const project = await account.client.post('/api/projects', { name: 'Quartz\u2066 runs' });
+    expect(project.status).toBe(400);
+    expect(project.body.error.message).toBe('name: must not contain a text-direction control character (U+2066) at position 7');
+    // Letters of every script and accents are names like any other.
+    const fine = await client.post('/api/auth/register', { email, password: 'long-enough-pw', displayName: 'Zoë Øster-Ångström 王' });
+    expect(fine.status).toBe(201);
+  });
+
   it('when the e-mail is taken, then sign-up answers 409', async () => {
     const account = await signUp(app, 'taken');
     const client = await new ApiClient(app).prime();

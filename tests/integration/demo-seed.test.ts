@@ -4,6 +4,8 @@ import { analysisRuns, projects, reports, series, trajectories, users } from '..
 import { getSeries } from '../../server/services/series/series.ts';
 import { seedDemo } from '../../server/demo/seed.ts';
 import { DEMO_ACCOUNTS, DEMO_PROJECTS, DEMO_SERIES } from '../../server/demo/scenario.ts';
+import { DEMO_ARGON_MODEL } from '../../server/demo/demo-trajectories.ts';
+import { interactionModelSchema } from '../../shared/interaction-model.ts';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
 import { createTestApp } from '../support/test-app.ts';
 
@@ -58,6 +60,9 @@ describe('the demo lab seed', () => {
       expect(Number.isFinite(energy.pressureBar.mean)).toBe(true);
       expect(energy.comparisons.map((c) => c.agree)).toEqual([true]);
       expect(energy.nveCheck).not.toBeNull();
+      // The report keeps the model it used, and its pressure card says where the pressure came from.
+      expect((byFile.get(file)!.params as { interactionModel?: unknown }).interactionModel).toEqual(interactionModelSchema.parse(DEMO_ARGON_MODEL));
+      expect((energy as { pressureNote?: string }).pressureNote).toMatch(/^Shown: the virial pressure and its tensor from the interaction model/);
     }
 
     // The diatomics do not rotate: stated with 2 constraints per molecule they read their 300 K

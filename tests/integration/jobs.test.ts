@@ -67,6 +67,14 @@ describe('the job worker (BullMQ in worker threads)', () => {
     expect(goodRow.status).toBe('ready');
   });
 
+  it('when a coordinate is 1e39, beyond what a 32-bit float holds, then inspection fails naming file, frame, line and value, and no frame store is kept', async () => {
+    const id = await storedTrajectory('far-away.xyz', Buffer.from('2\nfirst\nAr 0 0 0\nAr 1 1 1\n2\nsecond\nAr 0 0 0\nAr 1e39 1 1\n'));
+    const row = await pollUntil(() => rowOf(id), (r) => r.status !== 'inspecting');
+    expect(row.status).toBe('failed');
+    expect(row.error).toMatch(/^far-away\.xyz, frame 2, line 8: atom 2 has position x = 1e\+39, which is not a finite number a 32-bit float can hold/);
+    expect(row.frameStoreKey).toBeNull();
+  });
+
   it('when an analysis run is queued, then it runs, mirrors progress to its row and stores a report with curves', async () => {
     const { bytes } = await lennardJonesExtxyz();
     const id = await storedTrajectory('liquid.extxyz', bytes);
