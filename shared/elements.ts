@@ -87,32 +87,47 @@ export const ELEMENTS: ReadonlyMap<string, ElementData> = new Map(
 
 export class UnknownElementError extends Error {
   constructor(readonly label: string) {
-    super(`Unknown element "${label}": give a mass for it in the run settings, or rename the species.`);
+    super(`Unknown element "${label}": no element symbol, case and all, starts the label; confirm its element or give its mass in the trajectory's metadata (or as "masses" in the run settings).`);
     this.name = 'UnknownElementError';
   }
 }
 
 /**
- * Maps a species label from a trajectory file to an element symbol. Files use
- * labels such as "Ar1", "ar", "OW" or "Na+": leading letters are tried as a
- * two-letter then a one-letter symbol, case-insensitively.
+ * How a species label maps to an element. Only case-exact symbols count,
+ * because files often carry atom names rather than elements: "CA" is the
+ * α-carbon of a protein far more often than calcium, "NE" a side-chain
+ * nitrogen rather than neon. So:
+ * - `exact`: the label is a symbol, case and all ("Ca", "O", "Na");
+ * - `assumed`: no symbol itself, but it starts with a case-exact one: two
+ *   letters first ("Ar1" → Ar, "Na+" → Na, "Cl-" → Cl), else one
+ *   ("CA" → C, "NE" → N, "OW" → O, "C1" → C, "HW2" → H). Listed after
+ *   inspection for the user to confirm;
+ * - `unknown`: nothing case-exact at its start ("ca", "bead", "1A"): a mass
+ *   (or an element) must be given before a mass-weighted analysis runs.
+ * A label is never read as a symbol of other case: "CA" is never calcium.
  */
-export function elementSymbolOf(label: string): string {
-  const letters = /^[A-Za-z]+/.exec(label.trim())?.[0] ?? '';
-  const candidates = [letters.slice(0, 2), letters.slice(0, 1)].filter((c) => c.length > 0);
-  // A label that is exactly a one-letter symbol plus a lower-case tail ("Os"?) is
-  // ambiguous; an exact full match is preferred before falling back to prefixes.
-  const whole = normaliseSymbol(letters);
-  if (ELEMENTS.has(whole)) return whole;
-  for (const c of candidates) {
-    const s = normaliseSymbol(c);
-    if (ELEMENTS.has(s)) return s;
-  }
-  throw new UnknownElementError(label);
+export interface ElementGuess {
+  element: string | null;
+  massU: number | null;
+  status: 'exact' | 'assumed' | 'unknown';
 }
 
-function normaliseSymbol(s: string): string {
-  return s.length === 0 ? s : s[0].toUpperCase() + s.slice(1).toLowerCase();
+export function guessElement(label: string): ElementGuess {
+  const trimmed = label.trim();
+  const known = (symbol: string, status: 'exact' | 'assumed'): ElementGuess => ({ element: symbol, massU: ELEMENTS.get(symbol)!.massU, status });
+  if (ELEMENTS.has(trimmed)) return known(trimmed, 'exact');
+  const two = trimmed.slice(0, 2);
+  if (/^[A-Z][a-z]$/.test(two) && ELEMENTS.has(two)) return known(two, 'assumed');
+  const one = trimmed.slice(0, 1);
+  if (/^[A-Z]$/.test(one) && ELEMENTS.has(one)) return known(one, 'assumed');
+  return { element: null, massU: null, status: 'unknown' };
+}
+
+/** The element symbol a label stands for by the case-exact rule above; throws for a label with none. */
+export function elementSymbolOf(label: string): string {
+  const { element } = guessElement(label);
+  if (element === null) throw new UnknownElementError(label);
+  return element;
 }
 
 export function elementOf(label: string): ElementData {

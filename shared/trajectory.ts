@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { fileQuantitiesSchema } from './file-quantities.ts';
 import { isoDate, personRef, recordId } from './api-fields.ts';
+import { ELEMENTS, guessElement } from './elements.ts';
 
 export const LENGTH_UNITS = ['angstrom', 'nm', 'pm', 'bohr'] as const;
 export const TIME_UNITS = ['fs', 'ps', 'ns', 'au'] as const;
@@ -35,6 +36,43 @@ export const speciesElementSchema = z.object({
 });
 export type SpeciesElement = z.infer<typeof speciesElementSchema>;
 
+/**
+ * A user's answer for one species: its element (a symbol, case and all, or
+ * null for a bead or pseudo-atom) and the mass every analysis uses, u. The
+ * mass defaults to the element's standard atomic weight.
+ */
+export const speciesElementChoiceSchema = z.object({
+  element: z.string().nullable().refine((e) => e === null || ELEMENTS.has(e), { message: 'must be an element symbol, case and all (e.g. "C", "Ca"), or empty for a bead' }),
+  massU: z.number({ error: 'must be a number' }).positive('must be above 0 u').max(1e6, 'must be at most 1 000 000 u').optional(),
+}).strict().refine((c) => c.element !== null || c.massU !== undefined, { message: 'give a mass for a species without an element', path: ['massU'] });
+export type SpeciesElementChoice = z.infer<typeof speciesElementChoiceSchema>;
+
+/** What the user confirmed: the element and mass, stored with status `confirmed`. */
+export function confirmedElement(choice: SpeciesElementChoice): SpeciesElement {
+  return { element: choice.element, massU: choice.massU ?? ELEMENTS.get(choice.element!)!.massU, status: 'confirmed' };
+}
+
+/** Every species' element: the stored answers, and the case-exact guess for a species nobody confirmed. */
+export function speciesElementsOf(labels: readonly string[], stored: Readonly<Record<string, SpeciesElement>> | null | undefined): Record<string, SpeciesElement> {
+  return Object.fromEntries(labels.map((label) => [label, stored?.[label] ?? guessElement(label)]));
+}
+
+/**
+ * Masses a run must be told, by species label: those whose stored element or
+ * mass differs from what the label alone gives by the case-exact rule (a
+ * confirmed change, or an unknown label given a mass). A mass the run's own
+ * settings already give, by label or by element symbol, is left to them.
+ */
+export function massesToFill(elements: Readonly<Record<string, SpeciesElement>>, given: Readonly<Record<string, number>> = {}): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [label, e] of Object.entries(elements)) {
+    if (e.massU === null || given[label] !== undefined || (e.element && given[e.element] !== undefined)) continue;
+    const guess = guessElement(label);
+    if (guess.massU !== e.massU) out[label] = e.massU;
+  }
+  return out;
+}
+
 const text = (max: number) => z.string().trim().max(max, `at most ${max} characters`);
 
 /** Fields the uploader may set or correct; every one optional in a PATCH. */
@@ -54,6 +92,9 @@ export const trajectoryMetadataSchema = z.object({
   notes: text(10_000),
   /** Which per-frame file numbers are energies, pressure or temperature, and their units. */
   fileQuantities: fileQuantitiesSchema.nullable(),
+  /** Species → element and mass as the user confirms them; only species of this trajectory. */
+  speciesElements: z.record(z.string().min(1).max(32), speciesElementChoiceSchema)
+    .refine((m) => Object.keys(m).length <= 64, 'at most 64 species at once'),
 }).partial().strict();
 
 export type TrajectoryMetadata = z.infer<typeof trajectoryMetadataSchema>;
@@ -61,7 +102,7 @@ export type TrajectoryMetadata = z.infer<typeof trajectoryMetadataSchema>;
 /** Body of PATCH /api/projects/:id/trajectories: one metadata change for several trajectories (names stay their own). */
 export const bulkMetadataBody = z.object({
   ids: z.array(z.number().int().positive(), { error: 'must be a list of trajectory ids' }).min(1, 'name at least one trajectory').max(500, 'at most 500 at once'),
-  changes: trajectoryMetadataSchema.omit({ name: true }).refine((c) => Object.keys(c).length > 0, 'give at least one field to change'),
+  changes: trajectoryMetadataSchema.omit({ name: true, speciesElements: true }).refine((c) => Object.keys(c).length > 0, 'give at least one field to change'),
 }).strict();
 export type BulkMetadata = z.infer<typeof bulkMetadataBody>;
 
@@ -95,6 +136,8 @@ export const trajectorySchema = z.object({
   atoms: z.number().int().nullable(),
   frames: z.number().int().nullable(),
   speciesCounts: z.record(z.string(), z.number().int()).nullable(),
+  /** Each species' element and mass as every analysis uses them; `assumed` and `unknown` ones await confirmation. */
+  speciesElements: z.record(z.string(), speciesElementSchema),
   cell: z.array(z.number()).nullable(),
   cellChanges: z.boolean().nullable(),
   hasVelocities: z.boolean().nullable(),

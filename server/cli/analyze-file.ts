@@ -17,6 +17,7 @@ import { planRun, PlanProblem, type PlannedRun, type TrajectoryFacts } from '../
 import { encodeCurves, decodeCurves } from '../services/report-curves.ts';
 import type { ReportCurve } from '../../shared/report.ts';
 import { reportTitle } from '../../shared/report-title.ts';
+import { speciesElementsOf, type SpeciesElement } from '../../shared/trajectory.ts';
 
 export interface AnalyzeFileOptions {
   analyses: AnalysisKey[];
@@ -151,27 +152,29 @@ async function readSelected(path: string, options: AnalyzeFileOptions, spill: As
 }
 
 /** Reads any supported file, runs the same engine the server runs on the selected frames, and returns the report document. */
-export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: FileInfo }> {
+export async function analyzeFile(path: string, options: AnalyzeFileOptions): Promise<{ report: LocalReport; info: FileInfo; speciesElements: Record<string, SpeciesElement> }> {
   // Coordinates beyond the memory budget wait in a scratch file that goes when the report is made.
   return withScratch(IN_MEMORY_COORDINATE_BYTES, (spill) => analyzeWithin(path, options, spill));
 }
 
-async function analyzeWithin(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ report: LocalReport; info: FileInfo }> {
+async function analyzeWithin(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ report: LocalReport; info: FileInfo; speciesElements: Record<string, SpeciesElement> }> {
   const name = basename(path);
   const [{ traj, plan, info }, inputSha256] = await Promise.all([
     choosesFrames(options.params) ? readSelected(path, options, spill) : readWhole(path, options, spill), sha256Of(path),
   ]);
   const { selection, params } = plan;
+  const speciesElements = speciesElementsOf([...new Set(traj.species)], null);
   const run = runAnalyses(traj, options.analyses, params, undefined, options.facts);
   const framesUsed = { from: selection.from, to: selection.to, stride: selection.stride, used: selection.frames, discardedFrames: selection.discardFrames, discardPs: params.discardPs, autoStride: selection.autoStride };
   return {
     info,
+    speciesElements,
     report: {
       title: reportTitle(name, options.analyses, run.methods.params),
       analyses: options.analyses,
       params: run.methods.params,
       summary: run.summary,
-      methods: { ...run.methods, caution: run.caution, input: { file: name, sha256: inputSha256, format: info.format, atoms: info.atoms, frames: info.frames, ...options }, frames: framesUsed },
+      methods: { ...run.methods, caution: run.caution, input: { file: name, sha256: inputSha256, format: info.format, atoms: info.atoms, frames: info.frames, speciesElements, ...options }, frames: framesUsed },
       engineVersion: run.engineVersion,
       inputSha256,
       // Same encoding as stored reports, so NaN becomes null exactly as the API serves it.

@@ -6,6 +6,7 @@ import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shar
 import { analyzeFile, planFile, type AnalyzeFileOptions } from './analyze-file.ts';
 import { printEstimate, printSummary } from './print-summary.ts';
 import { readPotential } from './read-potential.ts';
+import type { SpeciesElement } from '../../shared/trajectory.ts';
 import { mergeParams, readParamsFile } from './read-params.ts';
 import { ENERGY_UNIT_LIST } from '../../shared/energy-units.ts';
 
@@ -75,6 +76,12 @@ function positive(value: string | undefined, flag: string): number | undefined {
   return n;
 }
 
+/** Species whose element was not stated exactly, each with what the run used: the user must know, never silently. */
+function assumedElements(elements: Record<string, SpeciesElement>, masses: Readonly<Record<string, number>>): string[] {
+  return Object.entries(elements).filter(([label, e]) => e.status === 'assumed' && masses[label] === undefined && !(e.element && masses[e.element] !== undefined))
+    .map(([label, e]) => `species "${label}" is taken as ${e.element} (${e.massU} u) from the element symbol its label starts with; if it is not, give its mass as "masses": {"${label}": …} in --params`);
+}
+
 export async function main(argv: string[]): Promise<number> {
   try {
     const { values, positionals } = parseArgs({
@@ -140,7 +147,8 @@ export async function main(argv: string[]): Promise<number> {
       printEstimate(plan);
       return 0;
     }
-    const { report } = await analyzeFile(file, options);
+    const { report, speciesElements } = await analyzeFile(file, options);
+    for (const line of assumedElements(speciesElements, options.params.masses ?? {})) console.error(`ergodic: note: ${line}`);
     const json = JSON.stringify(report, null, 2);
     if (values.json === '-') process.stdout.write(json + '\n');
     else {

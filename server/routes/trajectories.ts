@@ -17,9 +17,18 @@ function metadataFromFields(fields: Record<string, unknown>) {
   const parsed: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(fields ?? {})) {
     if (typeof value !== 'string' || value.trim() === '') continue;
-    parsed[key] = ['temperatureK', 'timeStep', 'constraints'].includes(key) ? Number(value) : value;
+    parsed[key] = ['temperatureK', 'timeStep', 'constraints'].includes(key) ? Number(value) : key === 'speciesElements' ? jsonOrText(value) : value;
   }
   return trajectoryMetadataSchema.safeParse(parsed);
+}
+
+/** A JSON field (species → element answers) as its value; text that is not JSON is left for the schema to refuse by name. */
+function jsonOrText(value: string): unknown {
+  try {
+    return JSON.parse(value);
+  } catch {
+    return value;
+  }
 }
 
 export function trajectoryRoutes(ctx: AppContext): RouteDef[] {

@@ -10,6 +10,7 @@ import type { TrajectoryRow } from '../db/schema/index.ts';
 import { AppError, conflict } from '../errors.ts';
 import { LENGTH_TO_ANGSTROM, TIME_TO_PS, type LengthUnit, type TimeUnit } from '../formats/units.ts';
 import { adviceFor, describeEstimate, ParamOutOfBounds, planRun, PlanProblem, type CostLimits, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
+import { massesToFill, speciesElementsOf } from '../../shared/trajectory.ts';
 import { energyInputs } from './interaction-models.ts';
 import { getTrajectoryRow } from './trajectories.ts';
 
@@ -37,10 +38,11 @@ export async function planFor(ctx: AppContext, row: TrajectoryRow, analyses: Ana
   if (!row.timeStep) throw conflict(`${row.name} states no time between frames: set "Time between frames" in its metadata first.`);
   // The energy analysis takes the stored model, file keys and ensemble unless the request names its own.
   const energy = analyses.includes('energy') ? await energyInputs(ctx, row, paramsInput as Record<string, unknown>) : {};
+  const masses = speciesMasses(row, analyses, paramsInput.masses ?? {});
   const facts = trajectoryFacts(row);
   let plan: PlannedRun;
   try {
-    plan = planRun(facts, analyses, { ...paramsInput, ...energy });
+    plan = planRun(facts, analyses, { ...paramsInput, ...energy, ...(masses ? { masses } : {}) });
   } catch (err) {
     // Like a schema refusal: 400 naming the field.
     if (err instanceof ParamOutOfBounds) throw new AppError(400, 'invalid_input', err.message, [{ field: err.field, message: err.detail }]);
@@ -51,6 +53,26 @@ export async function planFor(ctx: AppContext, row: TrajectoryRow, analyses: Ana
   const estimate = describeEstimate(plan, limits, []);
   if (!estimate.withinLimits) estimate.advice = adviceFor(plan, facts, analyses, limits);
   return { plan, estimate };
+}
+
+/** Analyses that weigh atoms by mass (all but the structural ones). */
+const MASS_FREE: readonly AnalysisKey[] = ['rdf', 'sq'];
+
+/**
+ * The masses a run is told, recorded in its parameters: the user's confirmed
+ * species → element answers where they differ from what the labels alone
+ * give, beside the masses the request names. A species with neither an
+ * element nor a mass refuses the run (422) before anything is queued.
+ */
+function speciesMasses(row: TrajectoryRow, analyses: readonly AnalysisKey[], given: Readonly<Record<string, number>>): Record<string, number> | null {
+  const elements = speciesElementsOf(Object.keys(row.speciesCounts ?? {}), row.speciesElements);
+  if (analyses.every((a) => MASS_FREE.includes(a))) return null;
+  const missing = Object.entries(elements).filter(([label, e]) => e.massU === null && given[label] === undefined).map(([label]) => `"${label}"`);
+  if (missing.length) {
+    throw new AppError(422, 'unknown_element', `In ${row.name}, species ${missing.join(', ')} ${missing.length > 1 ? 'name' : 'names'} no element (no element symbol, case and all, starts the label): confirm the element or give the mass in the trajectory's metadata, or give "masses" in the run settings.`);
+  }
+  const filled = massesToFill(elements, given);
+  return Object.keys(filled).length ? { ...filled, ...given } : null;
 }
 
 /** What a run would cost, without starting it. */

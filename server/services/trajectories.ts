@@ -1,5 +1,6 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
-import type { TrajectoryDto, TrajectoryMetadata } from '../../shared/trajectory.ts';
+import { confirmedElement, speciesElementsOf, type SpeciesElement, type TrajectoryDto, type TrajectoryMetadata } from '../../shared/trajectory.ts';
+import { AppError } from '../errors.ts';
 import type { AppContext } from '../context.ts';
 import { projects, trajectories, users, type TrajectoryRow } from '../db/schema/index.ts';
 import { badRequest, notFound } from '../errors.ts';
@@ -19,6 +20,7 @@ export function toTrajectoryDto(row: TrajectoryRow, uploaderName: string, projec
     equilibration: row.equilibrationFrame === null ? null : { frame: row.equilibrationFrame, judgedFrom: row.equilibrationSeries ?? 'a per-frame series' },
     format: row.format, compression: row.compression, status: row.status, error: row.error,
     atoms: row.atoms, frames: row.frames, speciesCounts: row.speciesCounts ?? null, cell: row.cell ?? null,
+    speciesElements: speciesElementsOf(Object.keys(row.speciesCounts ?? {}), row.speciesElements),
     cellChanges: row.cellChanges, hasVelocities: row.hasVelocities, timeStep: row.timeStep,
     timeUnit: row.timeUnit, lengthUnit: row.lengthUnit, velocityUnit: row.velocityUnit,
     temperatureK: row.temperatureK, ensemble: row.ensemble, boundary: row.boundary, constraints: row.constraints,
@@ -131,12 +133,32 @@ export async function registerStoredFile(
   return completeUpload(ctx, { ...stored, trajectoryId }, metadata);
 }
 
-function metadataColumns(m: TrajectoryMetadata): Partial<typeof trajectories.$inferInsert> {
+function metadataColumns(m: TrajectoryMetadata, row?: TrajectoryRow): Partial<typeof trajectories.$inferInsert> {
   const out: Partial<typeof trajectories.$inferInsert> = {};
   for (const [key, value] of Object.entries(m)) {
-    if (value !== undefined) (out as Record<string, unknown>)[key] = value;
+    if (value !== undefined && key !== 'speciesElements') (out as Record<string, unknown>)[key] = value;
   }
+  if (m.speciesElements) out.speciesElements = confirmedSpecies(m.speciesElements, row);
   return out;
+}
+
+/**
+ * The user's species → element answers, stored as confirmed. On an inspected
+ * trajectory every label must be one of its species (a 400 naming the field
+ * otherwise) and the other species keep their answers or guesses; before
+ * inspection (at upload) they wait for the species the file turns out to have.
+ */
+function confirmedSpecies(choices: NonNullable<TrajectoryMetadata['speciesElements']>, row?: TrajectoryRow): Record<string, SpeciesElement> {
+  const labels = row?.speciesCounts ? Object.keys(row.speciesCounts) : null;
+  if (labels) {
+    const strangers = Object.keys(choices).filter((l) => !labels.includes(l));
+    if (strangers.length) {
+      throw new AppError(400, 'invalid_input', `${strangers.map((l) => `"${l}"`).join(', ')} ${strangers.length > 1 ? 'are not species' : 'is not a species'} of ${row!.name}; its species are ${labels.join(', ')}.`,
+        strangers.map((l) => ({ field: `speciesElements.${l}`, message: 'not a species of this trajectory' })));
+    }
+  }
+  const confirmed = Object.fromEntries(Object.entries(choices).map(([label, c]) => [label, confirmedElement(c)]));
+  return labels ? { ...speciesElementsOf(labels, row!.speciesElements), ...confirmed } : confirmed;
 }
 
 /** Applies the uploader's corrections; a typed-in value is no longer "from the file". */
@@ -144,7 +166,7 @@ export async function updateMetadata(ctx: AppContext, id: number, metadata: Traj
   const row = await getTrajectoryRow(ctx, id);
   const changed = Object.keys(metadata);
   const fromFile = (row.fromFile ?? []).filter((f) => !changed.includes(f));
-  await ctx.db.update(trajectories).set({ ...metadataColumns(metadata), fromFile, updatedAt: new Date() }).where(eq(trajectories.id, id));
+  await ctx.db.update(trajectories).set({ ...metadataColumns(metadata, row), fromFile, updatedAt: new Date() }).where(eq(trajectories.id, id));
   await touchProject(ctx, row.projectId);
   return getTrajectory(ctx, id);
 }

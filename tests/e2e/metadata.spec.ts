@@ -68,3 +68,53 @@ test.describe('metadata', () => {
     await expect(page.getByRole('row').filter({ hasText: 'kept.extxyz' })).not.toContainText('NVT');
   });
 });
+
+/** Atom names as biomolecular files write them: CA an α-carbon, NE a nitrogen, and a bead that names no element. */
+function atomNamesXyz(): Buffer {
+  const blocks = Array.from({ length: 4 }, (_, f) => `4\nLattice="20 0 0 0 20 0 0 0 20" Properties=species:S:1:pos:R:3 Time=${f * 0.1}\nCA 1 1 ${1 + f * 0.1}\nNE 3 3 3\nbead 5 5 5\nO 7 7 7\n`);
+  return Buffer.from(blocks.join(''));
+}
+
+const SIZES = [{ name: 'desktop', width: 1440, height: 900 }, { name: 'phone', width: 390, height: 844 }] as const;
+
+test.describe('species and elements', () => {
+  test('when a file labels atoms CA, NE and bead, then the table lists what was assumed, and the metadata form confirms CA as carbon and gives the bead its mass', async ({ page, context }) => {
+    const trajectory = await readyTrajectory(context, 'names.extxyz', atomNamesXyz());
+    await page.goto(`/projects/${trajectory.projectId}`);
+    const row = page.getByRole('row').filter({ hasText: 'names.extxyz' });
+    await expect(row).toContainText('To confirm: CA taken as C, NE as N; no element for bead');
+
+    await page.getByRole('button', { name: 'More actions for names.extxyz' }).click();
+    await page.getByRole('menuitem', { name: 'Edit metadata' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Metadata of names.extxyz' });
+    await expect(dialog.getByLabel('Element of CA')).toHaveValue('C');
+    await expect(dialog.getByLabel('Mass of CA (u)')).toHaveValue('12.011');
+    await expect(dialog.locator('[data-species="O"]')).toContainText('symbol in the file');
+    await expect(dialog.locator('[data-species="bead"]')).toContainText('unknown: give a mass');
+
+    for (const size of SIZES) {
+      await page.setViewportSize({ width: size.width, height: size.height });
+      await dialog.locator('[data-species="bead"]').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `test-results/screens/species-elements-${size.name}.png` });
+    }
+    await page.setViewportSize({ width: 1440, height: 900 });
+
+    // A symbol in the wrong case is refused in place, with the right spelling offered.
+    await dialog.getByLabel('Element of NE').fill('NE');
+    await expect(dialog.locator('[data-species="NE"]')).toContainText('Write it as "Ne": case tells elements apart');
+    await dialog.getByLabel('Element of NE').fill('N');
+    await dialog.locator('[data-species="CA"]').getByRole('checkbox', { name: 'Confirmed' }).check();
+    await dialog.getByLabel('Mass of bead (u)').fill('72');
+    await dialog.getByRole('button', { name: 'Save' }).click();
+    await expect(dialog).toBeHidden();
+    await expect(row).not.toContainText('To confirm');
+
+    const stored = await (await context.request.get(`/api/trajectories/${trajectory.id}`)).json();
+    expect(stored.trajectory.speciesElements).toEqual({
+      CA: { element: 'C', massU: 12.011, status: 'confirmed' },
+      NE: { element: 'N', massU: 14.007, status: 'confirmed' },
+      bead: { element: null, massU: 72, status: 'confirmed' },
+      O: { element: 'O', massU: 15.999, status: 'exact' },
+    });
+  });
+});

@@ -1,3 +1,4 @@
+import { speciesElementsOf } from '../../../shared/trajectory.ts';
 import { UnrecoverableError, type SandboxedJob } from 'bullmq';
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../../context.ts';
@@ -47,6 +48,8 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
       cellChanges: result.cellChanges, hasVelocities: result.hasVelocities, fileValues: result.fileValues,
       frameStoreKey: store.indexKey, frameStoreBytes: storedBytes, updatedAt: new Date(),
       equilibrationFrame: settled?.frame ?? null, equilibrationSeries: settled?.judgedFrom ?? null,
+      // Every species' element: answers given at upload kept, the rest guessed from case-exact symbols for the user to confirm.
+      speciesElements: speciesElementsOf(Object.keys(result.speciesCounts), row.speciesElements),
     };
     // Values the file states are pre-filled, unless the uploader already typed them in.
     if (result.timeStep !== undefined && row.timeStep === null && result.timeStep > 0) {

@@ -16,6 +16,8 @@ import { apiErrorMessage } from '../core/api-error';
 import { fieldProblems, initialValues, type MetadataFormValues } from './metadata-form';
 import type { FileQuantities } from '../../../shared/file-quantities';
 import { FileQuantitiesFields } from './file-quantities-fields';
+import { SpeciesElementsFields } from './species-elements-fields';
+import type { SpeciesElementChoice } from '../../../shared/trajectory';
 import { TrajectoriesApi } from './trajectories-api';
 
 /**
@@ -34,7 +36,7 @@ export type MetadataDialogResult =
 
 @Component({
   selector: 'erg-metadata-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, FileQuantitiesFields],
+  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, FileQuantitiesFields, SpeciesElementsFields],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h2 mat-dialog-title>{{ title }}</h2>
@@ -124,6 +126,10 @@ export type MetadataDialogResult =
           <mat-label>Notes</mat-label>
           <textarea matInput formControlName="notes" rows="3" [placeholder]="placeholder('notes')"></textarea>
         </mat-form-field>
+        @if (data.kind === 'one' && data.trajectory.speciesCounts) {
+          <erg-species-elements-fields class="wide" [speciesCounts]="data.trajectory.speciesCounts" [elements]="data.trajectory.speciesElements"
+            (choicesChange)="speciesChoices.set($event)" (validChange)="speciesValid.set($event)" />
+        }
         @if (data.kind === 'one' && data.trajectory.fileValues.length) {
           <erg-file-quantities-fields class="wide" [keys]="data.trajectory.fileValues" [value]="quantities()" (valueChange)="quantities.set($event); quantitiesChanged.set(true)" />
         }
@@ -167,6 +173,8 @@ export class MetadataDialog {
   private readonly initial = initialValues(this.data);
   protected readonly quantities = signal<FileQuantities | null>(this.data.kind === 'one' ? this.data.trajectory.fileQuantities : null);
   protected readonly quantitiesChanged = signal(false);
+  protected readonly speciesChoices = signal<Record<string, SpeciesElementChoice> | null>(null);
+  protected readonly speciesValid = signal(true);
 
   protected readonly form = inject(FormBuilder).group({
     name: [this.initial.values.name, this.data.kind === 'one' ? Validators.required : []],
@@ -204,10 +212,16 @@ export class MetadataDialog {
   protected save(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
+    if (!this.speciesValid()) {
+      this.error.set('Some species need a valid element symbol or a mass (see the species above).');
+      return;
+    }
     // Only what the user changed is sent, so untouched values stay as they are (and stay marked as read from the file).
     const raw = this.form.getRawValue();
     const changed: Record<string, unknown> = Object.fromEntries(Object.entries(raw).filter(([key, value]) => this.form.get(key)?.dirty && !(this.data.kind !== 'one' && value === null)));
     if (this.quantitiesChanged()) changed['fileQuantities'] = this.quantities();
+    const species = this.speciesChoices();
+    if (species) changed['speciesElements'] = species;
     const parsed = trajectoryMetadataSchema.safeParse(changed);
     if (!parsed.success) {
       this.error.set(parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; '));

@@ -17,7 +17,7 @@ import { map } from 'rxjs';
 import { formatBytes } from '../../../shared/byte-size';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { StatusChip } from './status-chip';
-import { filterText, formatText, nameParts, speciesText } from './trajectory-format';
+import { assumedElementsText, filterText, formatText, nameParts, speciesText } from './trajectory-format';
 
 export type TrajectoryAction = 'analyse' | 'edit' | 'model' | 'cut' | 'delete';
 
@@ -53,6 +53,7 @@ export class TrajectoriesTable {
   protected readonly pageRows = toSignal(this.dataSource.connect(), { initialValue: [] });
   protected readonly formatOf = formatText;
   protected readonly speciesOf = speciesText;
+  protected readonly assumedOf = assumedElementsText;
   protected readonly partsOf = nameParts;
   protected readonly size = formatBytes;
   protected readonly selectedIds = signal<ReadonlySet<number>>(new Set());

@@ -7,6 +7,18 @@ export function speciesText(t: Pick<TrajectoryDto, 'speciesCounts'>): string {
   return Object.entries(counts).sort((a, b) => b[1] - a[1]).map(([s, n]) => `${s} ${n}`).join(', ');
 }
 
+/**
+ * Every element inspection assumed, and every species it could not name, in
+ * one line ("CA taken as C, NE as N; no element for bead"), or '' when every
+ * label is an exact symbol or confirmed.
+ */
+export function assumedElementsText(t: Pick<TrajectoryDto, 'speciesElements'>): string {
+  const entries = Object.entries(t.speciesElements ?? {});
+  const assumed = entries.filter(([, e]) => e.status === 'assumed').map(([label, e], i) => `${label}${i === 0 ? ' taken' : ''} as ${e.element}`);
+  const unknown = entries.filter(([, e]) => e.status === 'unknown').map(([label]) => label);
+  return [assumed.join(', '), unknown.length ? `no element for ${unknown.join(', ')}` : ''].filter(Boolean).join('; ');
+}
+
 export function formatText(t: Pick<TrajectoryDto, 'format' | 'compression'>): string {
   if (!t.format) return '';
   const names: Record<string, string> = { xyz: 'XYZ', extxyz: 'Extended XYZ', pdb: 'PDB', h5md: 'H5MD' };
