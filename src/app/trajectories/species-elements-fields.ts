@@ -64,18 +64,20 @@ export function massProblem(text: string, element: string): string | null {
             <span class="count">{{ r.atoms }} atom{{ r.atoms === 1 ? '' : 's' }}</span>
             <span class="status" [class]="'status ' + (r.touched || r.confirmed && r.status !== 'exact' ? 'confirmed' : r.status)">{{ statusWords(r) }}</span>
           </div>
-          <mat-form-field appearance="outline" class="element">
-            <mat-label>Element of {{ r.label }}</mat-label>
-            <input matInput [value]="r.element" (input)="setElement(i, $any($event.target).value)" placeholder="none (bead)" autocomplete="off" spellcheck="false">
+          <mat-form-field appearance="outline" class="element" subscriptSizing="dynamic">
+            <mat-label>Element</mat-label>
+            <input matInput [attr.aria-label]="'Element of ' + r.label" [value]="r.element" (input)="setElement(i, $any($event.target).value)" placeholder="none: a bead" autocomplete="off" spellcheck="false">
             @if (elementError(r); as e) { <mat-hint class="bad">{{ e }}</mat-hint> }
           </mat-form-field>
-          <mat-form-field appearance="outline" class="mass">
-            <mat-label>Mass of {{ r.label }} (u)</mat-label>
-            <input matInput type="number" min="0" step="any" [value]="r.mass" (input)="setMass(i, $any($event.target).value)">
+          <mat-form-field appearance="outline" class="mass" subscriptSizing="dynamic">
+            <mat-label>Mass (u)</mat-label>
+            <input matInput type="number" min="0" step="any" [attr.aria-label]="'Mass of ' + r.label + ' (u)'" [value]="r.mass" (input)="setMass(i, $any($event.target).value)">
             @if (massError(r); as e) { <mat-hint class="bad">{{ e }}</mat-hint> }
           </mat-form-field>
           @if (r.status !== 'exact') {
             <mat-checkbox class="confirm" [checked]="r.confirmed" (change)="setConfirmed(i, $event.checked)">Confirmed</mat-checkbox>
+          } @else {
+            <span class="confirm"></span>
           }
         </div>
       }
@@ -85,7 +87,7 @@ export function massProblem(text: string, element: string): string | null {
     fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 8px 12px 0; margin: 0 0 12px; min-width: 0; }
     legend { padding: 0 4px; font: var(--mat-sys-title-small); }
     .hint { margin: 0 0 8px; color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
-    .row { display: grid; grid-template-columns: minmax(120px, 1.2fr) minmax(0, 1fr) minmax(0, 1fr) auto; gap: 4px 12px; align-items: start; padding-top: 4px; }
+    .row { display: grid; grid-template-columns: minmax(0, 1.1fr) minmax(0, 0.9fr) minmax(0, 1fr) 124px; gap: 4px 12px; align-items: start; padding: 4px 0 12px; }
     .label { display: flex; flex-direction: column; gap: 2px; padding-top: 6px; min-width: 0; }
     .name { font-weight: 600; overflow-wrap: anywhere; font-family: var(--erg-mono, monospace); }
     .count { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
@@ -95,6 +97,7 @@ export function massProblem(text: string, element: string): string | null {
     .status.unknown { background: var(--mat-sys-error-container); color: var(--mat-sys-on-error-container); }
     .status.confirmed { background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); }
     .confirm { padding-top: 8px; }
+    .bad { white-space: normal; }
     .bad { color: var(--mat-sys-error); }
     @media (max-width: 600px) {
       .row { grid-template-columns: minmax(0, 1fr) minmax(0, 1fr); border-top: 1px solid var(--mat-sys-outline-variant); padding-top: 8px; }
