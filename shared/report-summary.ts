@@ -36,6 +36,10 @@ export interface MsdGroupSummary {
 export interface MsdSummary {
   dimensions: number;
   groups: MsdGroupSummary[];
+  /** Components the MSD and D are over ("xy" for a slab); absent in reports before engine 0.3. */
+  components?: string;
+  /** For a system periodic along some directions only: which repeat ("xy"), and how D was taken. */
+  partlyPeriodic?: { periodicAxes: string; note: string } | null;
 }
 
 export interface VacfGroupSummary {
@@ -138,6 +142,8 @@ export interface RdfPairSummary {
 
 export interface RdfSummary {
   pairs: RdfPairSummary[];
+  /** Why g(r) was not computed (a slab, an open system), or absent when it was. */
+  refused?: string;
 }
 
 export interface MeanWithError {
@@ -195,6 +201,8 @@ export interface NgpSummary {
 
 export interface SqSummary {
   firstPeak: { qInvA: number; s: number } | null;
+  /** Why S(q) was not computed, or absent when it was. */
+  refused?: string;
 }
 
 /** Heat capacity from energy fluctuations, per atom and per mass, with block errors. */

@@ -7,7 +7,9 @@
  * pressure this keeps the true displacement (the box breathing does not
  * enter), which is the scheme recommended by von Bülow, Bullerjahn & Hummer,
  * J. Chem. Phys. 153, 021101 (2020) [from memory]. It requires that no atom
- * moves more than half a cell width between stored frames.
+ * moves more than half a cell width between stored frames. Along a
+ * direction that does not repeat (a slab's normal) positions are taken as
+ * they are: nothing crosses a wall.
  */
 import { cellFramesOf, minimumImage, type CellFrames } from './cell-geometry.ts';
 import { AtomCursor, checkCoordinateShape } from './coordinate-blocks.ts';
@@ -108,6 +110,7 @@ export class AtomSeriesReader {
       return;
     }
     const H = geom.cells;
+    const [px, py, pz] = geom.periodic;
     const d = this.d;
     let prev = p0;
     for (let t = 1; t < T; t++) {
@@ -118,9 +121,9 @@ export class AtomSeriesReader {
       if (geom.orthorhombic) {
         const o = 9 * t;
         const lx = H[o], ly = H[o + 4], lz = H[o + 8];
-        dx -= lx * Math.round(dx / lx);
-        dy -= ly * Math.round(dy / ly);
-        dz -= lz * Math.round(dz / lz);
+        if (px) dx -= lx * Math.round(dx / lx);
+        if (py) dy -= ly * Math.round(dy / ly);
+        if (pz) dz -= lz * Math.round(dz / lz);
       } else {
         d[0] = dx;
         d[1] = dy;

@@ -14,11 +14,31 @@ export interface CellFrames {
   volumes: Float64Array;
   /** True when every frame's cell is diagonal. */
   orthorhombic: boolean;
+  /** Which lattice directions repeat (a, b, c); the minimum image and unwrapping act only along these. */
+  periodic: [boolean, boolean, boolean];
+  /** True when some direction does not repeat (a slab, a wire): volumes then hold vacuum or walls. */
+  partlyPeriodic: boolean;
 }
 
-/** Cells of a periodic trajectory, or null when positions are not periodic. */
+/** The lattice directions along which a trajectory repeats: none without a periodic boundary. */
+export function periodicAxesOf(traj: Pick<Trajectory, 'boundary' | 'periodicAxes'>): [boolean, boolean, boolean] {
+  if (traj.boundary !== 'periodic') return [false, false, false];
+  return traj.periodicAxes ? [...traj.periodicAxes] : [true, true, true];
+}
+
+const AXIS_NAMES = ['x', 'y', 'z'] as const;
+
+/** "x and y" for a slab; the lattice directions are named x, y, z as the cell's rows a, b, c. */
+export function axesText(axes: readonly boolean[]): string {
+  const names = AXIS_NAMES.filter((_, k) => axes[k]);
+  return names.length === 0 ? 'no direction' : names.length === 1 ? names[0]! : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+}
+
+/** Cells of a periodic trajectory (along at least one direction), or null when positions are not periodic. */
 export function cellFramesOf(traj: Trajectory): CellFrames | null {
   if (traj.boundary !== 'periodic') return null;
+  const periodic = periodicAxesOf(traj);
+  if (!periodic.some(Boolean)) return null;
   const cells = traj.cells;
   if (!cells || cells.length !== 9 * traj.nFrames) {
     throw new Error('A periodic trajectory needs one cell (9 numbers) per frame.');
@@ -35,7 +55,7 @@ export function cellFramesOf(traj: Trajectory): CellFrames | null {
       orthorhombic = false;
     }
   }
-  return { cells, inverses, volumes, orthorhombic };
+  return { cells, inverses, volumes, orthorhombic, periodic, partlyPeriodic: !periodic.every(Boolean) };
 }
 
 /** Writes the inverse of the 3×3 matrix at m[mo] into out[oo]; returns the determinant. */
@@ -60,7 +80,8 @@ export function invert3(m: ArrayLike<number>, mo: number, out: Float64Array, oo:
 
 /**
  * Minimum-image reduction of a displacement (in place, out[0..2]) with the
- * cell of one frame: to fractional, subtract the nearest integer, back.
+ * cell of one frame: to fractional, subtract the nearest integer along each
+ * periodic direction, back.
  * Exact for orthorhombic cells; for triclinic cells exact when the
  * displacement is shorter than half the smallest cell width, which is all
  * the unwrapping and central differences need.
@@ -72,9 +93,11 @@ export function minimumImage(geom: CellFrames, frame: number, d: Float64Array): 
   let s0 = x * G[o] + y * G[o + 3] + z * G[o + 6];
   let s1 = x * G[o + 1] + y * G[o + 4] + z * G[o + 7];
   let s2 = x * G[o + 2] + y * G[o + 5] + z * G[o + 8];
-  s0 -= Math.round(s0);
-  s1 -= Math.round(s1);
-  s2 -= Math.round(s2);
+  // Only along directions that repeat: across a wall or vacuum the nearest image is the atom itself.
+  const [pa, pb, pc] = geom.periodic;
+  if (pa) s0 -= Math.round(s0);
+  if (pb) s1 -= Math.round(s1);
+  if (pc) s2 -= Math.round(s2);
   d[0] = s0 * H[o] + s1 * H[o + 3] + s2 * H[o + 6];
   d[1] = s0 * H[o + 1] + s1 * H[o + 4] + s2 * H[o + 7];
   d[2] = s0 * H[o + 2] + s1 * H[o + 5] + s2 * H[o + 8];

@@ -24,6 +24,8 @@ import { fitLine } from './least-squares.ts';
 import { compileModel, FrameEnergyEvaluator } from './pair-energy.ts';
 import { degreesOfFreedomFor, kineticEnergies } from './thermo.ts';
 import { FrameCursor } from './coordinate-blocks.ts';
+import { vdos } from './vdos.ts';
+import { cellFramesOf } from './cell-geometry.ts';
 import type { Trajectory } from './trajectory.ts';
 
 const EV_PER_ENGINE_ENERGY = JOULE_PER_ENGINE_ENERGY / ELEMENTARY_CHARGE_C;
@@ -93,7 +95,7 @@ export interface EnergyResult {
   timesPs: Float64Array;
   sources: {
     potential: 'model' | 'file' | 'file total minus kinetic' | null;
-    kinetic: 'stored velocities' | 'finite differences' | 'file temperature';
+    kinetic: 'stored velocities' | 'finite differences' | 'file temperature' | string;
     pressure: 'virial' | 'file' | null;
     /** Keys read from the file and what they were taken as. */
     fileKeys: { quantity: string; key: string; unit: string; guessed: boolean }[];
@@ -140,14 +142,29 @@ export interface EnergyResult {
   modelPairs: number;
 }
 
+/**
+ * Kinetic energy from differences of positions over the true one: the ratio
+ * of the spectrum divided by the difference operator's transfer function to
+ * the raw spectrum (SCIENCE item 24), as the temperature analysis takes it.
+ * Only this ratio is read; the spectrum's harmonic sums need some positive
+ * temperature, so one is given.
+ */
+function differenceCorrection(traj: Trajectory, masses: Readonly<Record<string, number>> | undefined, removeComDrift: boolean, degreesOfFreedom: number): number {
+  return vdos(traj, { masses, removeComDrift, degreesOfFreedom, thermoTemperatureK: 300 }).differenceCorrection?.correctedOverRaw ?? 1;
+}
+
 export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress?: (fraction: number) => void): EnergyResult {
   const N = traj.nAtoms, T = traj.nFrames;
   const masses = Float64Array.from(traj.species, (s) => massOf(s, options.masses));
   const removeCom = options.removeComDrift ?? true;
   const dof = degreesOfFreedomFor(N, { degreesOfFreedom: options.degreesOfFreedom, constraints: options.constraints, removeComDrift: removeCom });
   if (!(dof > 0)) throw new Error('Degrees of freedom must be positive.');
-  const periodic = traj.boundary === 'periodic';
-  if (periodic && (!traj.cells || traj.cells.length !== 9 * T)) throw new Error('A periodic trajectory needs one cell (9 numbers) per frame.');
+  if (traj.boundary === 'periodic' && (!traj.cells || traj.cells.length !== 9 * T)) throw new Error('A periodic trajectory needs one cell (9 numbers) per frame.');
+  const geometry = cellFramesOf(traj);
+  /** Which directions repeat: images are taken only along these. */
+  const periodicAxes = geometry?.periodic ?? null;
+  // Volume, pressure and the tail correction need a homogeneous system filling a cell repeating in all three directions.
+  const periodic = geometry !== null && !geometry.partlyPeriodic;
 
   const file = readFileQuantities(traj, options.fileQuantities ?? null);
   if (!options.model && !file.potentialEV && !file.totalEV) {
@@ -200,8 +217,14 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
       kineticTensor.set([iso, iso, iso, 0, 0, 0], 6 * f);
     }
   } else {
-    kineticSource = 'finite differences';
+    // The same rule as the temperature analysis: differences of positions damp each mode by
+    // sin(ωΔt)/(ωΔt), so their kinetic energy is scaled by the factor the spectrum's correction gives.
     kinetic.set(kineticEnergies(traj, masses));
+    const correction = T >= 4 && kinetic.some((k) => k > 0) ? differenceCorrection(traj, options.masses, removeCom, dof) : null;
+    if (correction !== null) for (let f = 0; f < T; f++) kinetic[f] *= correction;
+    kineticSource = correction !== null
+      ? `differences of positions, scaled by ${correction.toFixed(4)} to undo their sin(ωΔt)/(ωΔt) damping (the correction the temperature analysis applies)`
+      : T >= 4 ? 'differences of positions (no motion to correct)' : 'differences of positions, uncorrected (too few frames to correct their damping: reads low)';
     internal.set(kinetic);
     for (let f = 0; f < T; f++) {
       const iso = (2 * kinetic[f]) / 3;
@@ -233,7 +256,7 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
       let e: ReturnType<FrameEnergyEvaluator['evaluate']>;
       try {
         const here = positionFrames.frame(f);
-        e = evaluator.evaluate(here.data, here.offset, periodic ? traj.cells : null, 9 * f);
+        e = evaluator.evaluate(here.data, here.offset, periodicAxes ? traj.cells : null, 9 * f, periodicAxes ?? undefined);
       } catch (err) {
         throw new Error(`frame ${f + 1}: ${err instanceof Error ? err.message : String(err)}`);
       }

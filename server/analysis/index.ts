@@ -6,6 +6,7 @@
 import { ANALYSIS_KEYS, analysisParamsSchema, type AnalysisKey, type AnalysisParams, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import type { ReportSummary } from '../../shared/report-summary.ts';
 import { SIMULATION_CAUTION } from '../../shared/simulation-caution.ts';
+import { axesText, periodicAxesOf } from './cell-geometry.ts';
 import { WAVENUMBER_PER_THZ } from './constants.ts';
 import { energySection } from './energy-report.ts';
 import { lindemann } from './lindemann.ts';
@@ -20,7 +21,7 @@ import { vdos } from './vdos.ts';
 
 export { ANALYSIS_KEYS, type AnalysisKey };
 
-export const ENGINE_VERSION = '0.2.0';
+export const ENGINE_VERSION = '0.3.0';
 
 export interface Curve {
   columns: string[];
@@ -93,13 +94,16 @@ export function runAnalyses(
         const r = msd(traj, { species, masses, components: params.components, maxLagPs: params.maxLagPs, fitWindowPs: manual(params.fitWindow), removeComDrift: params.removeComDrift }, progress);
         run.summary.msd = {
           dimensions: r.dimensions,
+          components: r.components,
+          partlyPeriodic: r.partlyPeriodic ? { periodicAxes: r.partlyPeriodic.periodicAxes, note: r.partlyPeriodic.note } : null,
           groups: r.groups.map(({ label, nAtoms, diffusion: f }) => ({
             label, atoms: nAtoms, regime: f.regime, d: f.d, dStdError: f.dStdError, uncertaintyMethod: f.uncertaintyMethod, uncertaintyBlocks: f.uncertaintyBlocks,
             slopeExponent: f.slopeExponent, fitWindowPs: { start: f.window.startPs, end: f.window.endPs, source: f.window.source }, plateauA2: f.plateauA2,
           })),
         };
-        run.curves.msd = curve([['lag', 'ps', r.lagPs], ...r.groups.map((g): [string, string, Float64Array] => [`MSD ${g.label}`, 'Å²', g.msdA2])]);
-        run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod, blocks: g.diffusion.uncertaintyBlocks })) };
+        const perAxis = r.partlyPeriodic ? r.partlyPeriodic.perAxisA2.map((a, k): [string, string, Float64Array] => [`MSD along ${'xyz'[k]}`, 'Å²', a]) : [];
+        run.curves.msd = curve([['lag', 'ps', r.lagPs], ...r.groups.map((g): [string, string, Float64Array] => [`MSD ${g.label}`, 'Å²', g.msdA2]), ...perAxis]);
+        run.methods.msd = { unwrapped: r.unwrapped, comDriftRemoved: r.comDriftRemoved, dimensions: r.dimensions, components: r.components, periodicAxes: r.partlyPeriodic?.periodicAxes ?? null, fits: r.groups.map((g) => ({ group: g.label, window: g.diffusion.window, uncertainty: g.diffusion.uncertaintyMethod, blocks: g.diffusion.uncertaintyBlocks })) };
         break;
       }
       case 'vacf': {
@@ -172,6 +176,14 @@ export function runAnalyses(
       }
       case 'rdf':
       case 'sq': {
+        const refused = structureRefusal(traj);
+        if (refused) {
+          // Said on the card and in the methods; the other analyses of the run go on.
+          if (key === 'rdf') run.summary.rdf = { pairs: [], refused };
+          else run.summary.sq = { firstPeak: null, refused };
+          run.methods[key] = { refused };
+          break;
+        }
         rdfCache ??= rdf(traj, rdfOptions, progress);
         const r = rdfCache;
         if (key === 'rdf') {
@@ -228,6 +240,27 @@ export function runAnalyses(
     onProgress?.((index + 1) / wanted.length);
   });
   return run;
+}
+
+/**
+ * Why g(r) and S(q) cannot be computed for this trajectory, or null. Their
+ * ideal-gas normalisation counts pairs against a uniform density filling a
+ * cell that repeats in all three directions; without one that density is not
+ * defined, and in a slab the vacuum or walls along the normal would pull g(r)
+ * below 1 at large r for that reason alone. Rather than a curve that looks
+ * right and is not, no curve.
+ */
+export function structureRefusal(traj: Trajectory): string | null {
+  const axes = periodicAxesOf(traj);
+  if (!traj.cells || !axes.some(Boolean)) {
+    return 'g(r) needs a cell periodic in all three directions for its ideal-gas normalisation; this trajectory has no periodic cell (boundary: ' + traj.boundary + '), so the density to divide by is not defined.';
+  }
+  if (!axes.every(Boolean)) {
+    const open = axesText(axes.map((p) => !p));
+    return `g(r) is not computed for a system periodic along ${axesText(axes)} only: its ideal-gas normalisation assumes atoms fill a cell repeating in all three directions, ` +
+      `while along ${open} this one is bounded by walls or vacuum, which would pull g(r) below 1 at large r for that reason alone. Analyse a bulk region, or a fully periodic run.`;
+  }
+  return null;
 }
 
 /** The main peak of S(q) above the q where the finite r_max stops dominating. */

@@ -43,7 +43,15 @@ export interface MsdResult {
   units: { lag: 'ps'; msd: 'Å²' };
   lagPs: Float64Array;
   dimensions: number;
+  /** The components the MSD curves and D are over: those asked for, less any that do not repeat when some do. */
   components: Components;
+  /**
+   * For a system periodic along some directions only (a slab, a wire): which
+   * repeat, the MSD of all selected atoms along each of x, y, z, and why D
+   * was taken from the components it was. Null when every direction repeats
+   * or none does.
+   */
+  partlyPeriodic: { periodicAxes: Components; perAxisA2: [Float64Array, Float64Array, Float64Array]; note: string } | null;
   unwrapped: boolean;
   comDriftRemoved: boolean;
   /** "all" first, then one per species. */
@@ -56,16 +64,21 @@ export const AUTO_FIT_END_FRACTION_INVERSE = 4;
 export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fraction: number) => void): MsdResult {
   const dt = frameIntervalPs(traj);
   const T = traj.nFrames;
-  const components = options.components ?? 'xyz';
-  const dims = componentIndices(components);
+  const asked = options.components ?? 'xyz';
   const sel = selectAtoms(traj, options.species, options.masses);
   const removeCom = options.removeComDrift ?? true;
   const reader = new AtomSeriesReader(traj, sel.masses, removeCom);
+  const geom = reader.geometry;
+  const slab = geom?.partlyPeriodic ? directionsFor(asked, geom.periodic) : null;
+  const components = slab?.components ?? asked;
+  const dims = componentIndices(components);
   const nLags = lagCount(T, dt, options.maxLagPs, 0.5);
   const lagPs = Float64Array.from({ length: nLags }, (_, m) => m * dt);
   const engine = new FftMsd(T, nLags, { zeroPad: options.zeroPad });
   const series = new Float64Array(3 * T);
   const perAtom = new Float64Array(nLags);
+  const perAxis = [0, 1, 2].map(() => new Float64Array(nLags)) as [Float64Array, Float64Array, Float64Array];
+  const component = new Float64Array(nLags);
 
   const groupOf = new Map<number, number[]>();
   sel.groups.forEach((g, gi) => g.atoms.forEach((a) => groupOf.set(a, [...(groupOf.get(a) ?? []), gi])));
@@ -78,7 +91,18 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
   sel.atoms.forEach((atom, k) => {
     reader.unwrapped(atom, series);
     perAtom.fill(0);
-    for (const c of dims) engine.accumulate(series, c * T, perAtom);
+    if (slab) {
+      // Each direction on its own, so a slab's in-plane and normal motion can be told apart.
+      for (let c = 0; c < 3; c++) {
+        component.fill(0);
+        engine.accumulate(series, c * T, component);
+        const axis = perAxis[c]!;
+        for (let m = 0; m < nLags; m++) axis[m] += component[m];
+        if (dims.includes(c)) for (let m = 0; m < nLags; m++) perAtom[m] += component[m];
+      }
+    } else {
+      for (const c of dims) engine.accumulate(series, c * T, perAtom);
+    }
     for (const gi of groupOf.get(atom) ?? []) {
       const sum = sums[gi];
       for (let m = 0; m < nLags; m++) sum[m] += perAtom[m];
@@ -103,7 +127,28 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
     if (diffusion.d && diffusion.uncertaintyMethod === 'none') diffusion = withTimeBlocks(diffusion, g.atoms, reader, dt, dims);
     return { label: g.label, nAtoms: n, msdA2: curve, diffusion };
   });
-  return { units: { lag: 'ps', msd: 'Å²' }, lagPs, dimensions: dims.length, components, unwrapped: reader.unwraps, comDriftRemoved: removeCom, groups };
+  const partlyPeriodic = slab ? { periodicAxes: slab.periodicAxes, perAxisA2: perAxis.map((a) => a.map((v) => v / sel.atoms.length)) as [Float64Array, Float64Array, Float64Array], note: slab.note } : null;
+  return { units: { lag: 'ps', msd: 'Å²' }, lagPs, dimensions: dims.length, components, partlyPeriodic, unwrapped: reader.unwraps, comDriftRemoved: removeCom, groups };
+}
+
+/**
+ * Components for D in a system periodic along some directions only: along a
+ * direction that does not repeat the motion is bounded by walls or vacuum,
+ * so its MSD levels off and mixing it in would bias D low. D comes from the
+ * periodic components asked for; if none was asked for, from those asked,
+ * with a note that it is no bulk value.
+ */
+function directionsFor(asked: Components, periodic: readonly boolean[]): { components: Components; periodicAxes: Components; note: string } {
+  const periodicAxes = 'xyz'.split('').filter((_, k) => periodic[k]).join('') as Components;
+  const kept = asked.split('').filter((ch) => periodic['xyz'.indexOf(ch)]).join('') as Components;
+  const dropped = asked.split('').filter((ch) => !periodic['xyz'.indexOf(ch)]);
+  if (!kept) {
+    return { components: asked, periodicAxes, note: `Only ${periodicAxes.split('').join(', ')} repeat; D along ${asked.split('').join(', ')} is over directions bounded by walls or vacuum and is not a bulk diffusion coefficient.` };
+  }
+  const note = dropped.length
+    ? `Periodic along ${periodicAxes.split('').join(', ')} only: D from the ${kept.length}-dimensional MSD along ${kept.split('').join(', ')} (MSD = 2·${kept.length}·D·t); ${dropped.join(', ')}, which does not repeat, is shown on its own and left out of D.`
+    : `Periodic along ${periodicAxes.split('').join(', ')} only: D from the components asked for (${kept}), all periodic.`;
+  return { components: kept, periodicAxes, note };
 }
 
 /**

@@ -130,17 +130,19 @@ export class FrameEnergyEvaluator {
    * holds the lattice rows from `cellOffset` (Å), or is null for open
    * boundaries (no images, no volume, no tail).
    */
-  evaluate(positions: ArrayLike<number>, offset: number, cell: ArrayLike<number> | null, cellOffset = 0): FrameEnergy {
+  evaluate(positions: ArrayLike<number>, offset: number, cell: ArrayLike<number> | null, cellOffset = 0, periodic: readonly boolean[] = [true, true, true]): FrameEnergy {
+    // A slab or wire: images only along the directions that repeat, and no volume, pressure or tail (the system does not fill the cell).
+    const whole = periodic.every(Boolean);
     const n = this.types.length;
     const result: FrameEnergy = { pairEV: 0, tailEV: 0, virialEV: new Float64Array(6), tailPressureEVPerA3: 0, volumeA3: NaN, pairs: 0 };
     const rc = this.model.maxCutoffA;
     if (n < 1 || !(rc > 0)) {
-      if (cell) result.volumeA3 = volumeOf(cell, cellOffset);
+      if (cell && whole) result.volumeA3 = volumeOf(cell, cellOffset);
       return result;
     }
-    const grid = cell ? this.binPeriodic(positions, offset, cell, cellOffset, rc) : this.binOpen(positions, offset, rc);
+    const grid = cell ? this.binPeriodic(positions, offset, cell, cellOffset, rc, periodic) : this.binOpen(positions, offset, rc);
     this.sweep(grid, result);
-    if (cell) {
+    if (cell && whole) {
       const V = grid.volume;
       result.volumeA3 = V;
       this.addTails(V, result);
@@ -164,7 +166,7 @@ export class FrameEnergyEvaluator {
     result.tailPressureEVPerA3 = (2 * Math.PI * p) / (3 * V * V);
   }
 
-  private binPeriodic(x: ArrayLike<number>, off: number, H: ArrayLike<number>, o: number, rc: number): Grid {
+  private binPeriodic(x: ArrayLike<number>, off: number, H: ArrayLike<number>, o: number, rc: number, wrap: readonly boolean[]): Grid {
     const n = this.types.length;
     const a0 = H[o], a1 = H[o + 1], a2 = H[o + 2], b0 = H[o + 3], b1 = H[o + 4], b2 = H[o + 5], c0 = H[o + 6], c1 = H[o + 7], c2 = H[o + 8];
     // Cross products give the reciprocal rows and the perpendicular widths.
@@ -174,21 +176,38 @@ export class FrameEnergyEvaluator {
     const det = a0 * bc0 + a1 * bc1 + a2 * bc2;
     if (!(Math.abs(det) > 0) || !Number.isFinite(det)) throw new Error('the periodic cell is singular');
     const V = Math.abs(det);
-    const widths = [V / Math.hypot(bc0, bc1, bc2), V / Math.hypot(ca0, ca1, ca2), V / Math.hypot(ab0, ab1, ab2)];
+    const cellWidths = [V / Math.hypot(bc0, bc1, bc2), V / Math.hypot(ca0, ca1, ca2), V / Math.hypot(ab0, ab1, ab2)];
+    const inv = 1 / det;
+    const fractional = (i: number, k: number): number => {
+      const px = x[off + 3 * i], py = x[off + 3 * i + 1], pz = x[off + 3 * i + 2];
+      return k === 0 ? (px * bc0 + py * bc1 + pz * bc2) * inv : k === 1 ? (px * ca0 + py * ca1 + pz * ca2) * inv : (px * ab0 + py * ab1 + pz * ab2) * inv;
+    };
+    // Along a direction that does not repeat, the grid spans the atoms' own extent (fractional lo..lo+span), unwrapped.
+    const lo = [0, 0, 0], span = [1, 1, 1];
+    for (let k = 0; k < 3; k++) {
+      if (wrap[k]) continue;
+      let min = Infinity, max = -Infinity;
+      for (let i = 0; i < n; i++) {
+        const v = fractional(i, k);
+        if (v < min) min = v;
+        if (v > max) max = v;
+      }
+      lo[k] = min;
+      span[k] = Math.max(max - min, 1e-9);
+    }
+    const widths = cellWidths.map((w, k) => w * span[k]!);
     const dims = subdivide(widths, rc, n);
     const [nx, ny, nz] = dims;
-    const inv = 1 / det;
     const cellOf = this.cellOf;
+    const place = (v: number, k: number): number => (wrap[k] ? v - Math.floor(v) : (v - lo[k]!) / span[k]!);
     for (let i = 0; i < n; i++) {
-      const px = x[off + 3 * i], py = x[off + 3 * i + 1], pz = x[off + 3 * i + 2];
-      let s0 = (px * bc0 + py * bc1 + pz * bc2) * inv;
-      let s1 = (px * ca0 + py * ca1 + pz * ca2) * inv;
-      let s2 = (px * ab0 + py * ab1 + pz * ab2) * inv;
+      let s0 = fractional(i, 0), s1 = fractional(i, 1), s2 = fractional(i, 2);
       if (!Number.isFinite(s0 + s1 + s2)) throw new Error(`atom ${i + 1} has a position that is not a finite number`);
-      s0 -= Math.floor(s0);
-      s1 -= Math.floor(s1);
-      s2 -= Math.floor(s2);
-      const ix = Math.min(nx - 1, Math.floor(s0 * nx)), iy = Math.min(ny - 1, Math.floor(s1 * ny)), iz = Math.min(nz - 1, Math.floor(s2 * nz));
+      const u0 = place(s0, 0), u1 = place(s1, 1), u2 = place(s2, 2);
+      if (wrap[0]) s0 = u0;
+      if (wrap[1]) s1 = u1;
+      if (wrap[2]) s2 = u2;
+      const ix = Math.min(nx - 1, Math.floor(u0 * nx)), iy = Math.min(ny - 1, Math.floor(u1 * ny)), iz = Math.min(nz - 1, Math.floor(u2 * nz));
       cellOf[i] = (iz * ny + iy) * nx + ix;
       // Wrapped Cartesian position r = s·H.
       this.xs[i] = s0 * a0 + s1 * b0 + s2 * c0;
@@ -196,8 +215,12 @@ export class FrameEnergyEvaluator {
       this.zs[i] = s0 * a2 + s1 * b2 + s2 * c2;
     }
     this.sortByCell(dims[0] * dims[1] * dims[2]);
-    const reach = widths.map((w, k) => Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12))) as [number, number, number];
-    return { dims, reach, periodic: true, lattice: [a0, a1, a2, b0, b1, b2, c0, c1, c2], volume: V };
+    // Along a direction that does not repeat there is nothing beyond the grid's own cells (a flat layer has one).
+    const reach = widths.map((w, k) => {
+      const r = Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12));
+      return wrap[k] ? r : Math.min(r, dims[k] - 1);
+    }) as [number, number, number];
+    return { dims, reach, periodic: true, wrap: [wrap[0]!, wrap[1]!, wrap[2]!], lattice: [a0, a1, a2, b0, b1, b2, c0, c1, c2], volume: V };
   }
 
   private binOpen(x: ArrayLike<number>, off: number, rc: number): Grid {
@@ -222,8 +245,9 @@ export class FrameEnergyEvaluator {
       this.zs[i] = x[off + 3 * i + 2];
     }
     this.sortByCell(dims[0] * dims[1] * dims[2]);
-    const reach = span.map((w, k) => Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12))) as [number, number, number];
-    return { dims, reach, periodic: false, lattice: [0, 0, 0, 0, 0, 0, 0, 0, 0], volume: NaN };
+    // Nothing lies beyond the grid: a flat or thin system needs no more than its own cells.
+    const reach = span.map((w, k) => Math.min(dims[k] - 1, Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12)))) as [number, number, number];
+    return { dims, reach, periodic: false, wrap: [false, false, false], lattice: [0, 0, 0, 0, 0, 0, 0, 0, 0], volume: NaN };
   }
 
   /** Counting sort of atoms by sub-cell, so each sub-cell's atoms lie together in xs/ys/zs/ts. */
@@ -251,6 +275,7 @@ export class FrameEnergyEvaluator {
   private sweep(g: Grid, r: FrameEnergy): void {
     const [nx, ny, nz] = g.dims, [mx, my, mz] = g.reach;
     const L = g.lattice;
+    const [wx, wy, wz] = g.wrap;
     const start = this.start;
     this.acc.fill(0);
 
@@ -272,6 +297,8 @@ export class FrameEnergyEvaluator {
             let tx = cx + offsets[k], ty = cy + offsets[k + 1], tz = cz + offsets[k + 2];
             let shx = 0.5, shy = 0.5, shz = 0.5; // doubles from the start: no representation change later
             if (g.periodic) {
+              // A neighbour cell beyond the grid along a direction that does not repeat is empty space.
+              if ((!wx && (tx < 0 || tx >= nx)) || (!wy && (ty < 0 || ty >= ny)) || (!wz && (tz < 0 || tz >= nz))) continue;
               const sx = Math.floor(tx / nx), sy = Math.floor(ty / ny), sz = Math.floor(tz / nz);
               tx -= sx * nx;
               ty -= sy * ny;
@@ -356,6 +383,8 @@ interface Grid {
   dims: [number, number, number];
   reach: [number, number, number];
   periodic: boolean;
+  /** Directions along which neighbour cells wrap around (all three for bulk, two for a slab). */
+  wrap: [boolean, boolean, boolean];
   lattice: number[];
   volume: number;
 }

@@ -19,7 +19,7 @@ import { massOf } from '../../shared/elements.ts';
 import { blockAverage, type BlockAverage } from './block-average.ts';
 import { degreesOfFreedom } from './degrees-of-freedom.ts';
 import { statedTemperatureWarning } from './temperature-choice.ts';
-import { cellFramesOf, minimumImage } from './cell-geometry.ts';
+import { axesText, cellFramesOf, minimumImage } from './cell-geometry.ts';
 import { FrameCursor } from './coordinate-blocks.ts';
 import { BOLTZMANN_ENGINE, GRAM_PER_AMU, CM3_PER_A3, JOULE_PER_ENGINE_ENERGY, ELEMENTARY_CHARGE_C } from './constants.ts';
 import { frameIntervalPs } from './frame-timing.ts';
@@ -95,7 +95,10 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
   const eV = JOULE_PER_ENGINE_ENERGY / ELEMENTARY_CHARGE_C;
   const ke = kinetic.map((k) => k * correction);
   const temperatureK = ke.map((k) => (2 * k) / (dof * BOLTZMANN_ENGINE));
-  const geom = cellFramesOf(traj) ?? (traj.cells && traj.cells.length === 9 * traj.nFrames ? cellFramesOf({ ...traj, boundary: 'periodic' }) : null);
+  const cellGeom = cellFramesOf(traj) ?? (traj.cells && traj.cells.length === 9 * traj.nFrames ? cellFramesOf({ ...traj, boundary: 'periodic', periodicAxes: undefined }) : null);
+  // A slab's cell holds vacuum or walls along its normal: the cell volume is not the volume the atoms fill.
+  const geom = cellGeom?.partlyPeriodic ? null : cellGeom;
+  if (cellGeom?.partlyPeriodic) warnings.push(`No density: the system is periodic along ${axesText(cellGeom.periodic)} only, so the cell's volume is not the volume its atoms fill.`);
   let totalMass = 0;
   for (let i = 0; i < N; i++) totalMass += masses[i];
   const densityGPerCm3 = geom ? Float64Array.from(frames, (f) => (totalMass * GRAM_PER_AMU) / (geom.volumes[f] * CM3_PER_A3)) : null;

@@ -25,6 +25,12 @@ export interface Trajectory {
   /** 'periodic' unwraps and uses minimum image; 'walls' and 'none' do not. */
   boundary: 'periodic' | 'walls' | 'none';
   /**
+   * With a 'periodic' boundary, which lattice directions (a, b, c) repeat,
+   * when not all do: a slab between walls is [true, true, false]. Absent
+   * means all three. Unwrapping and the minimum image act only along these.
+   */
+  periodicAxes?: [boolean, boolean, boolean];
+  /**
    * Per-frame numbers the file carries besides coordinates (extended XYZ
    * comment keys such as energy=…, H5MD observables), by lower-case key,
    * each of length nFrames (NaN where a frame lacks the key). Units are the

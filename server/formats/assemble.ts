@@ -21,7 +21,12 @@ export interface AssembleUnits {
   velocity: VelocityUnit;
   /** Interval between frames in ps, used when the file states no times. */
   timeStepPs?: number;
-  /** Defaults to 'periodic' when every frame has a cell and pbc is not off, else 'none'. */
+  /**
+   * Defaults to 'periodic' when every frame has a cell and some direction
+   * repeats, else 'none'. 'periodic' means periodic along the directions the
+   * file marks so (extended XYZ pbc="T T F", the H5MD box boundary), all
+   * three where it marks none; 'walls' and 'none' make no direction periodic.
+   */
   boundary?: Trajectory['boundary'];
 }
 
@@ -69,7 +74,8 @@ export async function assembleTrajectory(
   let cells: Float64Array | null = null;
   let times: Float64Array = new Float64Array(capacity);
   let timed: boolean | undefined;
-  let allPeriodic = true;
+  // Which directions the file marks periodic (every frame must agree); null while it marks none.
+  let pbc: [boolean, boolean, boolean] | null = null;
   let count = 0;
   const observables = new Map<string, Float64Array>();
   /** Set once coordinates go to a scratch file; `positions` and `velocities` are then empty markers. */
@@ -146,7 +152,12 @@ export async function assembleTrajectory(
         if (!frame.cell) throw new TrajectoryFormatError('frame has no cell but the first frame has one', where);
         for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;
       }
-      if (frame.pbc && !frame.pbc.every(Boolean)) allPeriodic = false;
+      if (frame.pbc) {
+        if (pbc && frame.pbc.some((p, k) => p !== pbc![k])) {
+          throw new TrajectoryFormatError(`periodic directions change from pbc="${pbc.map((p) => (p ? 'T' : 'F')).join(' ')}" to pbc="${frame.pbc.map((p) => (p ? 'T' : 'F')).join(' ')}"`, where);
+        }
+        pbc = [...frame.pbc];
+      }
       if (frame.values) {
         for (const key in frame.values) {
           let series = observables.get(key);
@@ -176,7 +187,9 @@ export async function assembleTrajectory(
     if (expected && count !== expected.frames) {
       throw new TrajectoryFormatError(`found ${count} frames but inspection found ${expected.frames}`, { file });
     }
-    boundary = units.boundary ?? (cells && allPeriodic ? 'periodic' : 'none');
+    const repeats = (pbc ?? [true, true, true]).some(Boolean);
+    // A file that marks no direction periodic is open whatever the metadata's default says.
+    boundary = units.boundary === 'periodic' && !repeats ? 'none' : units.boundary ?? (cells && repeats ? 'periodic' : 'none');
     if (boundary === 'periodic' && !cells) {
       throw new TrajectoryFormatError('periodic boundary requested but the trajectory has no cell', { file });
     }
@@ -194,6 +207,7 @@ export async function assembleTrajectory(
     times: count === capacity ? times : times.slice(0, count),
     boundary,
   };
+  if (boundary === 'periodic' && pbc && !pbc.every(Boolean)) trajectory.periodicAxes = pbc;
   if (velocities) trajectory.velocities = writer ? empty() : velocities.subarray(0, count * nAtoms * 3);
   if (writer) trajectory.blocks = new BlockFileReader(writer.finish());
   if (observables.size > 0) {

@@ -86,6 +86,17 @@ describe('the demo lab seed', () => {
     expect(lab.results!.caloric.energyKind).toBe('total');
     expect(lab.results!.caloric.latentHeat).not.toBeNull();
 
+    // Every lab run reads the temperature it states (kinetic mean within 5 %, and no card warning that they differ).
+    const temperatures = [...byFile].map(([file, r]) => {
+      const thermo = (r.summary as { thermo?: { temperatureK: { mean: number }; statedTemperatureK?: number | null; warnings?: string[] } }).thermo;
+      return { file, kinetic: thermo?.temperatureK.mean, stated: thermo?.statedTemperatureK, warnings: thermo?.warnings ?? [] };
+    });
+    expect(temperatures.filter((t) => t.kinetic !== undefined)).toHaveLength(4);
+    for (const t of temperatures.filter((x) => x.kinetic !== undefined)) {
+      expect(Math.abs(t.kinetic! / t.stated! - 1), JSON.stringify(t)).toBeLessThan(0.05);
+      expect(t.warnings.filter((w) => /differ|stated/i.test(w)), JSON.stringify(t)).toEqual([]);
+    }
+
     const again = await seedDemo(ctx, () => {});
     await again.ready;
     expect(await ctx.db.select().from(users).where(inArray(users.email, DEMO_ACCOUNTS.map((a) => a.email)))).toHaveLength(2);

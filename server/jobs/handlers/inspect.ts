@@ -56,7 +56,7 @@ export async function inspectJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
       update.timeStep = result.timeStep;
       fromFile.push('timeStep');
     }
-    if (row.boundary === 'periodic' && !result.cell) {
+    if (row.boundary === 'periodic' && (!result.cell || (result.pbc && !result.pbc.some(Boolean)))) {
       update.boundary = 'none';
       fromFile.push('boundary');
     } else if (result.cell) {

@@ -51,6 +51,11 @@ const STATUS_WORDS = {
   within: 'within', exceeds: 'beyond', inconclusive: 'not distinguishable from',
 } as const;
 
+/** Where the kinetic energy came from when the file has no velocities: differences of positions, and their correction. */
+function kineticFrom(e: EnergySummary): string {
+  return e.sources.kinetic.startsWith('differences of positions') ? ` Kinetic energy from ${e.sources.kinetic}.` : '';
+}
+
 function driftCard(e: EnergySummary): HeadlineCard {
   const d = e.drift!;
   const check = e.nveCheck;
@@ -60,7 +65,7 @@ function driftCard(e: EnergySummary): HeadlineCard {
     : '';
   return {
     id: 'energy-drift', title: 'Total-energy drift', value: formatWithError(d.perAtomEVPerNs, d.stdError), unit: 'eV per atom per ns',
-    detail: `Line fit to the total energy per atom; its fluctuation is ${formatNumber(d.fluctuationRatio, 3)} of the kinetic energy's (σ_E/σ_K) and ${formatNumber(d.relativeFluctuation, 3)} of |E|.${threshold}`,
+    detail: `Line fit to the total energy per atom; its fluctuation is ${formatNumber(d.fluctuationRatio, 3)} of the kinetic energy's (σ_E/σ_K) and ${formatNumber(d.relativeFluctuation, 3)} of |E|.${threshold}${kineticFrom(e)}`,
     warning: check?.status === 'exceeds' ? 'Energy is not conserved well enough for an NVE run: shorten the time step, tighten constraints or smooth the cut-off.'
       : check?.status === 'inconclusive' ? 'The run is too short to tell whether the drift stays within the threshold.' : null,
   };

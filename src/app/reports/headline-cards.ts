@@ -42,7 +42,10 @@ function msdCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): Hea
     ? `Einstein fit over ${span(g.fitWindowPs)}, log–log slope ${formatNumber(g.slopeExponent, 2)}, ${REGIME_WORDS[g.regime]}; ${errorSource(g.uncertaintyMethod, g.uncertaintyBlocks)}`
     : g.plateauA2 !== null ? `MSD levels off near ${formatNumber(g.plateauA2, 3)} Å²: ${REGIME_WORDS[g.regime]}` : REGIME_WORDS[g.regime];
   const warning = g.d && g.regime !== 'diffusive' ? `The MSD is ${g.regime} over the fit window; D may not be a long-time value.` : null;
-  return { id: 'msd', title: 'D from MSD (Einstein)', value: withError(g.d, g.dStdError, unit), unit: g.d ? diffusionLabel(unit) : '', detail, warning };
+  // A slab: which directions D is over, and why, where the directions differ.
+  const slab = s.partlyPeriodic ? ` · ${s.partlyPeriodic.note}` : '';
+  const title = s.partlyPeriodic && s.components ? `D from MSD (Einstein, along ${[...s.components].join(', ')})` : 'D from MSD (Einstein)';
+  return { id: 'msd', title, value: withError(g.d, g.dStdError, unit), unit: g.d ? diffusionLabel(unit) : '', detail: detail + slab, warning };
 }
 
 function vacfCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): HeadlineCard {
@@ -104,6 +107,7 @@ function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
 }
 
 function coordinationCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
+  if (s.refused) return { id: 'coordination', title: 'First-shell coordination', value: '—', unit: '', detail: 'g(r) not computed', warning: s.refused };
   const p = s.pairs[0]!;
   const shell = p.firstMinimum;
   const detail = !p.firstPeak
@@ -139,7 +143,7 @@ export function headlineCards(summary: ReportSummary, unit: DiffusionUnit): Head
     ...(summary.vacf?.groups.length ? [vacfCard(summary.vacf, unit)] : []),
     ...(summary.thermo ? [thermoCard(summary.thermo)] : []),
     ...(summary.vdos ? vdosCards(summary.vdos) : []),
-    ...(summary.rdf?.pairs.length ? [coordinationCard(summary.rdf)] : []),
+    ...(summary.rdf?.pairs.length || summary.rdf?.refused ? [coordinationCard(summary.rdf)] : []),
     ...(summary.lindemann ? [lindemannCard(summary.lindemann)] : []),
     ...energyCards(summary),
   ];

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ReportDto } from '../../../shared/report';
+import { headlineCards } from './headline-cards';
 import { methodsParagraphs, methodsPlainText } from './methods-text';
 
 const D = (a2PerPs: number) => ({ a2PerPs, e9M2PerS: a2PerPs * 10, cm2PerS: a2PerPs * 1e-4 });
@@ -111,5 +112,36 @@ describe('methods text of the Lindemann index', () => {
       .find((p) => p.heading === 'Lindemann index')!.body;
     expect(cluster).toContain('Cluster form (no periodic cell)');
     expect(cluster).toContain('over 5778 pairs');
+  });
+});
+
+describe('methods text of a slab (periodic along x and y only)', () => {
+  const note = 'Periodic along x, y only: D from the 2-dimensional MSD along x, y (MSD = 2·2·D·t); z, which does not repeat, is shown on its own and left out of D.';
+  const refused = 'g(r) is not computed for a system periodic along x and y only: its ideal-gas normalisation assumes atoms fill a cell repeating in all three directions.';
+  const slab = report({
+    analyses: ['msd', 'rdf'],
+    summary: {
+      msd: { dimensions: 2, components: 'xy', partlyPeriodic: { periodicAxes: 'xy', note }, groups: [{ label: 'all', atoms: 256, regime: 'diffusive', d: D(0.5), dStdError: D(0.01), uncertaintyMethod: 'atom-blocks', slopeExponent: 1, fitWindowPs: { start: 1, end: 5, source: 'auto' }, plateauA2: null }] },
+      rdf: { pairs: [], refused },
+    },
+    methods: { input: { file: 'slab.extxyz', sha256: 'ab'.repeat(32), atoms: 256, frames: 400 }, msd: { unwrapped: true, comDriftRemoved: true }, rdf: { refused } },
+  });
+
+  it('when the MSD of a slab is described, then the text says unwrapping and the minimum image act along x and y only, that D is 2-dimensional, and why', () => {
+    const body = methodsParagraphs(slab).find((p) => p.heading === 'Mean-square displacement and diffusion')!.body;
+    expect(body).toContain('in 2 dimensions (xy)');
+    expect(body).toContain('MSD(t) = 2·2·D·t');
+    expect(body).toContain('only along the periodic directions (x, y)');
+    expect(body).toContain(note);
+  });
+
+  it('when g(r) was refused, then its paragraph says it was not computed and why, and the card says so in place of a number', () => {
+    expect(methodsParagraphs(slab).find((p) => p.heading === 'Radial distribution function')!.body).toBe(`Not computed. ${refused}`);
+    const card = headlineCards(slab.summary, 'a2PerPs').find((c) => c.id === 'coordination')!;
+    expect(card.value).toBe('—');
+    expect(card.warning).toBe(refused);
+    const msd = headlineCards(slab.summary, 'a2PerPs').find((c) => c.id === 'msd')!;
+    expect(msd.title).toBe('D from MSD (Einstein, along x, y)');
+    expect(msd.detail).toContain(note);
   });
 });

@@ -96,8 +96,9 @@ function msdParagraph(s: NonNullable<ReportSummary['msd']>, m: Json, params: Jso
   return {
     heading: 'Mean-square displacement and diffusion',
     body: `MSD by the FFT (Wiener–Khinchin) algorithm averaged over all time origins, on positions ${flag(m, 'unwrapped') === false ? 'as stored' : 'unwrapped across periodic boundaries'}` +
-      `${flag(m, 'comDriftRemoved') ? ', centre-of-mass drift removed' : ''}, in ${s.dimensions} dimension${s.dimensions === 1 ? '' : 's'} (${text(params, 'components') ?? 'xyz'}). ` +
-      `Self-diffusion coefficient from the Einstein relation, MSD(t) = 2·${s.dimensions}·D·t, by a least-squares line ${byHand(s.groups.map((g) => g.fitWindowPs)) ? 'over a window set by hand' : 'over the window where the log–log slope is near 1'} — ${fits.join('; ')}.`,
+      `${flag(m, 'comDriftRemoved') ? ', centre-of-mass drift removed' : ''}, in ${s.dimensions} dimension${s.dimensions === 1 ? '' : 's'} (${s.components ?? text(params, 'components') ?? 'xyz'}). ` +
+      `Self-diffusion coefficient from the Einstein relation, MSD(t) = 2·${s.dimensions}·D·t, by a least-squares line ${byHand(s.groups.map((g) => g.fitWindowPs)) ? 'over a window set by hand' : 'over the window where the log–log slope is near 1'} — ${fits.join('; ')}.` +
+      (s.partlyPeriodic ? ` Positions are unwrapped and minimum-imaged only along the periodic directions (${[...s.partlyPeriodic.periodicAxes].join(', ')}); the MSD along each direction is given on its own. ${s.partlyPeriodic.note}` : ''),
   };
 }
 
@@ -143,6 +144,8 @@ function vdosParagraph(s: NonNullable<ReportSummary['vdos']>, m: Json, params: J
 }
 
 function rdfParagraph(m: Json): MethodsParagraph {
+  const refused = text(m, 'refused');
+  if (refused) return { heading: 'Radial distribution function', body: `Not computed. ${refused}` };
   const how = text(m, 'method') === 'cell-list' ? 'cell lists' : 'all pairs';
   return {
     heading: 'Radial distribution function',
@@ -154,6 +157,8 @@ function rdfParagraph(m: Json): MethodsParagraph {
 }
 
 function sqParagraph(m: Json): MethodsParagraph {
+  const refused = text(m, 'refused');
+  if (refused) return { heading: 'Structure factor', body: `Not computed. ${refused}` };
   return {
     heading: 'Structure factor',
     body: `S(q) = 1 + 4πρ∫r²[g(r) − 1]·sin(qr)/(qr)·W(r)dr out to r_max = ${f(num(m, 'rMaxA'))} Å (${windowName(text(m, 'window'))}); reliable above q = ${f(num(m, 'qReliableFromInvA'), 3)} Å⁻¹.`,

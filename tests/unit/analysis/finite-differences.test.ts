@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { energy } from '../../../server/analysis/energy.ts';
 import { thermo } from '../../../server/analysis/thermo.ts';
 import { vdos } from '../../../server/analysis/vdos.ts';
 import { centralDifferenceGain, CORRECTABLE_OMEGA_DT } from '../../../server/analysis/velocity-spectrum.ts';
@@ -49,6 +50,13 @@ describe('Velocities from positions: the central difference transfer function (S
     for (const target of [HCL.wavenumberCm1, CO.wavenumberCm1]) expect(Math.min(...lines.map((l) => Math.abs(l - target)))).toBeLessThan(bin);
     expect(spectrum.warnings).toEqual([]);
     expect(series.warnings).toEqual([]);
+  });
+
+  it('when the energy analysis has only those positions, then its kinetic energy follows the same correction: T is 300 K within 2 % (178 K uncorrected) and its source says so', () => {
+    const traj = { ...molecules(0.0025, false), observables: { energy: new Float64Array(4096) } };
+    const e = energy(traj, { masses, degreesOfFreedom: 64, removeComDrift: false, fileQuantities: { potentialEnergy: { key: 'energy', unit: 'eV' } } });
+    expect(Math.abs(e.means.temperatureK.mean / 300 - 1)).toBeLessThan(0.02);
+    expect(e.sources.kinetic).toMatch(/^differences of positions, scaled by 1\.\d{4} to undo their sin\(ωΔt\)\/\(ωΔt\) damping/);
   });
 
   it('when the same molecules carry stored velocities, then nothing is corrected and T is 300 K within 0.1 %', () => {
