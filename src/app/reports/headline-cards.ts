@@ -69,12 +69,18 @@ function fromPositions(source: string | undefined, factor: number | undefined): 
   return source === 'central-differences' && factor !== undefined ? `; velocities from positions, finite-difference damping corrected (×${formatNumber(factor, 3)})` : '';
 }
 
+/** "3·128 − 128 constraints − 3 (centre of mass) = 253 degrees of freedom": the count and the rule behind it. */
+function dofText(s: NonNullable<ReportSummary['thermo']>): string {
+  const rule = s.degreesOfFreedomRule;
+  return !rule || rule.startsWith('given') ? `${s.degreesOfFreedom} degrees of freedom${rule ? ' (as given)' : ''}` : `${rule} degrees of freedom`;
+}
+
 function thermoCard(s: NonNullable<ReportSummary['thermo']>): HeadlineCard {
   const density = s.densityGPerCm3 ? ` · density ${formatWithError(s.densityGPerCm3.mean, s.densityGPerCm3.stdError)} g/cm³` : '';
   const stated = s.statedTemperatureK ? ` · stated ${formatNumber(s.statedTemperatureK, 4)} K` : '';
   return {
     id: 'thermo', title: 'Mean temperature', value: formatWithError(s.temperatureK.mean, s.temperatureK.stdError), unit: 'K',
-    detail: `Equipartition with ${s.degreesOfFreedom} degrees of freedom; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${stated}${density}`,
+    detail: `Equipartition with ${dofText(s)}; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${stated}${density}`,
     warning: joined([...(s.warnings ?? []), s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.']),
   };
 }
