@@ -91,7 +91,7 @@ export function massProblem(text: string, element: string): string | null {
     .label { display: flex; flex-direction: column; gap: 2px; padding-top: 6px; min-width: 0; }
     .name { font-weight: 600; overflow-wrap: anywhere; font-family: var(--erg-mono, monospace); }
     .count { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
-    .status { align-self: flex-start; font-size: 11px; line-height: 18px; padding: 0 8px; border-radius: 999px; white-space: nowrap; }
+    .status { align-self: flex-start; max-width: 100%; font-size: 11px; line-height: 16px; padding: 1px 8px; border-radius: 9px; }
     .status.exact { background: var(--mat-sys-surface-container-high); color: var(--mat-sys-on-surface-variant); }
     .status.assumed { background: var(--mat-sys-tertiary-container); color: var(--mat-sys-on-tertiary-container); }
     .status.unknown { background: var(--mat-sys-error-container); color: var(--mat-sys-on-error-container); }
