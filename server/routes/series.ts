@@ -1,3 +1,4 @@
+import type { Request, Response } from 'express';
 import { z } from 'zod';
 import { authorizedProject, currentUser } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
@@ -6,8 +7,7 @@ import { createSeriesAccessLink, listSeriesAccessLinks, resolveAccessLink, revok
 import { addComment, listComments } from '../services/comments.ts';
 import { seriesOverlays } from '../services/series/series-curves.ts';
 import { seriesTableCsv } from '../services/series/series-table.ts';
-import { createSeries, deleteSeries, getSeries, listSeries, patchSeries } from '../services/series/series.ts';
-import { seriesRow } from '../services/series/series-rows.ts';
+import { createSeries, deleteSeries, getSeries, listSeries, patchSeries, starterFor } from '../services/series/series.ts';
 import { syncSeries } from '../services/series/series-sync.ts';
 import { AppError } from '../errors.ts';
 import { secretTokenField } from '../../shared/accounts.ts';
@@ -22,11 +22,10 @@ import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 /** Series of runs (state-point studies), their overlays, exports, links and comments. */
 export function seriesRoutes(ctx: AppContext): RouteDef[] {
   const limits = apiRateLimits(ctx);
-  /** A project member's read starts missing work on behalf of the series' creator; a link holder's starts nothing. */
-  const curvesFor = async (id: number, startsWork: boolean) => {
-    const s = await seriesRow(ctx, id);
-    return seriesOverlays(ctx, await syncSeries(ctx, id, { requesterId: startsWork ? s.createdBy : null }));
-  };
+  /** The caller as a reader of the series: whether their read may start its missing analyses is the service's rule. */
+  const reader = (req: Request, res: Response) => ({ id: currentUser(req).id, role: authorizedProject(res).role });
+  /** A project member's read may start missing work (see starterFor); a link holder's starts nothing. */
+  const curvesFor = async (id: number, starter: number | null) => seriesOverlays(ctx, await syncSeries(ctx, id, { requesterId: starter }));
   return [
     {
       method: 'post', path: '/projects/:id/series', access: { kind: 'project', role: 'editor', via: 'project' },
@@ -51,7 +50,7 @@ export function seriesRoutes(ctx: AppContext): RouteDef[] {
       response: wrapped('series', seriesSchema),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        res.json({ series: await getSeries(ctx, id) });
+        res.json({ series: await getSeries(ctx, id, reader(req, res)) });
       },
     },
     {
@@ -80,7 +79,7 @@ export function seriesRoutes(ctx: AppContext): RouteDef[] {
       response: wrapped('curves', seriesCurvesSchema),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        res.json({ curves: await curvesFor(id, true) });
+        res.json({ curves: await curvesFor(id, await starterFor(ctx, id, reader(req, res))) });
       },
     },
     {
@@ -89,7 +88,7 @@ export function seriesRoutes(ctx: AppContext): RouteDef[] {
       response: download('application/json', 'The series document: the same object as `series` in GET /api/series/{id}.', seriesSchema),
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
-        const dto = await getSeries(ctx, id);
+        const dto = await getSeries(ctx, id, reader(req, res));
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-series-${id}.json"`);
         res.json(dto);
       },
@@ -101,7 +100,7 @@ export function seriesRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
         res.setHeader('Content-Disposition', `attachment; filename="ergodic-series-${id}-members.csv"`);
-        res.type('text/csv').send(seriesTableCsv(await getSeries(ctx, id)));
+        res.type('text/csv').send(seriesTableCsv(await getSeries(ctx, id, reader(req, res))));
       },
     },
     {
@@ -163,7 +162,7 @@ export function seriesRoutes(ctx: AppContext): RouteDef[] {
         const { token } = params(req, { token: secretTokenField });
         const link = await resolveAccessLink(ctx.db, token);
         if (link.seriesId === null) throw new AppError(404, 'not_found', 'This link shares a report, not a series.');
-        res.json({ curves: await curvesFor(link.seriesId, false) });
+        res.json({ curves: await curvesFor(link.seriesId, null) });
       },
     },
   ];

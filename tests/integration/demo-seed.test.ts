@@ -1,7 +1,7 @@
 import { eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analysisRuns, projects, reports, series, trajectories, users } from '../../server/db/schema/index.ts';
-import { getSeries } from '../../server/services/series/series.ts';
+import { getLinkedSeries } from '../../server/services/series/series.ts';
 import { seedDemo } from '../../server/demo/seed.ts';
 import { DEMO_ACCOUNTS, DEMO_PROJECTS, DEMO_SERIES } from '../../server/demo/scenario.ts';
 import { DEMO_ARGON_MODEL } from '../../server/demo/demo-trajectories.ts';
@@ -77,7 +77,7 @@ describe('the demo lab seed', () => {
     expect(runs).toHaveLength(4);
     const [demoSeries] = await ctx.db.select().from(series).where(inArray(series.projectId, labIds));
     expect(demoSeries!.name).toBe(DEMO_SERIES[0]!.name);
-    const lab = await getSeries(ctx, demoSeries!.id, { requesterId: null });
+    const lab = await getLinkedSeries(ctx, demoSeries!.id);
     expect(lab.status).toBe('ready');
     expect(lab.members.map((m) => m.trajectoryName)).toEqual(DEMO_SERIES[0]!.files);
     expect(lab.results!.members.map((m) => m.phase.phase), JSON.stringify(lab.results!.members.map((m) => m.phase))).toEqual(['solid', 'liquid', 'liquid']);

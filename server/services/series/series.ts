@@ -10,12 +10,12 @@ import { SERIES_MIN_MEMBERS } from '../../../shared/series-api.ts';
 import type { SeriesResults } from '../../../shared/series-results.ts';
 import { SIMULATION_CAUTION } from '../../../shared/simulation-caution.ts';
 import type { AppContext } from '../../context.ts';
-import { series, seriesMembers, users } from '../../db/schema/index.ts';
+import { projectMembers, series, seriesMembers, users, type ProjectRole } from '../../db/schema/index.ts';
 import { recordAudit } from '../audit.ts';
 import { touchProject } from '../trajectories.ts';
 import { methodsText } from './series-methods.ts';
 import { checkedTrajectories, invalidField, memberRows, seriesRow } from './series-rows.ts';
-import { syncSeries, type SyncedSeries, type SyncOptions } from './series-sync.ts';
+import { syncSeries, type SyncedSeries } from './series-sync.ts';
 
 function headline(s: { id: number; projectId: number; name: string; createdBy: number; creatorName: string; createdAt: Date; updatedAt: Date },
   status: SeriesListItem['status'], memberCount: number, results: SeriesResults | null): SeriesListItem {
@@ -53,10 +53,22 @@ export function toSeriesDto(synced: SyncedSeries): SeriesDto {
   };
 }
 
-/** A project member reading the series also starts what it lacks, on behalf of its creator. */
-export async function getSeries(ctx: AppContext, id: number, options?: SyncOptions): Promise<SeriesDto> {
-  const { createdBy } = await seriesRow(ctx, id);
-  return toSeriesDto(await syncSeries(ctx, id, options ?? { requesterId: createdBy }));
+/**
+ * Who the runs a project member's read starts are recorded for: the reader
+ * when they may start analyses, else the series' creator while they still
+ * may; else nobody, and nothing starts.
+ */
+export async function starterFor(ctx: AppContext, seriesId: number, reader: { id: number; role: ProjectRole }): Promise<number | null> {
+  if (reader.role !== 'viewer') return reader.id;
+  const { projectId, createdBy } = await seriesRow(ctx, seriesId);
+  const [membership] = await ctx.db.select({ role: projectMembers.role }).from(projectMembers)
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, createdBy)));
+  return membership && membership.role !== 'viewer' ? createdBy : null;
+}
+
+/** The series for a project member; `reader` starts the members' missing analyses (see starterFor). */
+export async function getSeries(ctx: AppContext, id: number, reader: { id: number; role: ProjectRole }): Promise<SeriesDto> {
+  return toSeriesDto(await syncSeries(ctx, id, { requesterId: await starterFor(ctx, id, reader) }));
 }
 
 /** The series as a link holder reads it: starts nothing and names nobody. */
