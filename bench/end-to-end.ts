@@ -14,8 +14,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
-import { assembleTrajectory } from '../server/formats/assemble.ts';
-import { readFrames } from '../server/formats/read-frames.ts';
+import { readWhole } from '../server/cli/analyze-file.ts';
+import { IN_MEMORY_COORDINATE_BYTES, withScratch } from '../server/out-of-core/scratch.ts';
 import type { BenchRow } from './bench-row.ts';
 import { syntheticFrames } from './synthetic-extxyz.ts';
 
@@ -62,12 +62,14 @@ export async function benchEndToEnd(): Promise<EndToEnd> {
     const mb = (await stat(path)).size / 1e6;
     const rows: BenchRow[] = [];
 
-    // Reading as the command line reads (parse, validate, assemble Float32) against a byte scan.
+    // Reading as the command line reads (its own function: parse, validate, assemble Float32, plan) against a byte scan.
     const t0 = performance.now();
     const lines = await byteScan(path);
     const scanS = (performance.now() - t0) / 1000;
     const t1 = performance.now();
-    const traj = await assembleTrajectory(readFrames(path), { length: 'angstrom', time: 'ps', velocity: 'angstrom/ps' });
+    const { traj } = await withScratch(IN_MEMORY_COORDINATE_BYTES, (spill) => readWhole(path, {
+      analyses: ['msd', 'vacf', 'vdos'], params: {}, lengthUnit: 'angstrom', timeUnit: 'ps', velocityUnit: 'angstrom/ps',
+    }, spill));
     const parseS = (performance.now() - t1) / 1000;
     if (traj.nFrames !== FRAMES || lines !== FRAMES * (traj.nAtoms + 2)) throw new Error('the bench file was misread');
     const parseRatio = scanS / parseS;

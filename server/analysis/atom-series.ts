@@ -12,15 +12,16 @@
  * they are: nothing crosses a wall.
  */
 import { cellFramesOf, minimumImage, type CellFrames } from './cell-geometry.ts';
-import { AtomCursor, checkCoordinateShape } from './coordinate-blocks.ts';
+import { AtomCursor, checkCoordinateShape, FrameCursor, type CoordinateKind } from './coordinate-blocks.ts';
 import type { Trajectory } from './trajectory.ts';
 
 export class AtomSeriesReader {
   readonly nFrames: number;
   readonly geometry: CellFrames | null;
-  /** COM trajectory (component-major, 3·nFrames) subtracted from positions, if drift removal is on. */
-  readonly comPositions: Float64Array | null;
-  private readonly comVelocities: Float64Array | null;
+  private readonly removeComDrift: boolean;
+  /** COM trajectories (component-major, 3·nFrames), each worked out when first needed: VACF and VDOS from stored velocities never need the positions'. */
+  private comPositionsMemo: Float64Array | null = null;
+  private comVelocitiesMemo: Float64Array | null = null;
   private readonly d = new Float64Array(3);
   private readonly positionCursor: AtomCursor;
   private readonly velocityCursor: AtomCursor | null;
@@ -35,12 +36,18 @@ export class AtomSeriesReader {
     checkCoordinateShape(traj);
     this.positionCursor = new AtomCursor(traj, 'positions');
     this.velocityCursor = traj.velocities ? new AtomCursor(traj, 'velocities') : null;
-    this.comPositions = null;
-    this.comVelocities = null;
-    if (removeComDrift) {
-      this.comPositions = this.massWeightedMean((atom, out) => this.rawUnwrapped(atom, out), this.nFrames);
-      if (traj.velocities) this.comVelocities = this.massWeightedMean((atom, out) => this.rawVelocities(atom, out), this.nFrames);
-    }
+    this.removeComDrift = removeComDrift;
+  }
+
+  /** COM trajectory subtracted from positions, or null when drift removal is off. */
+  get comPositions(): Float64Array | null {
+    if (!this.removeComDrift) return null;
+    return (this.comPositionsMemo ??= this.massWeightedMean('positions'));
+  }
+
+  private get comVelocities(): Float64Array | null {
+    if (!this.removeComDrift || !this.traj.velocities) return null;
+    return (this.comVelocitiesMemo ??= this.massWeightedMean('velocities'));
   }
 
   get unwraps(): boolean {
@@ -121,9 +128,9 @@ export class AtomSeriesReader {
       if (geom.orthorhombic) {
         const o = 9 * t;
         const lx = H[o], ly = H[o + 4], lz = H[o + 8];
-        if (px) dx -= lx * Math.round(dx / lx);
-        if (py) dy -= ly * Math.round(dy / ly);
-        if (pz) dz -= lz * Math.round(dz / lz);
+        if (px) dx = nearestImage(dx, lx);
+        if (py) dy = nearestImage(dy, ly);
+        if (pz) dz = nearestImage(dz, lz);
       } else {
         d[0] = dx;
         d[1] = dy;
@@ -140,17 +147,80 @@ export class AtomSeriesReader {
     }
   }
 
-  private massWeightedMean(read: (atom: number, out: Float64Array) => void, T: number): Float64Array {
+  /**
+   * Mass-weighted mean over every atom of the unwrapped positions (or the
+   * velocities), component-major out[c·T + t]. Computed frame by frame,
+   * one sequential pass, with each atom unwrapped step by step exactly as
+   * rawUnwrapped does and atoms summed in index order, so it equals the
+   * per-atom sum to the last bit.
+   */
+  private massWeightedMean(kind: CoordinateKind): Float64Array {
+    const T = this.nFrames, N = this.traj.nAtoms;
     const sum = new Float64Array(3 * T);
-    const buf = new Float64Array(3 * T);
+    const cursor = new FrameCursor(this.traj, kind);
     let total = 0;
-    for (let i = 0; i < this.traj.nAtoms; i++) {
-      const m = this.masses[i];
-      read(i, buf);
-      for (let k = 0; k < 3 * T; k++) sum[k] += m * buf[k];
-      total += m;
+    for (let i = 0; i < N; i++) total += this.masses[i];
+    const geom = kind === 'positions' ? this.geometry : null;
+    const H = geom?.cells;
+    const [px, py, pz] = geom?.periodic ?? [false, false, false];
+    const u = new Float64Array(3 * N);
+    const d = this.d;
+    let previous: { data: Float32Array; offset: number } | null = null;
+    for (let t = 0; t < T; t++) {
+      const here = cursor.frame(t);
+      const x = here.data, o = here.offset;
+      if (!geom || !previous) {
+        for (let k = 0; k < 3 * N; k++) u[k] = x[o + k];
+      } else {
+        const y = previous.data, q = previous.offset;
+        const h = 9 * t;
+        for (let i = 0; i < N; i++) {
+          const p = o + 3 * i, r = q + 3 * i;
+          let dx = x[p] - y[r];
+          let dy = x[p + 1] - y[r + 1];
+          let dz = x[p + 2] - y[r + 2];
+          if (geom.orthorhombic) {
+            const lx = H![h], ly = H![h + 4], lz = H![h + 8];
+            if (px) dx = nearestImage(dx, lx);
+            if (py) dy = nearestImage(dy, ly);
+            if (pz) dz = nearestImage(dz, lz);
+          } else {
+            d[0] = dx;
+            d[1] = dy;
+            d[2] = dz;
+            minimumImage(geom, t, d);
+            dx = d[0];
+            dy = d[1];
+            dz = d[2];
+          }
+          u[3 * i] += dx;
+          u[3 * i + 1] += dy;
+          u[3 * i + 2] += dz;
+        }
+      }
+      let sx = 0, sy = 0, sz = 0;
+      for (let i = 0; i < N; i++) {
+        const m = this.masses[i];
+        sx += m * u[3 * i];
+        sy += m * u[3 * i + 1];
+        sz += m * u[3 * i + 2];
+      }
+      sum[t] = sx / total;
+      sum[T + t] = sy / total;
+      sum[2 * T + t] = sz / total;
+      previous = here;
     }
-    for (let k = 0; k < 3 * T; k++) sum[k] /= total;
     return sum;
   }
+}
+
+/**
+ * d − l·round(d/l), the step to the nearest image along one orthorhombic
+ * axis. Steps between stored frames are almost always well inside half a
+ * cell, where the rounding gives ±0 and d comes back unchanged (a zero as
+ * +0, as the subtraction would give): the division is skipped there.
+ */
+function nearestImage(d: number, l: number): number {
+  if (d < 0.49 * l && d > -0.49 * l) return d === 0 ? 0 : d;
+  return d - l * Math.round(d / l);
 }

@@ -36,8 +36,13 @@ export interface AtomSpan {
 
 const EMPTY = new Float32Array(0);
 
-/** Bytes of an atom chunk gathered from an in-memory trajectory. */
+/**
+ * An atom chunk gathered from an in-memory trajectory: at most this many
+ * bytes, and few enough atoms that the gather writes only a handful of
+ * rows at once while each frame's read is still a few whole cache lines.
+ */
 const IN_MEMORY_CHUNK_BYTES = 4 * 1024 * 1024;
+const IN_MEMORY_CHUNK_ATOMS = 16;
 
 /**
  * One atom's whole series at a time, read an atom chunk at a time (one
@@ -59,7 +64,7 @@ export class AtomCursor {
     this.whole = traj.blocks ? null : array;
     this.atomsPerChunk = traj.blocks
       ? traj.blocks.atomsPerChunk
-      : Math.max(1, Math.min(traj.nAtoms, Math.floor(IN_MEMORY_CHUNK_BYTES / (12 * Math.max(1, traj.nFrames)))));
+      : Math.max(1, Math.min(traj.nAtoms, IN_MEMORY_CHUNK_ATOMS, Math.floor(IN_MEMORY_CHUNK_BYTES / (12 * Math.max(1, traj.nFrames)))));
   }
 
   at(atom: number): AtomSpan {

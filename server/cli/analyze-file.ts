@@ -14,7 +14,7 @@ import type { Trajectory } from '../analysis/trajectory.ts';
 import type { LengthUnit, TimeUnit, VelocityUnit } from '../formats/units.ts';
 import { LENGTH_TO_ANGSTROM, TIME_TO_PS } from '../formats/units.ts';
 import { planRun, PlanProblem, type PlannedRun, type TrajectoryFacts } from '../run-plan/plan-run.ts';
-import { encodeCurves, decodeCurves } from '../services/report-curves.ts';
+import { storedCurves } from '../services/report-curves.ts';
 import type { ReportCurve } from '../../shared/report.ts';
 import { reportTitle } from '../../shared/report-title.ts';
 import { speciesElementsOf, type SpeciesElement } from '../../shared/trajectory.ts';
@@ -46,7 +46,7 @@ export interface LocalReport {
 
 async function sha256Of(path: string): Promise<string> {
   const hash = createHash('sha256');
-  for await (const chunk of createReadStream(path)) hash.update(chunk as Buffer);
+  for await (const chunk of createReadStream(path, { highWaterMark: 1024 * 1024 })) hash.update(chunk as Buffer);
   return hash.digest('hex');
 }
 
@@ -91,7 +91,7 @@ function choosesFrames(params: AnalysisParamsInput): boolean {
  * inspection pass), then plan on what was read. Only a run longer than the
  * automatic stride limit is thinned afterwards.
  */
-async function readWhole(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
+export async function readWhole(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
   const name = basename(path);
   const opened = await openTrajectory(path, name);
   const timeStepPs = options.timeStep !== undefined ? options.timeStep * TIME_TO_PS[options.timeUnit] : undefined;
@@ -177,8 +177,8 @@ async function analyzeWithin(path: string, options: AnalyzeFileOptions, spill: A
       methods: { ...run.methods, caution: run.caution, input: { file: name, sha256: inputSha256, format: info.format, atoms: info.atoms, frames: info.frames, speciesElements, ...options }, frames: framesUsed },
       engineVersion: run.engineVersion,
       inputSha256,
-      // Same encoding as stored reports, so NaN becomes null exactly as the API serves it.
-      curves: decodeCurves(encodeCurves(run.curves)),
+      // As stored reports are served: NaN becomes null.
+      curves: storedCurves(run.curves),
     },
   };
 }

@@ -78,6 +78,55 @@ export function parseNumberBytes(buf: Uint8Array, start: number, end: number): n
   return negative ? -value : value;
 }
 
+/** Where the token read by the last `parseFieldBytes` call ended. */
+export const field = { end: 0 };
+
+/**
+ * Reads the whitespace-delimited token that starts at buf[start] (not a
+ * space) and parses it as parseNumberBytes would, in one pass: the plain
+ * decimal form ("-12.345678") is accumulated while scanning; anything else
+ * (an exponent, a stray character) finds the token's end and goes through
+ * parseNumberBytes, so the value is always the same. Sets `field.end`.
+ */
+export function parseFieldBytes(buf: Uint8Array, start: number, limit: number): number {
+  // No bounds test inside the digit loops: the byte at `limit` ends a line
+  // (CR, LF) or lies past the buffer (undefined), and neither is a digit.
+  let i = start;
+  let c = buf[i];
+  const negative = c === 45;
+  if (negative || c === 43) c = buf[++i];
+  let mantissa = 0;
+  const intStart = i;
+  while (c >= 48 && c <= 57) {
+    mantissa = mantissa * 10 + (c - 48);
+    c = buf[++i];
+  }
+  let digits = i - intStart;
+  let scale = 0;
+  if (c === 46) {
+    const fracStart = ++i;
+    c = buf[i];
+    while (c >= 48 && c <= 57) {
+      mantissa = mantissa * 10 + (c - 48);
+      c = buf[++i];
+    }
+    scale = fracStart - i;
+    digits -= scale;
+  }
+  if (i >= limit || c === 32 || c === 9) {
+    if (i > limit) i = limit;
+    field.end = i;
+    if (digits > 0 && mantissa < MAX_EXACT && scale >= -22) {
+      const value = scale === 0 ? mantissa : mantissa / POW10[-scale];
+      return negative ? -value : value;
+    }
+    return parseNumberBytes(buf, start, i);
+  }
+  while (i < limit && c !== 32 && c !== 9) c = buf[++i];
+  field.end = i;
+  return parseNumberBytes(buf, start, i);
+}
+
 function parseSlow(buf: Uint8Array, start: number, end: number): number {
   let text = '';
   for (let i = start; i < end; i++) text += String.fromCharCode(buf[i]);

@@ -7,7 +7,7 @@
 import { TrajectoryFormatError, type Cell } from './frame.ts';
 import { MIN_ATOM_LINE_BYTES } from './limits.ts';
 import { isBlank, type LineReader } from './line-reader.ts';
-import { parseNumberBytes } from './number-bytes.ts';
+import { field, parseFieldBytes, parseNumberBytes } from './number-bytes.ts';
 import { COLUMN, type AtomColumns } from './atom-columns.ts';
 import type { FrameInfo, Where } from './extxyz-comment.ts';
 import type { TextFrame, TextReadContext } from './text-frame.ts';
@@ -75,17 +75,22 @@ export async function* readXyzFrames(
         const base = 3 * a;
         for (let col = 0; col < roles.length; col++) {
           let c = buf[p];
-          while (p < end && (c === 32 || c === 9)) c = buf[++p];
+          // buf[end] is CR, LF or past the buffer: never a space, so the skip stops there by itself.
+          while (c === 32 || c === 9) c = buf[++p];
           if (p >= end) throw atomLineError(lines, info.columns, index, n, a);
           const tokenStart = p;
-          while (p < end && c !== 32 && c !== 9) c = buf[++p];
           const role = roles[col];
           if (role >= COLUMN.x) {
-            const value = parseNumberBytes(buf, tokenStart, p);
+            // Scanned and parsed in one pass.
+            const value = parseFieldBytes(buf, tokenStart, end);
+            p = field.end;
             if (value - value !== 0) throw atomLineError(lines, info.columns, index, n, a);
             if (role <= COLUMN.z) positions[base + role - COLUMN.x] = value;
             else velocities![base + role - COLUMN.vx] = value;
-          } else if (role === COLUMN.species) {
+            continue;
+          }
+          while (p < end && c !== 32 && c !== 9) c = buf[++p];
+          if (role === COLUMN.species) {
             const cached = speciesCache[a];
             let same = cached !== undefined && cached.length === p - tokenStart;
             if (same) {

@@ -9,11 +9,16 @@ export interface StoredCurve {
 }
 
 export function encodeCurves(curves: Record<string, Curve>): Uint8Array {
+  return gzipSync(strToU8(JSON.stringify(storedCurves(curves))), { level: 6 });
+}
+
+/** Curves exactly as the API serves them once stored (NaN and ±Infinity as null), without the compression. */
+export function storedCurves(curves: Record<string, Curve>): Record<string, StoredCurve> {
   const plain: Record<string, StoredCurve> = {};
   for (const [name, c] of Object.entries(curves)) {
     plain[name] = { columns: c.columns, units: c.units, data: c.data.map((col) => Array.from(col, finiteOrNull) as number[]) };
   }
-  return gzipSync(strToU8(JSON.stringify(plain)), { level: 6 });
+  return plain;
 }
 
 export function decodeCurves(bytes: Uint8Array): Record<string, StoredCurve> {

@@ -8,7 +8,7 @@ import { inspectTrajectory, type InspectProgress } from '../../../server/formats
 import { assembleTrajectory } from '../../../server/formats/assemble.ts';
 import { LENGTH_TO_ANGSTROM, TIME_TO_PS, VELOCITY_TO_ANGSTROM_PER_PS } from '../../../server/formats/units.ts';
 import { openTrajectory } from '../../../server/formats/open-trajectory.ts';
-import { parseNumberBytes } from '../../../server/formats/number-bytes.ts';
+import { field, parseFieldBytes, parseNumberBytes } from '../../../server/formats/number-bytes.ts';
 import { bytes, chunked, extxyzText, gzip, makeSystem, random, readAll, xyzText, zip } from './synthetic.ts';
 
 describe('inspection', () => {
@@ -130,6 +130,31 @@ describe('number parsing from bytes', () => {
       if (rnd() < 0.5) text = `-${text}`;
       const buf = Buffer.from(text);
       expect(Object.is(parseNumberBytes(buf, 0, buf.length), Number(text)), text).toBe(true);
+    }
+  });
+
+  it('when random tokens are read in one pass from inside a line, then value and end match a token scan and parseNumberBytes', () => {
+    const rnd = random(7);
+    const forms = ['', '.', '-', '+', '1e', '1.2.3', '0x1A', 'NaN', '1_0', '--1', '1e+', '12.5D+03', '+.5', '7.', '-0.000000000000000000000001234'];
+    for (let k = 0; k < 20_000; k++) {
+      let token: string;
+      if (rnd() < 0.1) token = forms[Math.floor(rnd() * forms.length)]!;
+      else {
+        const digits = Math.floor(rnd() * 24) + 1;
+        let mantissa = '';
+        for (let d = 0; d < digits; d++) mantissa += Math.floor(rnd() * 10);
+        const dot = Math.floor(rnd() * (digits + 2));
+        token = dot > digits ? mantissa : `${mantissa.slice(0, dot)}.${mantissa.slice(dot)}`;
+        if (rnd() < 0.2) token += `${rnd() < 0.5 ? 'e' : 'E'}${rnd() < 0.5 ? '-' : ''}${Math.floor(rnd() * 40)}`;
+        if (rnd() < 0.5) token = `${rnd() < 0.8 ? '-' : '+'}${token}`;
+      }
+      if (token === '') continue;
+      const after = ['', ' ', '\t', '  9.0'][Math.floor(rnd() * 4)]!;
+      const line = Buffer.from(`Ar ${token}${after}`);
+      const expected = parseNumberBytes(line, 3, 3 + token.length);
+      const value = parseFieldBytes(line, 3, line.length);
+      expect(Object.is(value, expected), token).toBe(true);
+      expect(field.end, token).toBe(3 + token.length);
     }
   });
 
