@@ -341,7 +341,7 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
   const pressureKey = file.keys.find((k) => k.quantity === 'pressure');
   const pressureNote = pressureNoteFor({
     source: pressureSource, hasModel: options.model != null, periodic: periodic && volumeA3 !== null,
-    fileKey: pressureKey ? `"${pressureKey.key}" (${pressureKey.unit})` : null, fileHasNumbers: Object.keys(traj.observables ?? {}).length > 0,
+    fileKey: pressureKey ? `"${pressureKey.key}" in ${pressureKey.unit}` : null, fileHasNumbers: Object.keys(traj.observables ?? {}).some((k) => !file.keys.some((used) => used.key.toLowerCase() === k)),
   });
 
   onProgress?.(1);
@@ -361,6 +361,7 @@ interface PressureFacts {
   periodic: boolean;
   /** The file key mapped to the pressure, with its unit. */
   fileKey: string | null;
+  /** The file has per-frame numbers not taken as any quantity (one of them could be a pressure). */
   fileHasNumbers: boolean;
 }
 

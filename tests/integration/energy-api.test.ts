@@ -164,7 +164,7 @@ describe('what the energy report says when file and model differ', () => {
     expect(e.sources).toMatchObject({ potential: 'file', pressure: 'file' });
     expect(e.pressureTensorBar).toBeNull();
     expect(e.pressureBar.mean).toBeCloseTo(1.01425, 3);
-    expect(e.pressureNote).toBe('Shown: the pressure as the file states it, key "press" (bar), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
+    expect(e.pressureNote).toBe('Shown: the pressure as the file states it, key "press" in bar, a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
     const card = energyCards(report.summary).find((c) => c.id === 'energy-pressure')!;
     expect(card.title).toBe('Pressure (from the file)');
     expect(card.detail).toBe(e.pressureNote);
@@ -175,7 +175,7 @@ describe('what the energy report says when file and model differ', () => {
     const e = report.summary.energy;
     expect(e.sources).toMatchObject({ potential: 'model', pressure: 'virial' });
     expect(e.pressureTensorBar).not.toBeNull();
-    expect(e.pressureNote).toBe('Shown: the virial pressure and its tensor from the interaction model, beside the file\'s pressure (key "press" (bar)).');
+    expect(e.pressureNote).toBe('Shown: the virial pressure and its tensor from the interaction model, beside the file\'s pressure (key "press" in bar).');
     // The stated 1 bar is not the dense liquid's virial pressure: the report says so with both numbers.
     const pressure = e.comparisons.find((c: { quantity: string }) => c.quantity === 'pressure');
     expect(pressure).toMatchObject({ agree: false });

@@ -40,7 +40,7 @@ describe('energy cards', () => {
   });
 
   it('when the pressure comes from the file and there is no model, then the card is titled so and its detail says what is shown and why there is no tensor', () => {
-    const note = 'Shown: the pressure as the file states it, key "press" (bar), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).';
+    const note = 'Shown: the pressure as the file states it, key "press" in bar, a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).';
     const p = energyCards({ energy: summary({ sources: { potential: 'file', kinetic: 'stored velocities', pressure: 'file' }, pressureTensorBar: null, pressureNote: note }) })
       .find((c) => c.id === 'energy-pressure')!;
     expect(p.title).toBe('Pressure (from the file)');

@@ -90,7 +90,7 @@ describe('energies from the trajectory file', () => {
     expect(r.pressureTensorBar).toBeNull();
     // 1 MPa = 10 bar (the bar is defined as 10⁵ Pa).
     expect(r.means.pressureBar!.mean).toBeCloseTo(15.35, 9);
-    expect(r.pressureNote).toBe('Shown: the pressure as the file states it, key "press" (MPa), a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
+    expect(r.pressureNote).toBe('Shown: the pressure as the file states it, key "press" in MPa, a scalar per frame without a tensor; there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces).');
   });
 
   it('when the model gives the virial and tensor but the file maps no pressure, then the note says the virial is shown with nothing to compare it with', async () => {
@@ -110,7 +110,7 @@ describe('energies from the trajectory file', () => {
     const open = { ...traj, boundary: 'none' as const };
     const r = energy(open, { model, fileQuantities: { pressure: { key: 'press', unit: 'bar' } } });
     expect(r.sources.pressure).toBe('file');
-    expect(r.pressureNote).toMatch(/key "press" \(bar\).*the model's virial pressure and tensor need a periodic cell volume, and this run has open boundaries/);
+    expect(r.pressureNote).toMatch(/key "press" in bar.*the model's virial pressure and tensor need a periodic cell volume, and this run has open boundaries/);
     const none = energy(open, { model, fileQuantities: null });
     expect(none.pressureBar).toBeNull();
     expect(none.pressureNote).toMatch(/^No pressure: the file states none \(no per-frame number is mapped as the pressure\), and the model's virial pressure and tensor need a periodic cell volume/);
