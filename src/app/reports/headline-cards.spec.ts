@@ -91,3 +91,78 @@ describe('coordination card', () => {
     expect(card!.detail).toMatch(/No shell: g\(r\) has no peak standing above its counting noise/);
   });
 });
+
+describe('cards for what the report already holds', () => {
+  const zero = { perAtomKB: 0, jPerMolK: 0, jPerGK: 0 };
+  const vdos: NonNullable<ReportSummary['vdos']> = {
+    temperatureK: 86.5, temperatureSource: 'kinetic', kineticTemperatureK: 86.5, statedTemperatureK: 87,
+    peaks: [], modes: 321,
+    stdErrors: { blocks: 8, kineticTemperatureK: 1, cvPerAtomKB: 0.01, entropyPerAtomKB: 0.031, zeroPointEvPerAtom: 0.00021 },
+    cv: { quantum: { perAtomKB: 2.98, jPerMolK: 24.8, jPerGK: 0.62 }, classical: zero },
+    entropy: { quantum: { perAtomKB: 5.432, jPerMolK: 45.16 }, classical: { perAtomKB: 5.44, jPerMolK: 45.2 } },
+    zeroPoint: { evPerAtom: 0.00712, kJPerMol: 0.687 },
+  };
+
+  it('when the spectrum ran, then entropy and zero-point energy have cards with their errors, units and the temperature used', () => {
+    const cards = headlineCards({ vdos }, 'a2PerPs');
+    const entropy = cards.find((c) => c.id === 'entropy')!;
+    expect([entropy.title, entropy.value, entropy.unit]).toEqual(['Vibrational entropy at 86.5 K', '5.432 ± 0.031', 'k_B per atom']);
+    expect(entropy.detail).toContain('at 86.5 K, the kinetic temperature; stated 87 K');
+    expect(entropy.detail).toContain('45.16 J/(mol·K)');
+    const zp = cards.find((c) => c.id === 'zero-point')!;
+    expect([zp.value, zp.unit]).toEqual(['7.12 ± 0.21', 'meV per atom']);
+    expect(zp.detail).toContain('0.687 kJ/mol');
+    expect(zp.detail).toContain('321 modes');
+  });
+
+  it('when S(q) ran, then its first peak is a card with the spacing it implies, or a dash when there is none', () => {
+    const [card] = headlineCards({ sq: { firstPeak: { qInvA: 1.9634, s: 2.71 } } }, 'a2PerPs');
+    expect([card!.id, card!.value, card!.unit]).toEqual(['sq-peak', '1.963', 'Å⁻¹']);
+    expect(card!.detail).toContain('2π/q = 3.2 Å');
+    expect(headlineCards({ sq: { firstPeak: null } }, 'a2PerPs')[0]!.value).toBe('—');
+    const refused = headlineCards({ sq: { firstPeak: null, refused: 'The cell is not periodic in all three directions.' } }, 'a2PerPs')[0]!;
+    expect([refused.value, refused.warning]).toEqual(['—', 'The cell is not periodic in all three directions.']);
+  });
+
+  it('when α₂ ran on one species, then its peak and lag are shown; on a mixture, one row per species', () => {
+    const [one] = headlineCards({ ngp: { peakLagPs: 1.25, peakAlpha2: 0.183, groups: [{ label: 'Ar', atoms: 108, peakLagPs: 1.25, peakAlpha2: 0.183 }] } }, 'a2PerPs');
+    expect([one!.value, one!.rows]).toEqual(['0.183', undefined]);
+    expect(one!.detail).toContain('at 1.25 ps');
+    const [mix] = headlineCards({ ngp: { peakLagPs: null, peakAlpha2: null, groups: [
+      { label: 'Na', atoms: 20, peakLagPs: 0.8, peakAlpha2: 0.42 }, { label: 'Cl', atoms: 20, peakLagPs: null, peakAlpha2: null },
+    ] } }, 'a2PerPs');
+    expect(mix!.rows).toEqual([
+      { label: 'Na', value: '0.42', note: '20 atoms, at 0.8 ps' },
+      { label: 'Cl', value: '—', note: '20 atoms, no peak inside the lags' },
+    ]);
+  });
+
+  it('when a run holds several species, then D from MSD and VACF and the coordination are given per species or pair', () => {
+    const all = liquid.msd!.groups[0]!;
+    const msd: ReportSummary['msd'] = { dimensions: 3, groups: [all, { ...all, label: 'Na', atoms: 54, d: D(0.21), dStdError: D(0.012) }, { ...all, label: 'Cl', atoms: 54, d: D(0.11), dStdError: D(0.009), regime: 'subdiffusive' }] };
+    const gk = liquid.vacf!.groups[0]!;
+    const vacf: ReportSummary['vacf'] = { velocitySource: 'stored-velocities', groups: [gk, { ...gk, label: 'Na', converged: true, dStdError: D(0.01) }, { ...gk, label: 'Cl', converged: true, dStdError: D(0.01) }] };
+    const rdf: ReportSummary['rdf'] = { pairs: [
+      { label: 'all', firstPeak: { rA: 2.9, g: 2.4 }, firstMinimum: { rA: 3.8, coordination: 6.1 } },
+      { label: 'Na-Cl', firstPeak: { rA: 2.8, g: 4.1 }, firstMinimum: { rA: 3.6, coordination: 5.83 } },
+      { label: 'Na-Na', firstPeak: null, firstMinimum: null },
+    ] };
+    const cards = headlineCards({ msd, vacf, rdf }, 'a2PerPs');
+    expect(cards.map((c) => c.id)).toEqual(['msd', 'msd-species', 'vacf', 'vacf-species', 'coordination', 'coordination-pairs']);
+    const bySpecies = cards.find((c) => c.id === 'msd-species')!;
+    expect(bySpecies.unit).toBe('Å²/ps');
+    expect(bySpecies.rows!.map((r) => [r.label, r.value])).toEqual([['Na', '0.210 ± 0.012'], ['Cl', '0.1100 ± 0.0090']]);
+    expect(bySpecies.warning).toMatch(/MSD of Cl is not diffusive/);
+    expect(cards.find((c) => c.id === 'vacf-species')!.rows!.map((r) => r.label)).toEqual(['Na', 'Cl']);
+    const pairs = cards.find((c) => c.id === 'coordination-pairs')!;
+    expect(pairs.rows).toEqual([
+      { label: 'Na-Cl', value: '5.83', note: 'peak 2.8 Å, shell to 3.6 Å' },
+      { label: 'Na-Na', value: '—', note: 'no shell above counting noise' },
+    ]);
+  });
+
+  it('when a run holds one species, then no per-species card repeats the overall one', () => {
+    const single: ReportSummary = { msd: { dimensions: 3, groups: [liquid.msd!.groups[0]!, { ...liquid.msd!.groups[0]!, label: 'Ar' }] }, rdf: { pairs: [{ label: 'all', firstPeak: null, firstMinimum: null }, { label: 'Ar-Ar', firstPeak: null, firstMinimum: null }] } };
+    expect(headlineCards(single, 'a2PerPs').map((c) => c.id)).toEqual(['msd', 'coordination']);
+  });
+});

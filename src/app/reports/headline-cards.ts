@@ -5,14 +5,26 @@ import { diffusionLabel, type DiffusionUnit } from './report-units';
 
 /** One headline number as the cards show it. */
 export interface HeadlineCard {
-  id: 'msd' | 'vacf' | 'thermo' | 'vdos-peaks' | 'cv' | 'coordination' | 'lindemann' | 'energy-potential' | 'energy-pressure' | 'energy-drift' | 'energy-cv';
+  id:
+    | 'msd' | 'msd-species' | 'vacf' | 'vacf-species' | 'thermo' | 'vdos-peaks' | 'cv' | 'entropy' | 'zero-point' | 'coordination' | 'coordination-pairs'
+    | 'sq-peak' | 'ngp-peak' | 'lindemann' | 'energy-potential' | 'energy-pressure' | 'energy-drift' | 'energy-cv';
   title: string;
   value: string;
   unit: string;
+  /** One number per species or pair, when the card holds several (the unit is the card's). */
+  rows?: HeadlineRow[];
   /** What the number rests on, in one line. */
   detail: string;
   /** A warning a reader must not miss (not converged, melted, drifting). */
   warning: string | null;
+}
+
+/** One labelled number inside a card. */
+export interface HeadlineRow {
+  label: string;
+  value: string;
+  /** A few words on what the number rests on. */
+  note: string;
 }
 
 const REGIME_WORDS: Record<MsdGroupSummary['regime'], string> = {
@@ -46,6 +58,34 @@ function msdCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): Hea
   const slab = s.partlyPeriodic ? ` · ${s.partlyPeriodic.note}` : '';
   const title = s.partlyPeriodic && s.components ? `D from MSD (Einstein, along ${[...s.components].join(', ')})` : 'D from MSD (Einstein)';
   return { id: 'msd', title, value: withError(g.d, g.dStdError, unit), unit: g.d ? diffusionLabel(unit) : '', detail: detail + slab, warning };
+}
+
+/** The other groups of a multi-species run: one per species (the first group pools the selection). */
+const speciesGroups = <G extends { label: string }>(groups: readonly G[]): G[] => groups.filter((g) => g.label !== 'all');
+
+function msdSpeciesCard(s: NonNullable<ReportSummary['msd']>, unit: DiffusionUnit): HeadlineCard {
+  const groups = speciesGroups(s.groups);
+  const unsettled = groups.filter((g) => g.d && g.regime !== 'diffusive').map((g) => g.label);
+  return {
+    id: 'msd-species', title: 'D by species (MSD)', value: '', unit: diffusionLabel(unit),
+    rows: groups.map((g) => ({
+      label: g.label, value: withError(g.d, g.dStdError, unit),
+      note: g.d ? `${g.atoms} atoms, fit over ${span(g.fitWindowPs)}` : `${g.atoms} atoms, ${REGIME_WORDS[g.regime]}`,
+    })),
+    detail: `Each species fitted on its own; ${errorSource(groups[0]?.uncertaintyMethod, undefined)}`,
+    warning: unsettled.length ? `The MSD of ${unsettled.join(', ')} is not diffusive over its fit window.` : null,
+  };
+}
+
+function vacfSpeciesCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): HeadlineCard {
+  const groups = speciesGroups(s.groups);
+  const unsettled = groups.filter((g) => !g.converged).map((g) => g.label);
+  return {
+    id: 'vacf-species', title: 'D by species (VACF)', value: '', unit: diffusionLabel(unit),
+    rows: groups.map((g) => ({ label: g.label, value: withError(g.dGreenKubo, g.dStdError ?? null, unit), note: `${g.atoms} atoms, plateau ${span(g.plateauWindowPs)}` })),
+    detail: 'Green–Kubo integral of each species’ own velocity autocorrelation',
+    warning: unsettled.length ? `The running integral of ${unsettled.join(', ')} has not settled to a plateau.` : null,
+  };
 }
 
 function vacfCard(s: NonNullable<ReportSummary['vacf']>, unit: DiffusionUnit): HeadlineCard {
@@ -109,6 +149,17 @@ function vdosCards(s: NonNullable<ReportSummary['vdos']>): HeadlineCard[] {
       detail: `Quantum harmonic ${temperatureUsed(s)}; ${formatNumber(s.cv.quantum.jPerMolK, 4)} J/(mol·K), ${formatNumber(s.cv.quantum.jPerGK, 4)} J/(g·K). Classical limit ${formatNumber(s.cv.classical.perAtomKB, 4)} k_B per atom${blocks}`,
       warning: joined([s.temperatureWarning, ...(s.warnings ?? [])]),
     },
+    {
+      id: 'entropy', title: `Vibrational entropy at ${T} K`, value: formatWithError(s.entropy.quantum.perAtomKB, e?.entropyPerAtomKB), unit: 'k_B per atom',
+      detail: `Quantum harmonic ${temperatureUsed(s)}; ${formatNumber(s.entropy.quantum.jPerMolK, 4)} J/(mol·K). Classical ${formatNumber(s.entropy.classical.perAtomKB, 4)} k_B per atom${blocks}`,
+      warning: joined([s.temperatureWarning]),
+    },
+    {
+      // meV reads better than eV at the size zero-point energies of atoms have.
+      id: 'zero-point', title: 'Zero-point energy', value: formatWithError(s.zeroPoint.evPerAtom * 1e3, e ? e.zeroPointEvPerAtom * 1e3 : null), unit: 'meV per atom',
+      detail: `Half a quantum, ½hν, for each of the ${formatNumber(s.modes, 6)} modes of the spectrum; ${formatNumber(s.zeroPoint.kJPerMol, 4)} kJ/mol${blocks}`,
+      warning: null,
+    },
   ];
 }
 
@@ -124,6 +175,51 @@ function coordinationCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
   return {
     id: 'coordination', title: 'First-shell coordination', value: shell ? formatNumber(shell.coordination, 3) : '—', unit: shell ? 'neighbours' : '',
     detail,
+    warning: null,
+  };
+}
+
+function coordinationPairsCard(s: NonNullable<ReportSummary['rdf']>): HeadlineCard {
+  const pairs = speciesGroups(s.pairs);
+  return {
+    id: 'coordination-pairs', title: 'Coordination by species pair', value: '', unit: '',
+    rows: pairs.map((p) => ({
+      label: p.label,
+      value: p.firstMinimum ? formatNumber(p.firstMinimum.coordination, 3) : '—',
+      note: !p.firstPeak ? 'no shell above counting noise' : p.firstMinimum
+        ? `peak ${formatNumber(p.firstPeak.rA, 3)} Å, shell to ${formatNumber(p.firstMinimum.rA, 3)} Å`
+        : `peak ${formatNumber(p.firstPeak.rA, 3)} Å, no first minimum inside r_max`,
+    })),
+    detail: 'Neighbours of the second species around an atom of the first, counted to the first minimum of that pair’s g(r)',
+    warning: null,
+  };
+}
+
+function sqCard(s: NonNullable<ReportSummary['sq']>): HeadlineCard {
+  if (s.refused) return { id: 'sq-peak', title: 'First peak of S(q)', value: '—', unit: '', detail: 'S(q) not computed', warning: s.refused };
+  const p = s.firstPeak;
+  return {
+    id: 'sq-peak', title: 'First peak of S(q)', value: p ? formatNumber(p.qInvA, 4) : '—', unit: p ? 'Å⁻¹' : '',
+    detail: p
+      ? `S(q) = ${formatNumber(p.s, 3)} there; a spacing of about 2π/q = ${formatNumber((2 * Math.PI) / p.qInvA, 3)} Å`
+      : 'No peak stands out of S(q) inside the q range',
+    warning: null,
+  };
+}
+
+function ngpCard(s: NonNullable<ReportSummary['ngp']>): HeadlineCard {
+  const groups = s.groups ?? [];
+  const several = groups.length > 1;
+  const peak = (alpha: number | null) => (alpha === null ? '—' : formatNumber(alpha, 3));
+  const at = (lag: number | null) => (lag === null ? 'no peak inside the lags' : `at ${formatNumber(lag, 3)} ps`);
+  const single = groups[0] ?? { label: 'all', atoms: 0, peakAlpha2: s.peakAlpha2, peakLagPs: s.peakLagPs };
+  return {
+    id: 'ngp-peak', title: several ? 'Peak of α₂ by species' : 'Peak of the non-Gaussian parameter α₂',
+    value: several ? '' : peak(single.peakAlpha2), unit: '',
+    rows: several ? groups.map((g) => ({ label: g.label, value: peak(g.peakAlpha2), note: `${g.atoms} atoms, ${at(g.peakLagPs)}` })) : undefined,
+    detail: several
+      ? 'Largest α₂(t) of each species; 0 for Gaussian displacements, larger when some atoms move much farther than others'
+      : `${at(single.peakLagPs)}; 0 for Gaussian displacements, larger when some atoms move much farther than others`,
     warning: null,
   };
 }
@@ -146,10 +242,15 @@ function lindemannCard(s: NonNullable<ReportSummary['lindemann']>): HeadlineCard
 export function headlineCards(summary: ReportSummary, unit: DiffusionUnit): HeadlineCard[] {
   return [
     ...(summary.msd?.groups.length ? [msdCard(summary.msd, unit)] : []),
+    ...(summary.msd && speciesGroups(summary.msd.groups).length > 1 ? [msdSpeciesCard(summary.msd, unit)] : []),
     ...(summary.vacf?.groups.length ? [vacfCard(summary.vacf, unit)] : []),
+    ...(summary.vacf && speciesGroups(summary.vacf.groups).length > 1 ? [vacfSpeciesCard(summary.vacf, unit)] : []),
     ...(summary.thermo ? [thermoCard(summary.thermo)] : []),
     ...(summary.vdos ? vdosCards(summary.vdos) : []),
     ...(summary.rdf?.pairs.length || summary.rdf?.refused ? [coordinationCard(summary.rdf)] : []),
+    ...(summary.rdf && speciesGroups(summary.rdf.pairs).length > 1 ? [coordinationPairsCard(summary.rdf)] : []),
+    ...(summary.sq ? [sqCard(summary.sq)] : []),
+    ...(summary.ngp ? [ngpCard(summary.ngp)] : []),
     ...(summary.lindemann ? [lindemannCard(summary.lindemann)] : []),
     ...energyCards(summary),
   ];
