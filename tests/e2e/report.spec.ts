@@ -31,7 +31,7 @@ test.describe('report page and access links', () => {
       await expect(cards.getByRole('listitem').filter({ hasText: 'Lindemann index' })).toContainText(/solid-like|liquid-like/);
       await expect(page.getByRole('heading', { name: 'Methods' })).toBeVisible();
       await expect(page.getByText(/FFT \(Wiener–Khinchin\)/)).toBeVisible();
-      await expect(page.getByText(/SHA-256 [0-9a-f]{64}/)).toBeVisible();
+      await expect(page.getByRole('region', { name: 'Methods' }).getByText(/SHA-256 [0-9a-f]{64}/)).toBeVisible();
     });
 
     await test.step('the charts draw, the VDOS axis switches unit, and a curve downloads as CSV with its header', async () => {

@@ -1,14 +1,17 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import type { ReportDto } from '../../../shared/report';
+import { apiErrorMessage } from '../core/api-error';
 import { CautionNote } from './caution-note';
+import { CitationSection } from './citation-section';
 import { HeadlineCardGrid } from './headline-card-grid';
 import { headlineCards } from './headline-cards';
 import { MethodsSection } from './methods-section';
+import { ReportBundleDownload } from './report-bundle-download';
 import { ReportCharts } from './report-charts';
 import { reportJsonUrl, type ReportSource } from './report-source';
 import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
@@ -16,7 +19,7 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
 /** A report as members and link holders read it; what they may do around it comes from the page. */
 @Component({
   selector: 'erg-report-view',
-  imports: [DatePipe, CautionNote, HeadlineCardGrid, MethodsSection, ReportCharts, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressSpinnerModule],
+  imports: [DatePipe, CautionNote, CitationSection, HeadlineCardGrid, MethodsSection, ReportCharts, MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressSpinnerModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <article class="report" aria-labelledby="report-title">
@@ -30,12 +33,17 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
         <div class="actions">
           <ng-content select="[reportActions]" />
           <a mat-stroked-button [href]="jsonHref()" download><mat-icon aria-hidden="true">data_object</mat-icon> Report as JSON</a>
+          <button mat-stroked-button type="button" [disabled]="bundling()" (click)="downloadBundle()"
+                  aria-label="Download everything: report JSON, methods text, citation and every curve as CSV, in one zip">
+            <mat-icon aria-hidden="true">folder_zip</mat-icon> All files (.zip)
+          </button>
           @if (canShare()) {
             <button mat-flat-button type="button" (click)="share.emit()"><mat-icon aria-hidden="true">share</mat-icon> Share</button>
           }
         </div>
       </header>
 
+      @if (bundleError()) { <p class="form-error" role="alert">{{ bundleError() }}</p> }
       <erg-caution-note />
 
       <section aria-labelledby="headline-heading">
@@ -66,6 +74,7 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
       </section>
 
       <erg-methods-section [report]="report()" />
+      <erg-citation-section [report]="report()" />
       <ng-content />
     </article>
   `,
@@ -94,4 +103,20 @@ export class ReportView {
   protected readonly cards = computed(() => headlineCards(this.report().summary, this.diffusionUnit()));
   protected readonly hasDiffusion = computed(() => !!(this.report().summary.msd || this.report().summary.vacf));
   protected readonly jsonHref = computed(() => reportJsonUrl(this.source()));
+
+  private readonly bundle = inject(ReportBundleDownload);
+  protected readonly bundling = signal(false);
+  protected readonly bundleError = signal<string | null>(null);
+
+  protected async downloadBundle(): Promise<void> {
+    this.bundling.set(true);
+    this.bundleError.set(null);
+    try {
+      await this.bundle.download(this.report(), this.source());
+    } catch (err) {
+      this.bundleError.set(apiErrorMessage(err, 'The files could not be gathered. Try again, or download the JSON and CSVs one by one.'));
+    } finally {
+      this.bundling.set(false);
+    }
+  }
 }
