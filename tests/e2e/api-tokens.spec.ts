@@ -29,6 +29,7 @@ test('when a user creates an API token, then it is shown once with its expiry, w
   expect((await asScript.json()).user.email).toBe(user.email);
 
   await page.getByRole('button', { name: 'Revoke token cluster upload script' }).click();
+  await page.getByRole('dialog', { name: 'Revoke token “cluster upload script”?' }).getByRole('button', { name: 'Revoke token' }).click();
   // Stopped tokens stay listed for a while, saying why, without a revoke button.
   await expect(table.getByRole('row', { name: /cluster upload script/ })).toContainText('Revoked');
   await expect(page.getByRole('button', { name: 'Revoke token cluster upload script' })).toHaveCount(0);
