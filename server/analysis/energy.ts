@@ -340,7 +340,7 @@ export function energy(traj: Trajectory, options: EnergyOptions = {}, onProgress
 
   const pressureKey = file.keys.find((k) => k.quantity === 'pressure');
   const pressureNote = pressureNoteFor({
-    source: pressureSource, hasModel: options.model != null, periodic: periodic && volumeA3 !== null,
+    source: pressureSource, hasModel: options.model != null, periodic: periodic && volumeA3 !== null, slab: geometry?.partlyPeriodic === true,
     fileKey: pressureKey ? `"${pressureKey.key}" in ${pressureKey.unit}` : null, fileHasNumbers: Object.keys(traj.observables ?? {}).some((k) => !file.keys.some((used) => used.key.toLowerCase() === k)),
   });
 
@@ -359,6 +359,8 @@ interface PressureFacts {
   source: EnergyResult['sources']['pressure'];
   hasModel: boolean;
   periodic: boolean;
+  /** Periodic along some directions only: a cell without a volume the pressure could use. */
+  slab: boolean;
   /** The file key mapped to the pressure, with its unit. */
   fileKey: string | null;
   /** The file has per-frame numbers not taken as any quantity (one of them could be a pressure). */
@@ -373,7 +375,7 @@ interface PressureFacts {
 export function pressureNoteFor(f: PressureFacts): string {
   const noVirial = !f.hasModel
     ? 'there is no interaction model, so no virial pressure and no pressure tensor (both need the pair forces)'
-    : 'the model\'s virial pressure and tensor need a periodic cell volume, and this run has open boundaries';
+    : `the model's virial pressure and tensor need a periodic cell volume, and this run ${f.slab ? 'is periodic along some directions only (a slab)' : 'has open boundaries'}`;
   if (f.source === 'virial') {
     if (f.fileKey) return `Shown: the virial pressure and its tensor from the interaction model, beside the file's pressure (key ${f.fileKey}).`;
     return f.fileHasNumbers

@@ -111,6 +111,9 @@ describe('energies from the trajectory file', () => {
     const r = energy(open, { model, fileQuantities: { pressure: { key: 'press', unit: 'bar' } } });
     expect(r.sources.pressure).toBe('file');
     expect(r.pressureNote).toMatch(/key "press" in bar.*the model's virial pressure and tensor need a periodic cell volume, and this run has open boundaries/);
+    const slab = energy({ ...traj, periodicAxes: [true, true, false] }, { model, fileQuantities: { pressure: { key: 'press', unit: 'bar' } } });
+    expect(slab.sources.pressure).toBe('file');
+    expect(slab.pressureNote).toMatch(/need a periodic cell volume, and this run is periodic along some directions only \(a slab\)\.$/);
     const none = energy(open, { model, fileQuantities: null });
     expect(none.pressureBar).toBeNull();
     expect(none.pressureNote).toMatch(/^No pressure: the file states none \(no per-frame number is mapped as the pressure\), and the model's virial pressure and tensor need a periodic cell volume/);
