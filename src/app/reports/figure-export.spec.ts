@@ -64,3 +64,15 @@ describe('figures for a paper', () => {
     expect(without.backgroundColor).toBe('#ffffff');
   });
 });
+
+describe('exporting a chart of stacked panels', () => {
+  it('when g(r) and N(r) are exported with a caption, then both panels stay and the lower one makes room for it', async () => {
+    const { figureOption } = await import('./figure-export');
+    const option = { grid: [{ top: 48, bottom: '46%' }, { top: '62%', bottom: 48 }] } as never;
+    const figure = figureOption(option, 'Radial distribution of the Larkspur mixture at 86 K.', 800);
+    const grids = figure.grid as { top?: unknown; bottom?: unknown }[];
+    expect(grids).toHaveLength(2);
+    expect(grids[0]).toEqual({ top: 48, bottom: '46%' });
+    expect(grids[1]!.bottom).toBeGreaterThan(48);
+  });
+});

@@ -37,7 +37,9 @@ type FigureOption = ComposeOption<TitleComponentOption> & ChartOption;
 export function figureOption(option: ChartOption, caption: string, width: number): FigureOption {
   const text = caption.trim();
   const { tooltip: _tooltip, ...rest } = option;
-  const grid = (Array.isArray(option.grid) ? option.grid[0] : option.grid) ?? {};
+  // A chart of stacked panels (g(r) over N(r)) keeps every panel; the lowest one makes room for the caption.
+  const grids = Array.isArray(option.grid) ? option.grid : [option.grid ?? {}];
+  const grid = grids[grids.length - 1] ?? {};
   const bottom = typeof grid.bottom === 'number' ? grid.bottom : 56;
   if (!text) return { ...rest, backgroundColor: '#ffffff', animation: false };
   const perLine = Math.max(20, Math.floor((width - 48) / CAPTION_CHAR_PX));
@@ -46,7 +48,9 @@ export function figureOption(option: ChartOption, caption: string, width: number
     ...rest,
     backgroundColor: '#ffffff',
     animation: false,
-    grid: { ...grid, bottom: bottom + 12 + lines * CAPTION_LINE_PX },
+    grid: Array.isArray(option.grid)
+      ? [...grids.slice(0, -1), { ...grid, bottom: bottom + 12 + lines * CAPTION_LINE_PX }]
+      : { ...grid, bottom: bottom + 12 + lines * CAPTION_LINE_PX },
     title: {
       text, left: 24, bottom: 8,
       textStyle: { fontSize: 13, fontWeight: 'normal', color: '#243335', width: width - 48, overflow: 'break', lineHeight: CAPTION_LINE_PX },

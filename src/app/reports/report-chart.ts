@@ -41,7 +41,7 @@ let nextId = 0;
           </a>
         </div>
       </header>
-      <div echarts class="plot" role="img" [attr.aria-label]="spec().description" [options]="spec().option" (chartInit)="chart.set($event)"></div>
+      <div echarts class="plot" [style.height.px]="spec().height ?? 340" role="img" [attr.aria-label]="spec().description" [options]="spec().option" (chartInit)="chart.set($event)"></div>
       @if (captionOpen()) {
         <mat-form-field appearance="outline" class="caption" subscriptSizing="dynamic">
           <mat-label>Caption for the exported figure</mat-label>
@@ -55,7 +55,7 @@ let nextId = 0;
   styles: `
     .chart-card { margin: 0; padding: 12px 16px 8px; border-radius: 16px; background: var(--mat-sys-surface-container-lowest); border: 1px solid var(--mat-sys-outline-variant); }
     header { display: flex; align-items: center; justify-content: space-between; gap: 8px; flex-wrap: wrap; }
-    h3 { margin: 0; font: var(--mat-sys-title-medium); }
+    h3 { margin: 0; }
     .controls { display: flex; align-items: center; gap: 4px; flex-wrap: wrap; }
     .plot { height: 340px; width: 100%; }
     .caption { width: 100%; margin-top: 8px; }

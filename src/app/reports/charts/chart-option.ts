@@ -1,13 +1,13 @@
 import type { LineSeriesOption, ScatterSeriesOption } from 'echarts/charts';
 import type {
-  GridComponentOption, LegendComponentOption, MarkAreaComponentOption, MarkLineComponentOption, TooltipComponentOption,
+  AxisPointerComponentOption, GridComponentOption, LegendComponentOption, MarkAreaComponentOption, MarkLineComponentOption, TooltipComponentOption,
 } from 'echarts/components';
 import type { XAXisComponentOption, YAXisComponentOption } from 'echarts';
 import type { ComposeOption } from 'echarts/core';
 
 /** Everything a report chart may set; only these parts of the library are registered. */
 export type ChartOption = ComposeOption<
-  LineSeriesOption | ScatterSeriesOption | GridComponentOption | LegendComponentOption | TooltipComponentOption |
+  LineSeriesOption | ScatterSeriesOption | GridComponentOption | AxisPointerComponentOption | LegendComponentOption | TooltipComponentOption |
   MarkAreaComponentOption | MarkLineComponentOption
 >;
 export type LineSeries = LineSeriesOption;
@@ -31,7 +31,7 @@ export function baseOption(): ChartOption {
     textStyle: { fontFamily: 'Noto Sans, sans-serif', color: INK },
     grid: { left: 72, right: 72, top: 48, bottom: 56 },
     tooltip: { trigger: 'axis', valueFormatter: (v) => (typeof v === 'number' ? String(Number(v.toPrecision(4))) : String(v)) },
-    legend: { top: 8, type: 'scroll', textStyle: { color: INK } },
+    legend: { top: 8, left: 8, right: 8, type: 'plain', textStyle: { color: INK } },
     animation: false,
   };
 }
@@ -54,4 +54,18 @@ export function yAxis(name: string, type: 'value' | 'log' = 'value', extra: Part
 
 export function line(name: string, data: [number, number][], extra: Partial<LineSeries> = {}): LineSeries {
   return { type: 'line', name, data, showSymbol: false, sampling: 'lttb', lineStyle: { width: 1.6 }, ...extra };
+}
+
+/**
+ * A guide (window, mean, threshold, first minimum…) as a series of its own
+ * with no data: its words go in the legend, never over the curves, and
+ * clicking its legend entry hides it.
+ */
+export function annotation(name: string, mark: Pick<LineSeries, 'markLine' | 'markArea'>, colour = GUIDE, dashed = true): LineSeries {
+  const markLine = mark.markLine && { ...mark.markLine, label: { show: false }, emphasis: { disabled: true } };
+  const markArea = mark.markArea && { ...mark.markArea, label: { show: false }, emphasis: { disabled: true } };
+  return {
+    type: 'line', name, data: [], showSymbol: false, itemStyle: { color: colour },
+    lineStyle: { color: colour, type: dashed ? 'dashed' : 'solid', width: 1.4 }, ...(markLine && { markLine }), ...(markArea && { markArea }),
+  };
 }

@@ -1,7 +1,9 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { EnergySummary } from '../../../../shared/report-summary';
 import { formatWithError } from '../number-format';
-import { BAND, GUIDE, LABEL_BACKGROUND, baseOption, line, xAxis, yAxis, type ChartOption, type LineSeries } from './chart-option';
+import { finishChart } from './chart-finish';
+import { GUIDE, baseOption, line, xAxis, yAxis, type ChartOption, type LineSeries } from './chart-option';
+import { meanAnnotation } from './thermo-chart';
 import { column, points } from './curve-columns';
 
 /**
@@ -19,12 +21,12 @@ export function energyChart(curve: ReportCurve): ChartOption {
   add('potential energy', 'potential', 0);
   add('file potential energy', 'potential (file)', 0, { lineStyle: { width: 1.2, type: 'dashed' } });
   add('kinetic energy', 'kinetic (right axis)', 1);
-  return {
+  return finishChart({
     ...baseOption(),
     xAxis: xAxis('time (ps)'),
     yAxis: [yAxis('potential (eV/atom)', 'value', { nameGap: 60 }), yAxis('kinetic (eV/atom)', 'value', { nameGap: 60, splitLine: { show: false } })],
     series,
-  };
+  }, { x: { name: 'time', unit: 'ps' }, y: ['eV/atom', 'eV/atom'] });
 }
 
 /** Total energy per atom on its own scale, with the fitted drift line: what conservation looks like. */
@@ -39,28 +41,22 @@ export function totalEnergyChart(curve: ReportCurve, summary: EnergySummary | un
     const at = (x: number) => summary.totalPerAtomEV!.mean + slope * (x - mid);
     series.push(line(`drift ${formatWithError(d.perAtomEVPerNs, d.stdError)} eV/atom/ns`, [[t0, at(t0)], [t1, at(t1)]], { lineStyle: { width: 1.6, type: 'dashed', color: GUIDE }, sampling: undefined }));
   }
-  return { ...baseOption(), grid: { left: 96, right: 24, top: 48, bottom: 56 }, xAxis: xAxis('time (ps)'), yAxis: yAxis('total (eV/atom)', 'value', { nameGap: 80 }), series };
+  return finishChart({ ...baseOption(), grid: { left: 96, right: 24, top: 48, bottom: 56 }, xAxis: xAxis('time (ps)'), yAxis: yAxis('total (eV/atom)', 'value', { nameGap: 80 }), series },
+    { x: { name: 'time', unit: 'ps' }, y: ['eV/atom'] });
 }
 
 /** Pressure against time with its mean ± standard error band, and the diagonal tensor components. */
 export function pressureChart(curve: ReportCurve, summary: EnergySummary | undefined): ChartOption {
   const t = column(curve, 'time') ?? [];
-  const p = line('pressure', points(t, column(curve, 'pressure') ?? []));
+  const series: LineSeries[] = [line('pressure', points(t, column(curve, 'pressure') ?? []))];
   const mean = summary?.pressureBar;
-  if (mean) {
-    p.markLine = {
-      silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' },
-      label: { formatter: `mean ${formatWithError(mean.mean, mean.stdError)} bar`, position: 'insideEndTop', color: GUIDE, backgroundColor: LABEL_BACKGROUND, padding: [2, 4] },
-      data: [{ yAxis: mean.mean }],
-    };
-    p.markArea = { silent: true, itemStyle: { color: BAND }, data: [[{ yAxis: mean.mean - mean.stdError }, { yAxis: mean.mean + mean.stdError }]] };
-  }
-  const series: LineSeries[] = [p];
   for (const c of ['xx', 'yy', 'zz']) {
     const values = column(curve, `pressure ${c}`);
     if (values) series.push(line(`P${c}`, points(t, values), { lineStyle: { width: 0.8, opacity: 0.6 } }));
   }
   const file = column(curve, 'file pressure');
   if (file) series.push(line('pressure (file)', points(t, file), { lineStyle: { width: 1.2, type: 'dashed' } }));
-  return { ...baseOption(), xAxis: xAxis('time (ps)'), yAxis: yAxis('pressure (bar)', 'value', { nameGap: 56 }), series };
+  if (mean) series.push(meanAnnotation(mean, 'bar'));
+  return finishChart({ ...baseOption(), xAxis: xAxis('time (ps)'), yAxis: yAxis('pressure (bar)', 'value', { nameGap: 56 }), series },
+    { x: { name: 'time', unit: 'ps' }, y: ['bar'] });
 }

@@ -1,6 +1,7 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { LindemannSummary, NgpSummary } from '../../../../shared/report-summary';
-import { xAxis, yAxis, baseOption, GUIDE, line, type ChartOption, type ScatterSeries } from './chart-option';
+import { finishChart, seriesId } from './chart-finish';
+import { annotation, xAxis, yAxis, baseOption, GUIDE, line, type ChartOption, type LineSeries, type ScatterSeries } from './chart-option';
 import { column, groupColumns, points } from './curve-columns';
 
 /**
@@ -13,15 +14,20 @@ export function ngpChart(curve: ReportCurve, summary: NgpSummary | undefined): C
   const perSpecies = groupColumns(curve, 'alpha2');
   const lines = perSpecies.length ? perSpecies : [{ group: '', values: column(curve, 'alpha2') ?? [] }];
   const peaks = summary?.groups ?? (summary?.peakLagPs ? [{ label: '', peakLagPs: summary.peakLagPs }] : []);
-  const series = lines.map(({ group, values }) => {
-    const s = line(group ? `α₂ ${group}` : 'α₂(t)', points(lag, values).filter(([x]) => x > 0), { showSymbol: true, symbolSize: 4 });
+  const series: LineSeries[] = lines.flatMap(({ group, values }) => {
+    const name = group ? `α₂ ${group}` : 'α₂(t)';
+    const out: LineSeries[] = [line(name, points(lag, values).filter(([x]) => x > 0), { id: seriesId(name, group || null), showSymbol: true, symbolSize: 4 })];
     const peak = peaks.find((p) => p.label === group || (lines.length === 1 && !group));
     if (peak?.peakLagPs) {
-      s.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dotted' }, label: { formatter: group ? `peak ${group}` : 'peak', color: GUIDE }, data: [{ xAxis: peak.peakLagPs }] };
+      // The peak line is part of its species: hidden with it, named in the legend rather than over the curves.
+      const marker = annotation(`${group ? `${group} ` : ''}peak at ${Number(peak.peakLagPs.toPrecision(3))} ps`,
+        { markLine: { silent: true, symbol: 'none', lineStyle: { type: 'dotted', width: 1.4 }, data: [{ xAxis: peak.peakLagPs }] } });
+      // No colour of its own: it takes its species' colour.
+      out.push({ ...marker, id: seriesId(`${name} peak`, group || null), itemStyle: undefined, lineStyle: { type: 'dotted', width: 1.4 } });
     }
-    return s;
+    return out;
   });
-  return { ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('α₂'), series };
+  return finishChart({ ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('α₂'), series }, { x: { name: 'lag time', unit: 'ps' }, y: [''] });
 }
 
 /** Each atom's Lindemann index, with the melting threshold as a line. */
@@ -30,8 +36,11 @@ export function lindemannChart(curve: ReportCurve, summary: LindemannSummary | u
     type: 'scatter', name: 'per atom', symbolSize: 5,
     data: points(column(curve, 'atom') ?? [], column(curve, 'Lindemann index') ?? []),
   };
-  if (summary) {
-    series.markLine = { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' }, label: { formatter: `melting threshold ${summary.threshold}`, position: 'insideEndTop', color: GUIDE }, data: [{ yAxis: summary.threshold }] };
-  }
-  return { ...baseOption(), tooltip: { trigger: 'item' }, xAxis: xAxis('atom index', 'value', { scale: false, min: 0 }), yAxis: yAxis('Lindemann index', 'value', { scale: false, min: 0 }), series: [series] };
+  const guides: LineSeries[] = summary
+    ? [annotation(`melting threshold ${summary.threshold}`, { markLine: { silent: true, symbol: 'none', lineStyle: { color: GUIDE, type: 'dashed' }, data: [{ yAxis: summary.threshold }] } })]
+    : [];
+  return finishChart({
+    ...baseOption(), tooltip: { trigger: 'item' }, xAxis: xAxis('atom index', 'value', { scale: false, min: 0 }),
+    yAxis: yAxis('Lindemann index', 'value', { scale: false, min: 0 }), series: [series, ...guides],
+  }, { x: { name: 'atom', unit: '' }, y: [''] });
 }

@@ -1,16 +1,17 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { MsdSummary } from '../../../../shared/report-summary';
-import { xAxis, yAxis, BAND, baseOption, GUIDE, line, type ChartOption, type LineSeries } from './chart-option';
+import { finishChart, seriesId } from './chart-finish';
+import { annotation, xAxis, yAxis, BAND, baseOption, GUIDE, line, type ChartOption, type LineSeries } from './chart-option';
 import { column, groupColumns, nearestY, points } from './curve-columns';
 
-/** MSD on log–log axes: the fitted window shaded, a slope-1 line through the middle of it. */
+/** MSD on log–log axes, one line per species: the fitted window shaded, a slope-1 line through the middle of it. */
 export function msdChart(curve: ReportCurve, summary: MsdSummary | undefined): ChartOption {
   const lag = column(curve, 'lag') ?? [];
   const fit = summary?.groups[0]?.fitWindowPs;
-  const series: LineSeries[] = groupColumns(curve, 'MSD').map(({ group, values }) => line(group, points(lag, values, 1, true)));
+  const series: LineSeries[] = groupColumns(curve, 'MSD').map(({ group, values }) =>
+    line(`MSD ${group}`, points(lag, values, 1, true), { id: seriesId(`MSD ${group}`, group) }));
   const first = series[0];
   if (first && fit && fit.end > fit.start) {
-    first.markArea = { silent: true, itemStyle: { color: BAND }, label: { show: true, position: 'insideTop', color: GUIDE }, data: [[{ name: 'fit window', xAxis: fit.start }, { xAxis: fit.end }]] };
     const data = first.data as [number, number][];
     const mid = Math.sqrt(Math.max(fit.start, data[0]?.[0] ?? fit.start) * fit.end);
     const anchor = nearestY(data, mid);
@@ -21,6 +22,8 @@ export function msdChart(curve: ReportCurve, summary: MsdSummary | undefined): C
         lineStyle: { type: 'dashed', color: GUIDE, width: 1 }, itemStyle: { color: GUIDE }, sampling: undefined, tooltip: { show: false },
       }));
     }
+    series.push(annotation('fit window', { markArea: { silent: true, itemStyle: { color: BAND }, data: [[{ xAxis: fit.start }, { xAxis: fit.end }]] } }, BAND, false));
   }
-  return { ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('MSD (Å²)', 'log'), series };
+  return finishChart({ ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('MSD (Å²)', 'log'), series },
+    { x: { name: 'lag time', unit: 'ps' }, y: ['Å²'] });
 }

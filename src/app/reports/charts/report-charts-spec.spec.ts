@@ -41,9 +41,10 @@ describe('report chart specs', () => {
     const s = spec('msd');
     expect(s.option.xAxis).toMatchObject({ type: 'log' });
     expect(s.option.yAxis).toMatchObject({ type: 'log' });
-    const [msd, guide] = seriesOf(s) as LineSeries[];
+    const [msd, guide, window] = seriesOf(s) as LineSeries[];
     expect((msd!.data as [number, number][])[0]).toEqual([0.1, 0.06]);
-    expect(msd!.markArea!.data).toEqual([[{ name: 'fit window', xAxis: 0.2 }, { xAxis: 0.8 }]]);
+    expect(window!.name).toBe('fit window');
+    expect(window!.markArea!.data).toEqual([[{ xAxis: 0.2 }, { xAxis: 0.8 }]]);
     const [[x0, y0], [x1, y1]] = guide!.data as [number, number][];
     expect(Math.log(y1! / y0!) / Math.log(x1! / x0!)).toBeCloseTo(1, 12);
   });
@@ -89,10 +90,12 @@ describe('α₂ chart', () => {
       peakLagPs: null, peakAlpha2: null, groups: [{ label: 'Ar', atoms: 2, peakLagPs: 0.4, peakAlpha2: 0.01 }, { label: 'Ne', atoms: 2, peakLagPs: 0.8, peakAlpha2: -0.01 }],
     });
     const lines = perSpecies.series as LineSeries[];
-    expect(lines.map((s) => s.name)).toEqual(['α₂ Ar', 'α₂ Ne']);
-    expect(lines.map((s) => (s.markLine?.data as { xAxis: number }[])[0]!.xAxis)).toEqual([0.4, 0.8]);
+    expect(lines.map((s) => s.name)).toEqual(['α₂ Ar', 'Ar peak at 0.4 ps', 'α₂ Ne', 'Ne peak at 0.8 ps']);
+    expect(lines.filter((s) => s.markLine).map((s) => (s.markLine?.data as { xAxis: number }[])[0]!.xAxis)).toEqual([0.4, 0.8]);
+    // Each peak line is its species' colour, so a species toggle hides both.
+    expect(lines[1]!.lineStyle!.color).toBe(lines[0]!.lineStyle!.color);
     const old = ngpChart(curve([['lag', 'ps', lags], ['alpha2', '1', lags.map(() => 0.02)]]), { peakLagPs: 0.2, peakAlpha2: 0.02 });
-    expect((old.series as LineSeries[]).map((s) => s.name)).toEqual(['α₂(t)']);
-    expect(((old.series as LineSeries[])[0]!.markLine?.data as { xAxis: number }[])[0]!.xAxis).toBe(0.2);
+    expect((old.series as LineSeries[]).map((s) => s.name)).toEqual(['α₂(t)', 'peak at 0.2 ps']);
+    expect(((old.series as LineSeries[])[1]!.markLine?.data as { xAxis: number }[])[0]!.xAxis).toBe(0.2);
   });
 });

@@ -5,7 +5,7 @@ import type { ChartOption } from './chart-option';
 import { energyChart, pressureChart, totalEnergyChart } from './energy-charts';
 import { lindemannChart, ngpChart } from './melting-charts';
 import { msdChart } from './msd-chart';
-import { rdfChart } from './rdf-chart';
+import { RDF_CHART_HEIGHT, rdfChart } from './rdf-chart';
 import { sqChart } from './sq-chart';
 import { timeSeriesChart } from './thermo-chart';
 import { vacfChart } from './vacf-chart';
@@ -20,6 +20,8 @@ export interface ChartSpec {
   /** Read aloud in place of the picture. */
   description: string;
   option: ChartOption;
+  /** Pixel height of the plot, when it needs more than the usual. */
+  height?: number;
 }
 
 export interface ChartUnits {
@@ -40,8 +42,10 @@ export function reportChartSpecs(report: ReportDto, units: ChartUnits): ChartSpe
     () => vacfChart(curves['vacf']!, summary.vacf, units.diffusion));
   add('vdos', 'vdos', 'Vibrational density of states', 'VDOS against frequency with its peaks marked.',
     () => vdosChart(curves['vdos']!, summary.vdos, units.frequency));
-  add('rdf', 'rdf', 'Radial distribution function', 'g(r) against distance, and the running coordination number on a second axis.',
+  add('rdf', 'rdf', 'Radial distribution function', 'g(r) against distance, and the running coordination number in a panel of its own below.',
     () => rdfChart(curves['rdf']!, summary.rdf));
+  const rdf = out.find((s) => s.id === 'rdf');
+  if (rdf) rdf.height = RDF_CHART_HEIGHT;
   add('temperature', 'thermo', 'Temperature', 'Instantaneous temperature against time, with the mean and its standard error band.',
     () => timeSeriesChart(curves['thermo']!, 'temperature', 'temperature', 'K', summary.thermo?.temperatureK));
   if (curves['thermo']?.columns.includes('density')) {

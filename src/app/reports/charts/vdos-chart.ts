@@ -1,8 +1,8 @@
 import type { ReportCurve } from '../../../../shared/report';
 import type { VdosSummary } from '../../../../shared/report-summary';
-import { formatNumber } from '../number-format';
 import { frequencyUnit, type FrequencyUnit } from '../report-units';
-import { xAxis, yAxis, baseOption, INK, line, type ChartOption, type ScatterSeries } from './chart-option';
+import { finishChart, seriesId } from './chart-finish';
+import { xAxis, yAxis, baseOption, INK, line, type ChartOption, type LineSeries, type ScatterSeries } from './chart-option';
 import { column, groupColumns, nearestY, points } from './curve-columns';
 
 /** THz per unit of the chosen axis, read from the curve's own columns so no constant is repeated here. */
@@ -15,23 +15,28 @@ function thzPerUnit(thz: readonly (number | null)[], x: readonly (number | null)
   return 1;
 }
 
-/** VDOS on a THz, cm⁻¹ or meV axis, density rescaled so the area still counts modes, with its peaks marked. */
+/** VDOS on a THz, cm⁻¹ or meV axis, density rescaled so the area still counts modes, with its peaks marked when it has any. */
 export function vdosChart(curve: ReportCurve, summary: VdosSummary | undefined, unit: FrequencyUnit): ChartOption {
   const u = frequencyUnit(unit);
   const thz = column(curve, 'frequency') ?? [];
   const x = column(curve, u.column) ?? thz;
   const scale = thzPerUnit(thz, x);
-  const series = groupColumns(curve, 'VDOS').map(({ group, values }) => line(group, points(x, values, scale), { areaStyle: { opacity: 0.08 } }));
+  const series: (LineSeries | ScatterSeries)[] = groupColumns(curve, 'VDOS').map(({ group, values }) =>
+    line(`VDOS ${group}`, points(x, values, scale), { id: seriesId(`VDOS ${group}`, group), areaStyle: { opacity: 0.08 } }));
   const all = (series[0]?.data ?? []) as [number, number][];
-  const peaks: ScatterSeries = {
-    type: 'scatter', name: 'peaks', symbol: 'triangle', symbolSize: 10, symbolRotate: 180, itemStyle: { color: INK },
-    data: (summary?.peaks ?? []).map((p) => [p[unit], nearestY(all, p[unit]) ?? 0] as [number, number]),
-    label: { show: true, position: 'top', color: INK, formatter: (p) => formatNumber((p.value as number[])[0], 4) },
-  };
-  return {
+  const peaks = summary?.peaks ?? [];
+  if (peaks.length) {
+    // The frequencies are in the tooltip and on the headline card; labels over the curve would hide it.
+    series.push({
+      type: 'scatter', name: 'peaks', symbol: 'triangle', symbolSize: 10, symbolRotate: 180, itemStyle: { color: INK },
+      data: peaks.map((p) => [p[unit], nearestY(all, p[unit]) ?? 0] as [number, number]),
+    });
+  }
+  const quantity = u.key === 'thz' ? 'frequency' : u.key === 'cm1' ? 'wavenumber' : 'energy';
+  return finishChart({
     ...baseOption(),
-    xAxis: xAxis(`${u.key === 'thz' ? 'frequency' : u.key === 'cm1' ? 'wavenumber' : 'energy'} (${u.label})`, 'value', { scale: false, min: 0 }),
+    xAxis: xAxis(`${quantity} (${u.label})`, 'value', { scale: false, min: 0 }),
     yAxis: yAxis(`VDOS (modes per ${u.label})`, 'value', { nameGap: 52 }),
-    series: [...series, peaks],
-  };
+    series,
+  }, { x: { name: quantity, unit: u.label }, y: [`modes/${u.label}`] });
 }
