@@ -81,11 +81,14 @@ test('when a visitor forgets the password, then the mailed link sets a new one a
 
   await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await page.getByRole('link', { name: 'Forgot your password?' }).click();
+  // Both pages have an E-mail field: fill only once the new page is the one on screen.
+  await expect(page.getByRole('heading', { name: 'Forgot your password?' })).toBeVisible();
   await page.getByLabel('E-mail').fill(user.email);
   await page.getByRole('button', { name: 'Send reset link' }).click();
   await expect(page.getByRole('status')).toContainText('a reset link is on its way');
 
   await page.goto(await linkInMailTo(user.email, '/reset-password'));
+  await expect(page.getByRole('heading', { name: 'Choose a new password' })).toBeVisible();
   await page.getByLabel('New password').fill('a-fresh-password-123');
   await page.getByRole('button', { name: 'Set password and sign in' }).click();
   await expect(page.getByRole('heading', { name: 'Projects', level: 1 })).toBeVisible();

@@ -41,7 +41,13 @@ import { mailTextSegments } from './mail-text-segments';
     </section>
   `,
   styles: `
-    .heading { display: flex; align-items: center; justify-content: space-between; }
+    .heading { display: flex; align-items: center; justify-content: space-between; gap: 8px; flex-wrap: wrap; }
+    /* A header grows with its subject instead of a fixed height, so wrapped subjects never run into the next row. */
+    mat-accordion { --mat-expansion-header-collapsed-state-height: auto; --mat-expansion-header-expanded-state-height: auto; }
+    mat-expansion-panel-header { padding-block: 12px; }
+    mat-expansion-panel-header ::ng-deep .mat-content { flex-wrap: wrap; gap: 4px 16px; }
+    mat-panel-title { flex: 1 1 280px; overflow-wrap: anywhere; }
+    mat-panel-description { flex: 1 1 240px; margin-right: 0; overflow-wrap: anywhere; }
     pre { white-space: pre-wrap; word-break: break-word; font-family: inherit; }
   `,
 })

@@ -27,22 +27,22 @@ import { confirmed } from '../shell/confirm-dialog';
       } @else if (users.error()) {
         <p class="form-error" role="alert">{{ loadError() }}</p>
       } @else {
-        <table mat-table [dataSource]="rows()" aria-label="All users">
+        <table mat-table class="cards-on-phone" [dataSource]="rows()" aria-label="All users">
           <ng-container matColumnDef="name">
             <th mat-header-cell *matHeaderCellDef>Name</th>
             <td mat-cell *matCellDef="let u">{{ u.displayName }}<br><span class="muted">{{ u.email }}</span></td>
           </ng-container>
           <ng-container matColumnDef="role">
             <th mat-header-cell *matHeaderCellDef>Site role</th>
-            <td mat-cell *matCellDef="let u">{{ u.role === 'admin' ? 'Admin' : 'Member' }}</td>
+            <td mat-cell *matCellDef="let u" data-label="Site role">{{ u.role === 'admin' ? 'Admin' : 'Member' }}</td>
           </ng-container>
           <ng-container matColumnDef="status">
             <th mat-header-cell *matHeaderCellDef>Status</th>
-            <td mat-cell *matCellDef="let u">{{ u.disabled ? 'Disabled' : 'Active' }}</td>
+            <td mat-cell *matCellDef="let u" data-label="Status">{{ u.disabled ? 'Disabled' : 'Active' }}</td>
           </ng-container>
           <ng-container matColumnDef="created">
             <th mat-header-cell *matHeaderCellDef>Joined</th>
-            <td mat-cell *matCellDef="let u">{{ u.createdAt | date: 'mediumDate' }}</td>
+            <td mat-cell *matCellDef="let u" data-label="Joined">{{ u.createdAt | date: 'mediumDate' }}</td>
           </ng-container>
           <ng-container matColumnDef="actions">
             <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>

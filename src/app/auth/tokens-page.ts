@@ -69,13 +69,13 @@ import { tokenState, TokensApi } from './tokens-api';
       } @else if (!tokens.value()?.length) {
         <p class="state" role="status">No tokens yet.</p>
       } @else {
-        <table mat-table [dataSource]="tokens.value()!" aria-label="Your API tokens">
+        <table mat-table class="cards-on-phone" [dataSource]="tokens.value()!" aria-label="Your API tokens">
           <ng-container matColumnDef="name"><th mat-header-cell *matHeaderCellDef>Name</th><td mat-cell *matCellDef="let t">{{ t.name }}</td></ng-container>
-          <ng-container matColumnDef="prefix"><th mat-header-cell *matHeaderCellDef>Starts with</th><td mat-cell *matCellDef="let t"><code>{{ t.prefix }}…</code></td></ng-container>
-          <ng-container matColumnDef="created"><th mat-header-cell *matHeaderCellDef>Created</th><td mat-cell *matCellDef="let t">{{ t.createdAt | date: 'medium' }}</td></ng-container>
-          <ng-container matColumnDef="used"><th mat-header-cell *matHeaderCellDef>Last used</th><td mat-cell *matCellDef="let t">{{ t.lastUsedAt ? (t.lastUsedAt | date: 'medium') : 'Never' }}</td></ng-container>
-          <ng-container matColumnDef="expires"><th mat-header-cell *matHeaderCellDef>Expires</th><td mat-cell *matCellDef="let t">{{ t.expiresAt ? (t.expiresAt | date: 'mediumDate') : 'Never' }}</td></ng-container>
-          <ng-container matColumnDef="state"><th mat-header-cell *matHeaderCellDef>State</th><td mat-cell *matCellDef="let t" [class.stopped]="!stateOf(t).active">{{ stateOf(t).label }}</td></ng-container>
+          <ng-container matColumnDef="prefix"><th mat-header-cell *matHeaderCellDef>Starts with</th><td mat-cell *matCellDef="let t" data-label="Starts with"><code>{{ t.prefix }}…</code></td></ng-container>
+          <ng-container matColumnDef="created"><th mat-header-cell *matHeaderCellDef>Created</th><td mat-cell *matCellDef="let t" data-label="Created">{{ t.createdAt | date: 'medium' }}</td></ng-container>
+          <ng-container matColumnDef="used"><th mat-header-cell *matHeaderCellDef>Last used</th><td mat-cell *matCellDef="let t" data-label="Last used">{{ t.lastUsedAt ? (t.lastUsedAt | date: 'medium') : 'Never' }}</td></ng-container>
+          <ng-container matColumnDef="expires"><th mat-header-cell *matHeaderCellDef>Expires</th><td mat-cell *matCellDef="let t" data-label="Expires">{{ t.expiresAt ? (t.expiresAt | date: 'mediumDate') : 'Never' }}</td></ng-container>
+          <ng-container matColumnDef="state"><th mat-header-cell *matHeaderCellDef>State</th><td mat-cell *matCellDef="let t" data-label="State" [class.stopped]="!stateOf(t).active">{{ stateOf(t).label }}</td></ng-container>
           <ng-container matColumnDef="actions">
             <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
             <td mat-cell *matCellDef="let t">

@@ -24,11 +24,11 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
         <button mat-icon-button type="button" (click)="remove.emit()" [attr.aria-label]="'Remove pair ' + (index() + 1)"><mat-icon>delete</mat-icon></button>
       </header>
       <div class="fields">
-        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="short">
           <mat-label>Species</mat-label>
           <input matInput [value]="draft().a" (input)="set({ a: value($event) })" aria-label="First species">
         </mat-form-field>
-        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic" class="short">
           <mat-label>with species</mat-label>
           <input matInput [value]="draft().b" (input)="set({ b: value($event) })" aria-label="Second species">
         </mat-form-field>
@@ -40,21 +40,21 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
         </mat-form-field>
         @if (draft().form !== 'none') {
           @if (draft().form !== 'table') {
-            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="short">
               <mat-label>Energy unit</mat-label>
               <mat-select [value]="draft().energy" (selectionChange)="set({ energy: $event.value })">
                 @for (e of energySuffixes; track e) { <mat-option [value]="e">{{ suffixLabels[e] }}</mat-option> }
               </mat-select>
             </mat-form-field>
           } @else {
-            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic" class="short">
               <mat-label>U unit in the table</mat-label>
               <mat-select [value]="draft().tableUnit" (selectionChange)="set({ tableUnit: $event.value })">
                 @for (e of energyUnits; track e) { <mat-option [value]="e">{{ e }}</mat-option> }
               </mat-select>
             </mat-form-field>
           }
-          <mat-form-field appearance="outline" subscriptSizing="dynamic" class="narrow">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic" class="short">
             <mat-label>Length unit</mat-label>
             <mat-select [value]="draft().length" (selectionChange)="set({ length: $event.value })">
               @for (l of lengthSuffixes; track l) { <mat-option [value]="l">{{ suffixLabels[l] }}</mat-option> }
@@ -106,9 +106,10 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
   styles: `
     .pair { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 8px 16px 12px; background: var(--mat-sys-surface-container-lowest); }
     header { display: flex; align-items: center; justify-content: space-between; }
-    h3 { margin: 0; font: var(--mat-sys-title-small); }
+    h3 { margin: 0; }
     .fields { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; margin-top: 8px; }
-    .fields mat-form-field { flex: 1 1 180px; }
+    .fields mat-form-field { flex: 1 1 180px; min-width: 0; }
+    .fields .short { flex: 1 1 120px; }
     .fields .wide, .fields mat-checkbox, .fields .file { flex: 1 1 100%; }
     .issues { margin: 4px 0; padding-left: 20px; color: var(--mat-sys-error); font: var(--mat-sys-body-small); }
     .file { font: var(--mat-sys-body-small); }

@@ -19,13 +19,13 @@ import { ProjectsApi } from './projects-api';
     <h2 mat-dialog-title>New project</h2>
     <form [formGroup]="form" (ngSubmit)="create()" novalidate>
       <mat-dialog-content class="form-stack">
-        <mat-form-field>
+        <mat-form-field subscriptSizing="dynamic">
           <mat-label>Project name</mat-label>
           <input matInput formControlName="name" required cdkFocusInitial>
           @if (form.controls.name.hasError('required')) { <mat-error>Give the project a name.</mat-error> }
           @if (form.controls.name.hasError('maxlength')) { <mat-error>At most {{ nameMax }} characters.</mat-error> }
         </mat-form-field>
-        <mat-form-field>
+        <mat-form-field subscriptSizing="dynamic">
           <mat-label>Description</mat-label>
           <textarea matInput formControlName="description" rows="3"></textarea>
           <mat-hint>Optional: the system, the question, the people.</mat-hint>
@@ -38,6 +38,11 @@ import { ProjectsApi } from './projects-api';
         <button mat-flat-button type="submit" [disabled]="busy()">Create project</button>
       </mat-dialog-actions>
     </form>
+  `,
+  // The dialog's own content style would lay the fields side by side; they stack at full width so the hint shows whole.
+  styles: `
+    .mat-mdc-dialog-content.form-stack { display: flex; flex-direction: column; gap: 8px; width: min(480px, 100%); box-sizing: border-box; }
+    mat-form-field { width: 100%; }
   `,
 })
 export class CreateProjectDialog {

@@ -28,14 +28,14 @@ import { ProjectsApi } from './projects-api';
     } @else if (members.error()) {
       <p class="form-error" role="alert">{{ loadError() }}</p>
     } @else {
-      <table mat-table [dataSource]="rows()" aria-label="Project members">
+      <table mat-table class="cards-on-phone" [dataSource]="rows()" aria-label="Project members">
         <ng-container matColumnDef="name">
           <th mat-header-cell *matHeaderCellDef>Name</th>
           <td mat-cell *matCellDef="let m">{{ m.displayName }}<br><span class="muted">{{ m.email }}</span></td>
         </ng-container>
         <ng-container matColumnDef="role">
           <th mat-header-cell *matHeaderCellDef>Role</th>
-          <td mat-cell *matCellDef="let m">
+          <td mat-cell *matCellDef="let m" data-label="Role">
             @if (canManage()) {
               <mat-select [value]="m.role" (selectionChange)="changeRole(m, $event.value)" [attr.aria-label]="'Role of ' + m.displayName">
                 @for (role of roles; track role) { <mat-option [value]="role" [title]="meaning[role]">{{ role | titlecase }}</mat-option> }
@@ -47,7 +47,7 @@ import { ProjectsApi } from './projects-api';
         </ng-container>
         <ng-container matColumnDef="joined">
           <th mat-header-cell *matHeaderCellDef>Joined</th>
-          <td mat-cell *matCellDef="let m">{{ m.joinedAt | date: 'mediumDate' }}</td>
+          <td mat-cell *matCellDef="let m" data-label="Joined">{{ m.joinedAt | date: 'mediumDate' }}</td>
         </ng-container>
         <ng-container matColumnDef="actions">
           <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>

@@ -36,22 +36,22 @@ import { unwrapList } from '../core/api-envelope';
           <p>No projects yet. A project holds a team's trajectories, analyses and reports — create one, or ask a colleague to invite you.</p>
         </div>
       } @else {
-        <table mat-table [dataSource]="rows()" aria-label="Your projects">
+        <table mat-table class="cards-on-phone" [dataSource]="rows()" aria-label="Your projects">
           <ng-container matColumnDef="name">
             <th mat-header-cell *matHeaderCellDef>Name</th>
             <td mat-cell *matCellDef="let p"><a [routerLink]="['/projects', p.id]">{{ p.name }}</a></td>
           </ng-container>
           <ng-container matColumnDef="role">
             <th mat-header-cell *matHeaderCellDef>Your role</th>
-            <td mat-cell *matCellDef="let p">{{ p.role | titlecase }}</td>
+            <td mat-cell *matCellDef="let p" data-label="Your role">{{ p.role | titlecase }}</td>
           </ng-container>
           <ng-container matColumnDef="members">
             <th mat-header-cell *matHeaderCellDef>Members</th>
-            <td mat-cell *matCellDef="let p">{{ p.memberCount }}</td>
+            <td mat-cell *matCellDef="let p" data-label="Members">{{ p.memberCount }}</td>
           </ng-container>
           <ng-container matColumnDef="activity">
             <th mat-header-cell *matHeaderCellDef>Last activity</th>
-            <td mat-cell *matCellDef="let p">{{ p.lastActivityAt | date: 'medium' }}</td>
+            <td mat-cell *matCellDef="let p" data-label="Last activity">{{ p.lastActivityAt | date: 'medium' }}</td>
           </ng-container>
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns"></tr>

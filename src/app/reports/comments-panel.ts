@@ -57,7 +57,7 @@ import { unwrapList } from '../core/api-envelope';
   `,
   styles: `
     .comments { padding: 16px 20px; border-radius: 16px; border: 1px solid var(--mat-sys-outline-variant); }
-    h2 { margin: 0 0 8px; font: var(--mat-sys-title-large); }
+    h2 { margin: 0 0 8px; }
     .list { list-style: none; margin: 0 0 16px; padding: 0; display: flex; flex-direction: column; gap: 12px; }
     .list li { padding: 10px 14px; border-radius: 12px; background: var(--mat-sys-surface-container); }
     .meta { margin: 0; font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }

@@ -45,7 +45,6 @@ import { ReportView } from './report-view';
       background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); font: var(--mat-sys-body-medium); }
     .gone { max-width: 60ch; margin: 48px auto; text-align: center; }
     .gone mat-icon { font-size: 48px; width: 48px; height: 48px; color: var(--mat-sys-on-surface-variant); }
-    .gone h1 { font: var(--mat-sys-headline-small); }
   `,
 })
 export default class LinkReportPage {

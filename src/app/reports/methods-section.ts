@@ -26,7 +26,7 @@ import { methodsParagraphs, methodsPlainText } from './methods-text';
   styles: `
     .methods { padding: 16px 20px; border-radius: 16px; background: var(--mat-sys-surface-container-low); }
     header { display: flex; align-items: center; gap: 16px; flex-wrap: wrap; }
-    h2 { margin: 0; font: var(--mat-sys-title-large); }
+    h2 { margin: 0; }
     p { max-width: 95ch; font: var(--mat-sys-body-medium); line-height: 1.55; overflow-wrap: anywhere; }
     .copied { color: var(--mat-sys-primary); font: var(--mat-sys-body-small); }
   `,

@@ -70,7 +70,7 @@ import { filterAndOrder, keyNumberTexts, REPORT_ORDERS, type ReportOrder } from 
     </section>
   `,
   styles: `
-    h2 { margin: 0 0 8px; font: var(--mat-sys-title-large); }
+    h2 { margin: 0 0 8px; }
     .list { list-style: none; margin: 0; padding: 0; display: flex; flex-direction: column; }
     .controls { display: flex; gap: 12px; flex-wrap: wrap; margin: 4px 0 8px; }
     .filter { flex: 1 1 280px; max-width: 420px; }

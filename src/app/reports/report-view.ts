@@ -82,8 +82,8 @@ import { DIFFUSION_UNITS, type DiffusionUnit } from './report-units';
     .report { display: flex; flex-direction: column; gap: 24px; }
     .head { display: flex; justify-content: space-between; align-items: flex-start; gap: 16px; flex-wrap: wrap; }
     .eyebrow { margin: 0; font: var(--mat-sys-label-large); color: var(--mat-sys-primary); }
-    h1 { margin: 4px 0; font: var(--mat-sys-headline-medium); }
-    h2 { margin: 0 0 12px; font: var(--mat-sys-title-large); }
+    h1 { margin: 4px 0; }
+    h2 { margin: 0 0 12px; }
     .muted { margin: 0; }
     .notes { margin: 8px 0 0; max-width: 70ch; white-space: pre-line; }
     .actions { display: flex; gap: 8px; flex-wrap: wrap; }

@@ -88,7 +88,7 @@ export interface ShareDialogData {
   `,
   styles: `
     section + section { margin-top: 20px; }
-    h3 { margin: 0 0 4px; font: var(--mat-sys-title-medium); }
+    h3 { margin: 0 0 4px; }
     .muted { margin: 0 0 8px; }
     .members { list-style: none; margin: 0; padding: 0; display: flex; flex-direction: column; gap: 4px; }
     .members li { display: flex; gap: 8px; flex-wrap: wrap; }

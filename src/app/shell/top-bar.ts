@@ -26,7 +26,7 @@ import { Logo } from './logo';
       <span class="spacer"></span>
       @if (auth.user(); as user) {
         <button mat-button type="button" [matMenuTriggerFor]="userMenu" aria-label="Account menu for {{ user.displayName }}">
-          <mat-icon aria-hidden="true">account_circle</mat-icon> {{ user.displayName }}
+          <mat-icon aria-hidden="true">account_circle</mat-icon> <span class="user-name">{{ user.displayName }}</span>
         </button>
         <mat-menu #userMenu="matMenu">
           <div class="who" aria-hidden="true">{{ user.email }}</div>
@@ -45,11 +45,17 @@ import { Logo } from './logo';
     </mat-toolbar>
   `,
   styles: `
-    .top-bar { gap: 16px; background: var(--mat-sys-surface-container); border-bottom: 1px solid var(--mat-sys-outline-variant); }
+    .top-bar { gap: 16px; min-width: 0; overflow: hidden; background: var(--mat-sys-surface-container); border-bottom: 1px solid var(--mat-sys-outline-variant); }
     .brand { display: inline-flex; align-items: center; gap: 10px; color: var(--mat-sys-on-surface); text-decoration: none; }
     .name { font-weight: 600; letter-spacing: 0.02em; }
     .spacer { flex: 1; }
     .active { background: var(--mat-sys-secondary-container); }
+    /* A long name shortens with an ellipsis; on a phone only the icon stays (the menu names the account). */
+    .user-name { display: inline-block; max-width: 24ch; overflow: hidden; text-overflow: ellipsis; white-space: nowrap; vertical-align: bottom; }
+    @media (max-width: 599.98px) {
+      .top-bar { gap: 4px; padding: 0 8px; }
+      .user-name { max-width: 9ch; }
+    }
     .who { padding: 8px 16px; font-size: 0.85rem; color: var(--mat-sys-on-surface-variant); }
   `,
 })

@@ -18,6 +18,7 @@ import { formatBytes } from '../../../shared/byte-size';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { ANALYSIS_CHOICES, defaultAnalyses, unavailableReason } from './analysis-choices';
+import { fieldProblems, type FieldName } from './analysis-field-problems';
 import { buildParams, settingsFromParams, type AdvancedSettings } from './analysis-params-form';
 import { TrajectoriesApi } from './trajectories-api';
 
@@ -77,128 +78,128 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
         <mat-hint>Optional: why this run, e.g. "fit window moved later". Shown with its report.</mat-hint>
       </mat-form-field>
       <mat-accordion>
-        <mat-expansion-panel [expanded]="!!t.preset">
+        <mat-expansion-panel [expanded]="advancedOpen()" (opened)="advancedOpen.set(true)" (closed)="advancedOpen.set(false)">
           <mat-expansion-panel-header><mat-panel-title>Advanced settings</mat-panel-title></mat-expansion-panel-header>
           <form [formGroup]="form" class="advanced">
             <h3>Frames</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>From frame</mat-label>
               <input matInput type="number" formControlName="fromFrame" min="0" step="1">
               <mat-hint>Empty: the first (0)</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['fromFrame'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>To frame (not included)</mat-label>
               <input matInput type="number" formControlName="toFrame" min="1" step="1">
               <mat-hint>Empty: to the end ({{ t.frames }})</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['toFrame'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Stride</mat-label>
               <input matInput type="number" formControlName="frameStride" min="1" step="1">
               <mat-hint>Empty: 1 (more above 100 000 frames)</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['frameStride'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Discard for equilibration (ps)</mat-label>
               <input matInput type="number" formControlName="discardPs" min="0" step="any">
               <mat-hint>Left out at the start of the range</mat-hint>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['discardPs'] }}</mat-error></mat-form-field>
             <h3>Atoms and time</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Species</mat-label>
               <mat-select formControlName="species" multiple>
                 @for (s of speciesList; track s) { <mat-option [value]="s">{{ s }}</mat-option> }
               </mat-select>
               <mat-hint>Empty means all atoms</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['species'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Longest lag (ps)</mat-label>
               <input matInput type="number" formControlName="maxLagPs" min="0" step="any">
               <mat-hint>Empty: half the run</mat-hint>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['maxLagPs'] }}</mat-error></mat-form-field>
             <mat-slide-toggle formControlName="removeComDrift">Remove centre-of-mass drift</mat-slide-toggle>
             <h3>Diffusion fit (MSD)</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Fit window</mat-label>
               <mat-select formControlName="fitMode">
                 <mat-option value="auto">Automatic (where the log–log slope is near 1)</mat-option>
                 <mat-option value="manual">Manual</mat-option>
               </mat-select>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['fitMode'] }}</mat-error></mat-form-field>
             @if (form.controls.fitMode.value === 'manual') {
-              <mat-form-field appearance="outline"><mat-label>Fit from (ps)</mat-label><input matInput type="number" formControlName="fitStartPs" step="any"></mat-form-field>
-              <mat-form-field appearance="outline"><mat-label>Fit to (ps)</mat-label><input matInput type="number" formControlName="fitEndPs" step="any"></mat-form-field>
+              <mat-form-field appearance="outline" subscriptSizing="dynamic"><mat-label>Fit from (ps)</mat-label><input matInput type="number" formControlName="fitStartPs" step="any"><mat-error>{{ fieldErrors()['fitStartPs'] }}</mat-error></mat-form-field>
+              <mat-form-field appearance="outline" subscriptSizing="dynamic"><mat-label>Fit to (ps)</mat-label><input matInput type="number" formControlName="fitEndPs" step="any"><mat-error>{{ fieldErrors()['fitEndPs'] }}</mat-error></mat-form-field>
             }
             <h3>Green–Kubo plateau (VACF)</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Plateau window</mat-label>
               <mat-select formControlName="gkMode">
                 <mat-option value="auto">Automatic</mat-option>
                 <mat-option value="manual">Manual</mat-option>
               </mat-select>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['gkMode'] }}</mat-error></mat-form-field>
             @if (form.controls.gkMode.value === 'manual') {
-              <mat-form-field appearance="outline"><mat-label>Plateau from (ps)</mat-label><input matInput type="number" formControlName="gkStartPs" step="any"></mat-form-field>
-              <mat-form-field appearance="outline"><mat-label>Plateau to (ps)</mat-label><input matInput type="number" formControlName="gkEndPs" step="any"></mat-form-field>
+              <mat-form-field appearance="outline" subscriptSizing="dynamic"><mat-label>Plateau from (ps)</mat-label><input matInput type="number" formControlName="gkStartPs" step="any"><mat-error>{{ fieldErrors()['gkStartPs'] }}</mat-error></mat-form-field>
+              <mat-form-field appearance="outline" subscriptSizing="dynamic"><mat-label>Plateau to (ps)</mat-label><input matInput type="number" formControlName="gkEndPs" step="any"><mat-error>{{ fieldErrors()['gkEndPs'] }}</mat-error></mat-form-field>
             }
             <h3>Spectrum and heat capacity (VDOS)</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Window function</mat-label>
               <mat-select formControlName="window">
                 @for (w of windows; track w) { <mat-option [value]="w">{{ w }}</mat-option> }
               </mat-select>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['window'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Zero padding (×)</mat-label>
               <input matInput type="number" formControlName="zeroPadFactor" min="1" max="16" step="1">
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['zeroPadFactor'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Temperature for Cv (K)</mat-label>
               <input matInput type="number" formControlName="temperatureK" min="0" step="any">
               <mat-hint>Empty: the kinetic temperature{{ t.temperatureK !== null ? '; stated ' + t.temperatureK + ' K is shown beside it' : '' }}</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['temperatureK'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Degrees of freedom</mat-label>
               <input matInput type="number" formControlName="degreesOfFreedom" min="1" step="1">
               <mat-hint>Empty: 3N − constraints − 3</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['degreesOfFreedom'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Constraints</mat-label>
               <input matInput type="number" formControlName="constraints" min="0" step="1">
               <mat-hint>Empty: as stated with the trajectory ({{ t.constraints ?? 0 }})</mat-hint>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['constraints'] }}</mat-error></mat-form-field>
             <h3>Energy</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>NVE drift threshold (k_BT per atom per ns)</mat-label>
               <input matInput type="number" formControlName="driftThresholdKTPerNs" min="0" step="any">
               <mat-hint>Empty: 0.01, a rule of thumb of the trade</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['driftThresholdKTPerNs'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Barostat pressure for C_P (bar)</mat-label>
               <input matInput type="number" formControlName="externalPressureBar" step="any">
               <mat-hint>Empty: the mean virial pressure (NPT runs)</mat-hint>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['externalPressureBar'] }}</mat-error></mat-form-field>
             <h3>Structure (g(r), S(q))</h3>
-            <mat-form-field appearance="outline">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>r_max (Å)</mat-label>
               <input matInput type="number" formControlName="rMaxA" min="0" step="any">
               <mat-hint>Empty: half the shortest cell width</mat-hint>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['rMaxA'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Bin width (Å)</mat-label>
               <input matInput type="number" formControlName="binWidthA" min="0" max="1" step="any">
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['binWidthA'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Species pair</mat-label>
               <mat-select formControlName="pair">
                 <mat-option [value]="null">Every pair</mat-option>
                 @for (p of pairs; track p) { <mat-option [value]="p">{{ p }}</mat-option> }
               </mat-select>
-            </mat-form-field>
-            <mat-form-field appearance="outline">
+            <mat-error>{{ fieldErrors()['pair'] }}</mat-error></mat-form-field>
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>S(q) window</mat-label>
               <mat-select formControlName="sqWindow">
                 @for (w of sqWindows; track w) { <mat-option [value]="w">{{ w }}</mat-option> }
               </mat-select>
-            </mat-form-field>
+            <mat-error>{{ fieldErrors()['sqWindow'] }}</mat-error></mat-form-field>
           </form>
         </mat-expansion-panel>
       </mat-accordion>
@@ -229,8 +230,11 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
     .checklist { border: none; padding: 0; margin: 0 0 16px; display: grid; gap: 4px; }
     .checklist legend { font-weight: 600; margin-bottom: 4px; }
     .description { margin-left: 40px; color: var(--mat-sys-on-surface-variant); font-size: 13px; }
-    .advanced { display: grid; grid-template-columns: 1fr 1fr; gap: 4px 16px; }
-    .advanced h3 { grid-column: 1 / -1; margin: 12px 0 4px; font-size: 14px; }
+    /* One column on a phone, two where they fit; hints and errors take the lines they need (dynamic subscripts). */
+    .advanced { display: grid; grid-template-columns: repeat(auto-fill, minmax(min(100%, 240px), 1fr)); gap: 12px 16px; align-items: start; padding-top: 4px; }
+    .advanced h3 { grid-column: 1 / -1; margin: 12px 0 0; }
+    .advanced mat-form-field { width: 100%; }
+    .advanced mat-slide-toggle { align-self: center; }
     .error { color: var(--mat-sys-error); }
     .error ul { margin: 4px 0 0; padding-left: 20px; }
     .suggestion { margin: 0 0 8px; }
@@ -260,6 +264,10 @@ export class AnalysisDialog {
     ...this.formErrors(), ...[this.estimateProblem(), this.serverError()].filter((p, i, all) => p && all.indexOf(p) === i),
   ]);
 
+  protected readonly advancedOpen = signal(!!this.t.preset);
+  /** What is wrong with each advanced field, in words, shown under it. */
+  protected readonly fieldErrors = signal<Partial<Record<FieldName, string>>>({});
+
   protected readonly form = inject(FormBuilder).nonNullable.group({
     fromFrame: null as number | null, toFrame: null as number | null, frameStride: null as number | null, discardPs: null as number | null,
     species: [[] as string[]], maxLagPs: null as number | null, removeComDrift: true, fitMode: 'auto' as AdvancedSettings['fitMode'], fitStartPs: null as number | null, fitEndPs: null as number | null,
@@ -283,6 +291,7 @@ export class AnalysisDialog {
 
   constructor() {
     if (this.t.preset) this.form.patchValue(settingsFromParams(this.t.preset.params, this.form.getRawValue()));
+    this.form.valueChanges.pipe(startWith(null), takeUntilDestroyed()).subscribe(() => this.checkFields());
     merge(this.form.valueChanges, toObservable(this.selected)).pipe(
       startWith(null),
       debounceTime(300),
@@ -345,13 +354,29 @@ export class AnalysisDialog {
     });
   }
 
+  /** Puts each field's problem on its control, so the field turns red and says it beneath. */
+  private checkFields(): Partial<Record<FieldName, string>> {
+    const problems = fieldProblems(this.form.getRawValue());
+    this.fieldErrors.set(problems);
+    for (const [name, control] of Object.entries(this.form.controls)) {
+      const problem = problems[name as FieldName];
+      control.setErrors(problem ? { problem } : null);
+    }
+    return problems;
+  }
+
   protected start(): void {
     this.serverError.set('');
+    const fields = this.checkFields();
     const built = buildParams(this.form.getRawValue());
     const parsed = analysisParamsSchema.safeParse(built.params);
-    const problems = [...built.problems, ...(parsed.success ? [] : parsed.error.issues.map((i) => `${i.path.join('.') || 'settings'}: ${i.message}`))];
-    this.formErrors.set(problems);
-    if (problems.length || !parsed.success) return;
+    if (Object.keys(fields).length || built.problems.length || !parsed.success) {
+      this.form.markAllAsTouched();
+      this.advancedOpen.set(true);
+      this.formErrors.set(['Some advanced settings need a change: each says what beneath it.']);
+      return;
+    }
+    this.formErrors.set([]);
     this.starting.set(true);
     this.api.startAnalysis(this.t.id, { analyses: [...this.selected()], params: parsed.data, notes: this.notes.value }).subscribe({
       next: (run) => this.ref.close(run),

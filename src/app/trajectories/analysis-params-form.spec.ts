@@ -51,3 +51,24 @@ describe('settings from a stored run', () => {
     expect(settingsFromParams({ zeroPadFactor: 'lots' }, defaults)).toEqual(defaults);
   });
 });
+
+describe('problems under each advanced field', async () => {
+  const { fieldProblems } = await import('./analysis-field-problems');
+  it('when a manual fit window lacks its end, then the end field asks for it and no internal name shows', () => {
+    expect(fieldProblems({ ...defaults, fitMode: 'manual', fitStartPs: 1 })).toEqual({ fitEndPs: 'Give the end of the fit window, in ps.' });
+  });
+  it('when the plateau window ends before it starts, then its end field says so in words', () => {
+    expect(fieldProblems({ ...defaults, gkMode: 'manual', gkStartPs: 5, gkEndPs: 2 })).toEqual({ gkEndPs: 'The window must end after it starts.' });
+  });
+  it('when numbers are out of range or not whole, then each field names itself in words', () => {
+    const problems = fieldProblems({ ...defaults, zeroPadFactor: 1.5, temperatureK: -3, binWidthA: 2, fromFrame: -1 });
+    expect(problems).toEqual({
+      zeroPadFactor: 'The zero padding must be a whole number.', temperatureK: 'The temperature must be above 0.',
+      binWidthA: 'The bin width must be at most 1 Å.', fromFrame: 'The first frame must be at least 0.',
+    });
+    for (const text of Object.values(problems)) expect(text).not.toMatch(/[a-z][A-Z]|:/);
+  });
+  it('when everything is sendable, then no field has a problem', () => {
+    expect(fieldProblems(defaults)).toEqual({});
+  });
+});

@@ -47,7 +47,7 @@ export type MetadataDialogResult =
           @case ('many') { <p class="hint">Only the fields you change are applied to all {{ count }}; the others keep each trajectory's own value.</p> }
           @case ('upload') {
             <ul class="files" aria-label="Files to upload">
-              @for (f of files; track f.name) { <li><span class="file-name">{{ f.name }}</span> <span class="muted">{{ size(f.size) }}</span></li> }
+              @for (f of files; track f.name) { <li><span class="file-name">{{ f.name }}</span><span class="muted"> · {{ size(f.size) }}</span></li> }
             </ul>
             <p class="hint">Everything here is optional: fill in what the files do not say. What a file states itself is read from it.</p>
           }
@@ -148,7 +148,7 @@ export type MetadataDialogResult =
     .files { list-style: none; padding: 0; margin: 0 0 8px; display: grid; gap: 2px; }
     .file-name { font-weight: 500; overflow-wrap: anywhere; }
     .muted { color: var(--mat-sys-on-surface-variant); }
-    .from-file { font-size: 11px; line-height: 18px; padding: 0 8px; border-radius: 999px; white-space: nowrap;
+    .from-file { display: inline-block; font-size: 11px; line-height: 18px; padding: 0 8px; border-radius: 999px; white-space: nowrap;
                  background: var(--mat-sys-tertiary-container); color: var(--mat-sys-on-tertiary-container); margin-right: 8px; }
     .error { color: var(--mat-sys-error); }
     @media (max-width: 600px) { .grid { grid-template-columns: minmax(0, 1fr); } }

@@ -3,6 +3,7 @@ import {
 } from 'three';
 import { OrbitControls } from 'three/examples/jsm/controls/OrbitControls.js';
 import { STAGE_COLOURS, STAGE_LIGHTS } from './stage-style';
+import { fitDistance } from './fit-distance';
 
 /** Pointer travel, in CSS pixels, under which a press-and-release counts as a click rather than a drag. */
 const CLICK_SLOP_PX = 4;
@@ -18,6 +19,9 @@ export class AtomStage {
   private readonly renderer: WebGLRenderer;
   private readonly controls: OrbitControls;
   private readonly resizeObserver: ResizeObserver;
+  /** The sphere last framed, to frame again after a resize. */
+  private framed: { centre: [number, number, number]; radius: number } | null = null;
+  private cameraMoved = false;
   private readonly raycaster = new Raycaster();
   private pendingDraw = 0;
   private pressedAt: { x: number; y: number } | null = null;
@@ -42,6 +46,7 @@ export class AtomStage {
 
     this.controls = new OrbitControls(this.camera, canvas);
     this.controls.addEventListener('change', () => this.requestDraw());
+    this.controls.addEventListener('start', () => { this.cameraMoved = true; });
     this.resizeObserver = new ResizeObserver(() => this.resize());
     this.resizeObserver.observe(canvas.parentElement ?? canvas);
     canvas.addEventListener('pointerdown', this.pointerDown);
@@ -55,8 +60,10 @@ export class AtomStage {
 
   /** Looks at a sphere of `radius` around `centre` from a slanted viewpoint. */
   frame(centre: ArrayLike<number>, radius: number): void {
+    this.framed = { centre: [centre[0]!, centre[1]!, centre[2]!], radius };
+    this.cameraMoved = false;
     const target = new Vector3(centre[0], centre[1], centre[2]);
-    const distance = Math.max(radius, 1) / Math.sin((this.camera.fov * Math.PI) / 360) * 1.05;
+    const distance = fitDistance(radius, this.camera.fov, this.camera.aspect);
     const direction = new Vector3(0.55, 0.45, 1).normalize();
     this.camera.position.copy(target).addScaledVector(direction, distance);
     this.camera.near = Math.max(0.01, distance / 1000);
@@ -92,7 +99,9 @@ export class AtomStage {
     this.renderer.setSize(width, height, false);
     this.camera.aspect = width / height;
     this.camera.updateProjectionMatrix();
-    this.requestDraw();
+    // Until the user turns or zooms, a new shape of the window (a phone turned, a panel opened) frames the cell again.
+    if (this.framed && !this.cameraMoved) this.frame(this.framed.centre, this.framed.radius);
+    else this.requestDraw();
   }
 
   private readonly pointerDown = (event: PointerEvent): void => {
