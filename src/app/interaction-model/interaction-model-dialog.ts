@@ -88,7 +88,8 @@ export interface InteractionModelDialogData {
     .top .full { flex: 1 1 100%; }
     .tag { font-size: 11px; margin-left: 6px; padding: 0 6px; border-radius: 999px; background: var(--mat-sys-secondary-container); }
     .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin-top: -8px; }
-    .pairs { display: grid; gap: 12px; margin-bottom: 12px; }
+    /* minmax(0, …): a pair (and its plot's canvas) shrinks with the dialog instead of holding it at its first width. */
+    .pairs { display: grid; grid-template-columns: minmax(0, 1fr); gap: 12px; margin-bottom: 12px; }
     .issues { color: var(--mat-sys-error); font: var(--mat-sys-body-small); padding-left: 20px; }
     .coverage { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
     .coverage.bad { color: var(--mat-sys-error); }

@@ -104,7 +104,8 @@ const TRUNCATION_LABELS: Record<string, string> = { truncated: 'Truncated', shif
     </section>
   `,
   styles: `
-    .pair { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 8px 16px 12px; background: var(--mat-sys-surface-container-lowest); }
+    :host { display: block; min-width: 0; }
+    .pair { min-width: 0; border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 8px 16px 12px; background: var(--mat-sys-surface-container-lowest); }
     header { display: flex; align-items: center; justify-content: space-between; }
     h3 { margin: 0; }
     .fields { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; margin-top: 8px; }

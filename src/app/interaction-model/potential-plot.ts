@@ -26,7 +26,7 @@ export function potentialOption(pair: ResolvedPair): ChartOption {
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [provideEchartsCore({ echarts: () => import('../reports/echarts-setup').then((m) => m.echarts) })],
   template: `<div echarts class="plot" role="img" [attr.aria-label]="label()" [options]="option()"></div>`,
-  styles: `.plot { height: 200px; width: 100%; }`,
+  styles: `:host { display: block; min-width: 0; } .plot { height: 200px; width: 100%; }`,
 })
 export class PotentialPlot {
   readonly pair = input.required<ResolvedPair>();

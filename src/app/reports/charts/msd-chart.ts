@@ -22,7 +22,7 @@ export function msdChart(curve: ReportCurve, summary: MsdSummary | undefined): C
         lineStyle: { type: 'dashed', color: GUIDE, width: 1 }, itemStyle: { color: GUIDE }, sampling: undefined, tooltip: { show: false },
       }));
     }
-    series.push(annotation('fit window', { markArea: { silent: true, itemStyle: { color: BAND }, data: [[{ xAxis: fit.start }, { xAxis: fit.end }]] } }, BAND, false));
+    series.push(annotation('fit window', { markArea: { silent: true, itemStyle: { color: BAND }, data: [[{ xAxis: fit.start }, { xAxis: fit.end }]] } }, GUIDE, false));
   }
   return finishChart({ ...baseOption(), xAxis: xAxis('lag time t (ps)', 'log'), yAxis: yAxis('MSD (Å²)', 'log'), series },
     { x: { name: 'lag time', unit: 'ps' }, y: ['Å²'] });

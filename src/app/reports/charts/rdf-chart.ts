@@ -20,7 +20,6 @@ export const RDF_CHART_HEIGHT = 460;
  */
 export function rdfChart(curve: ReportCurve, summary: RdfSummary | undefined): ChartOption {
   const r = column(curve, 'r') ?? [];
-  const rMax = r.reduce<number>((m, x) => (x !== null && x > m ? x : m), 0);
   const g = shown(groupColumns(curve, 'g')).map(({ group, values }) => line(`g(r) ${group}`, points(r, values), { id: seriesId(`g(r) ${group}`, group) }));
   // The lower panel's lines take their pair's colour, so the legend lists only the g(r) lines.
   const n = shown(groupColumns(curve, 'N')).map(({ group, values }) =>
@@ -33,7 +32,8 @@ export function rdfChart(curve: ReportCurve, summary: RdfSummary | undefined): C
     guides.push(annotation(name, { markLine: mark }), { ...annotation(name, { markLine: mark }), xAxisIndex: 1, yAxisIndex: 1 });
   }
   const base = baseOption();
-  const rAxis = (name: string, gridIndex: number) => xAxis(name, 'value', { scale: false, min: 0, max: rMax > 0 ? rMax : undefined, gridIndex });
+  // Both panels hold the same r values, so their nicely rounded axes end at the same r.
+  const rAxis = (name: string, gridIndex: number) => xAxis(name, 'value', { scale: false, min: 0, gridIndex });
   return finishChart({
     ...base,
     grid: [{ left: 64, right: 24, top: 48, bottom: '50%' }, { left: 64, right: 24, top: '66%', bottom: 44 }],
