@@ -33,7 +33,7 @@ export function rdfChart(curve: ReportCurve, summary: RdfSummary | undefined): C
   }
   const base = baseOption();
   // Both panels hold the same r values, so their nicely rounded axes end at the same r.
-  const rAxis = (name: string, gridIndex: number) => xAxis(name, 'value', { scale: false, min: 0, gridIndex });
+  const rAxis = (gridIndex: number) => xAxis('r (Å)', 'value', { scale: false, min: 0, gridIndex, nameGap: 26 });
   return finishChart({
     ...base,
     grid: [{ left: 64, right: 24, top: 48, bottom: '50%' }, { left: 64, right: 24, top: '66%', bottom: 44 }],
