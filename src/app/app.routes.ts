@@ -10,8 +10,9 @@ export const routes: Routes = [
   // Public on purpose: the page explains the invitation before asking anyone to sign in.
   { path: 'invitations/:token', title: 'Invitation · Ergodic', loadComponent: () => import('./projects/invitation-page') },
   // Public on purpose: an access link is read without signing in; the server checks the token.
-  { path: 'links/:token', title: 'Shared report · Ergodic', loadComponent: () => import('./reports/link-report-page') },
+  { path: 'links/:token', title: 'Shared with you · Ergodic', loadComponent: () => import('./reports/link-report-page') },
   { path: 'reports/:id', title: 'Report · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./reports/report-page') },
+  { path: 'series/:id', title: 'Series · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./series/series-page') },
   { path: 'projects', title: 'Projects · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./projects/projects-page') },
   { path: 'projects/:id', title: 'Project · Ergodic', canActivate: [signedInGuard], loadComponent: () => import('./projects/project-page') },
   {

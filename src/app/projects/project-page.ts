@@ -7,6 +7,7 @@ import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 import { apiErrorMessage } from '../core/api-error';
 import { ProjectReports } from '../reports/project-reports';
+import { ProjectSeries } from '../series/project-series';
 import { ProjectTrajectories } from '../trajectories/project-trajectories';
 import { projectSchema } from '../../../shared/projects';
 import { unwrap } from '../core/api-envelope';
@@ -14,11 +15,11 @@ import { formatBytes } from '../../../shared/byte-size';
 
 /**
  * A project's home: its header, then its trajectories (upload, table,
- * analyses in progress).
+ * analyses in progress), its series and its reports.
  */
 @Component({
   selector: 'erg-project-page',
-  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule, ProjectTrajectories, ProjectReports],
+  imports: [TitleCasePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressSpinnerModule, ProjectTrajectories, ProjectSeries, ProjectReports],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="page">
@@ -44,6 +45,7 @@ import { formatBytes } from '../../../shared/byte-size';
           <h2 id="trajectories-heading">Trajectories</h2>
           <erg-project-trajectories [projectId]="p.id" [canEdit]="canEditSettings()" />
         </section>
+        <erg-project-series [projectId]="p.id" />
         <erg-project-reports [projectId]="p.id" />
       }
     </section>

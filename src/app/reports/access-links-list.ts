@@ -1,10 +1,9 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import type { AccessLinkView } from '../../../shared/sharing';
-import { linkState, revocationWords } from './link-state';
+import { linkState, revocationWords, type LinkRow } from './link-state';
 
-/** Every link ever made for a report, newest first, with revoke on the ones still working. */
+/** Every link ever made for a report or a series, newest first, with revoke on the ones still working. */
 @Component({
   selector: 'erg-access-links-list',
   imports: [DatePipe, MatButtonModule],
@@ -40,9 +39,9 @@ import { linkState, revocationWords } from './link-state';
   `,
 })
 export class AccessLinksList {
-  readonly links = input.required<AccessLinkView[]>();
+  readonly links = input.required<LinkRow[]>();
   readonly busyId = input<number | null>(null);
-  readonly revoke = output<AccessLinkView>();
+  readonly revoke = output<LinkRow>();
 
   protected readonly stateWords = { active: 'Active', expired: 'Expired', revoked: 'Revoked' } as const;
   protected readonly revocationWords = revocationWords;

@@ -11,10 +11,11 @@ import { firstValueFrom } from 'rxjs';
 import { COMMENT_MAX_LENGTH } from '../../../shared/account-rules';
 import { apiErrorMessage } from '../core/api-error';
 import { ReportsApi } from './reports-api';
+import { targetPath, type ShareTarget } from './share-target';
 import { commentSchema } from '../../../shared/sharing';
 import { unwrapList } from '../core/api-envelope';
 
-/** Members' discussion of a report: read in order, add one. */
+/** Members' discussion of a report or a series: read in order, add one. */
 @Component({
   selector: 'erg-comments-panel',
   imports: [DatePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule],
@@ -68,10 +69,10 @@ import { unwrapList } from '../core/api-envelope';
 })
 export class CommentsPanel {
   private readonly api = inject(ReportsApi);
-  readonly reportId = input.required<number>();
+  readonly target = input.required<ShareTarget>();
 
   protected readonly maxLength = COMMENT_MAX_LENGTH;
-  protected readonly comments = httpResource(() => `/api/reports/${this.reportId()}/comments`, { parse: unwrapList('comments', commentSchema) });
+  protected readonly comments = httpResource(() => `${targetPath(this.target())}/comments`, { parse: unwrapList('comments', commentSchema) });
   protected readonly list = computed(() => this.comments.value() ?? []);
   protected readonly draft = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.pattern(/\S/)] });
   protected readonly posting = signal(false);
@@ -86,7 +87,7 @@ export class CommentsPanel {
     this.posting.set(true);
     this.postError.set(null);
     try {
-      await firstValueFrom(this.api.addComment(this.reportId(), this.draft.value.trim()));
+      await firstValueFrom(this.api.addComment(this.target(), this.draft.value.trim()));
       this.draft.reset('');
       this.comments.reload();
     } catch (err) {

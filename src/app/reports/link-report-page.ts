@@ -5,25 +5,27 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { apiErrorMessage } from '../core/api-error';
-import { parseLinkedReport } from './report-parse';
+import { parseLinkedTarget } from '../series/linked-target';
+import type { SeriesSource } from '../series/series-source';
+import { SeriesView } from '../series/series-view';
 import { unwrap } from '../core/api-envelope';
 import type { ReportSource } from './report-source';
 import { ReportView } from './report-view';
 
-/** A report opened through an access link: no session, nothing to edit, share or comment on. */
+/** A report or a series opened through an access link: no session, nothing to edit, share or comment on. */
 @Component({
   selector: 'erg-link-report-page',
-  imports: [DatePipe, ReportView, MatButtonModule, MatIconModule, MatProgressSpinnerModule],
+  imports: [DatePipe, ReportView, SeriesView, MatButtonModule, MatIconModule, MatProgressSpinnerModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="page">
       @if (linked.isLoading() && !linked.hasValue()) {
-        <div class="state"><mat-spinner diameter="32" aria-label="Loading the shared report" /></div>
+        <div class="state"><mat-spinner diameter="32" aria-label="Loading what was shared" /></div>
       } @else if (gone()) {
         <section class="gone" role="alert" aria-labelledby="gone-heading">
           <mat-icon aria-hidden="true">link_off</mat-icon>
           <h1 id="gone-heading">This link has been revoked or has expired</h1>
-          <p>Access links to Ergodic reports are read only and stop working when their owner revokes them or their time runs out. Ask the person who sent it for a new link.</p>
+          <p>Access links to Ergodic reports and series are read only and stop working when their owner revokes them or their time runs out. Ask the person who sent it for a new link.</p>
         </section>
       } @else if (linked.error()) {
         <div class="state" role="alert">
@@ -36,7 +38,11 @@ import { ReportView } from './report-view';
           <mat-icon aria-hidden="true">visibility</mat-icon>
           Shared with you read only through an access link, valid until {{ l.expiresAt | date: 'medium' }}.
         </p>
-        <erg-report-view [report]="l.report" [source]="source()" />
+        @if (l.kind === 'report') {
+          <erg-report-view [report]="l.report" [source]="source()" />
+        } @else {
+          <erg-series-view [series]="l.series" [source]="seriesSource()" />
+        }
       }
     </div>
   `,
@@ -52,7 +58,8 @@ export default class LinkReportPage {
   readonly token = input.required<string>();
 
   protected readonly source = computed((): ReportSource => ({ kind: 'link', token: this.token() }));
-  protected readonly linked = httpResource(() => `/api/links/${encodeURIComponent(this.token())}`, { parse: unwrap('link', parseLinkedReport) });
+  protected readonly seriesSource = computed((): SeriesSource => ({ kind: 'link', token: this.token() }));
+  protected readonly linked = httpResource(() => `/api/links/${encodeURIComponent(this.token())}`, { parse: unwrap('link', parseLinkedTarget) });
   /** Unknown, revoked and expired links answer the same 404 on purpose. */
   protected readonly gone = computed(() => {
     const err = this.linked.error();
@@ -60,6 +67,6 @@ export default class LinkReportPage {
   });
 
   protected loadError(): string {
-    return apiErrorMessage(this.linked.error(), 'The shared report could not be loaded.');
+    return apiErrorMessage(this.linked.error(), 'What was shared could not be loaded.');
   }
 }

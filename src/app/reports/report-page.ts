@@ -21,6 +21,7 @@ import { unwrap } from '../core/api-envelope';
 import type { ReportSource } from './report-source';
 import { ReportView } from './report-view';
 import { ShareDialog, type ShareDialogData } from './share-dialog';
+import type { ShareTarget } from './share-target';
 
 /** A report as a project member reads it: with comments, and sharing for editors and owners. */
 @Component({
@@ -50,7 +51,7 @@ import { ShareDialog, type ShareDialogData } from './share-dialog';
               <button mat-stroked-button type="button" (click)="adjust(r)" [disabled]="starting()"><mat-icon aria-hidden="true">tune</mat-icon> Adjust and run</button>
             </span>
           }
-          <erg-comments-panel [reportId]="r.id" />
+          <erg-comments-panel [target]="target()" />
         </erg-report-view>
       }
     </div>
@@ -73,6 +74,7 @@ export default class ReportPage {
 
   private readonly reportId = computed(() => Number(this.id()));
   protected readonly source = computed((): ReportSource => ({ kind: 'member', reportId: this.reportId() }));
+  protected readonly target = computed((): ShareTarget => ({ kind: 'report', id: this.reportId() }));
   protected readonly report = httpResource(() => (Number.isInteger(this.reportId()) ? `/api/reports/${this.reportId()}` : undefined), { parse: unwrap('report', parseReport) });
   // A resource in error throws from value(), so each read asks hasValue() first: a report the
   // user cannot see must end in its message, not in an uncaught error.
@@ -133,7 +135,7 @@ export default class ReportPage {
   protected openShare(): void {
     const r = this.report.hasValue() ? this.report.value() : undefined;
     if (!r) return;
-    this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, { data: { reportId: r.id, projectId: r.projectId, title: r.title }, width: '640px', autoFocus: 'first-tabbable' });
+    this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, { data: { target: { kind: 'report', id: r.id }, projectId: r.projectId, title: r.title }, width: '640px', autoFocus: 'first-tabbable' });
   }
 }
 

@@ -14,17 +14,22 @@ import { ACCESS_LINK_MAX_DAYS } from '../../../shared/account-rules';
 import { apiErrorMessage } from '../core/api-error';
 import { memberSchema } from '../../../shared/projects';
 import { AccessLinksList } from './access-links-list';
-import { ReportsApi } from './reports-api';
-import { accessLinkSchema, type AccessLinkView, type NewAccessLink } from '../../../shared/sharing';
+import type { LinkRow } from './link-state';
+import { ReportsApi, type NewLink } from './reports-api';
+import { targetNoun, targetPath, type ShareTarget } from './share-target';
+import { accessLinkSchema } from '../../../shared/sharing';
 import { unwrapList } from '../core/api-envelope';
 
 export interface ShareDialogData {
-  reportId: number;
+  target: ShareTarget;
   projectId: number;
   title: string;
 }
 
-/** Who can read this report already, and read-only links for anyone else. */
+/** The list rows of a report's or a series' links: the same fields, keyed to either. */
+const linkRowSchema = accessLinkSchema.omit({ reportId: true });
+
+/** Who can read this report or series already, and read-only links for anyone else. */
 @Component({
   selector: 'erg-share-dialog',
   imports: [TitleCasePipe, ReactiveFormsModule, AccessLinksList, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule],
@@ -34,7 +39,7 @@ export interface ShareDialogData {
     <mat-dialog-content>
       <section aria-labelledby="share-members">
         <h3 id="share-members">Project members</h3>
-        <p class="muted">Everyone in the project can read this report and comment on it.</p>
+        <p class="muted">Everyone in the project can read this {{ noun }} and comment on it.</p>
         @if (members.isLoading() && !members.hasValue()) {
           <mat-spinner diameter="22" aria-label="Loading members" />
         } @else if (members.error()) {
@@ -50,7 +55,7 @@ export interface ShareDialogData {
 
       <section aria-labelledby="share-links">
         <h3 id="share-links">Access links</h3>
-        <p class="muted">Anyone with a link can read this report without signing in — read only, until it expires or you revoke it. They cannot see comments or anything else in the project.</p>
+        <p class="muted">Anyone with a link can read this {{ noun }} without signing in — read only, until it expires or you revoke it. They cannot see comments or anything else in the project.</p>
         <form class="new-link" (submit)="$event.preventDefault(); createLink()">
           <mat-form-field appearance="outline" class="days">
             <mat-label>Expires after (days)</mat-label>
@@ -105,13 +110,14 @@ export class ShareDialog {
   private readonly clipboard = inject(Clipboard);
 
   protected readonly maxDays = ACCESS_LINK_MAX_DAYS;
+  protected readonly noun = targetNoun(this.data.target);
   protected readonly members = httpResource(() => `/api/projects/${this.data.projectId}/members`, { parse: unwrapList('members', memberSchema) });
-  protected readonly links = httpResource(() => `/api/reports/${this.data.reportId}/access-links`, { parse: unwrapList('links', accessLinkSchema) });
+  protected readonly links = httpResource(() => `${targetPath(this.data.target)}/access-links`, { parse: unwrapList('links', linkRowSchema) });
   protected readonly memberList = computed(() => this.members.value() ?? []);
   protected readonly linkList = computed(() => this.links.value() ?? []);
   protected readonly days = new FormControl(7, { nonNullable: true, validators: [Validators.required, Validators.min(1), Validators.max(ACCESS_LINK_MAX_DAYS)] });
   protected readonly creating = signal(false);
-  protected readonly created = signal<NewAccessLink | null>(null);
+  protected readonly created = signal<NewLink | null>(null);
   protected readonly copied = signal(false);
   protected readonly createError = signal<string | null>(null);
   protected readonly revoking = signal<number | null>(null);
@@ -127,7 +133,7 @@ export class ShareDialog {
     this.createError.set(null);
     this.copied.set(false);
     try {
-      this.created.set(await firstValueFrom(this.api.createLink(this.data.reportId, Math.round(this.days.value))));
+      this.created.set(await firstValueFrom(this.api.createLink(this.data.target, Math.round(this.days.value))));
       this.links.reload();
     } catch (err) {
       this.createError.set(apiErrorMessage(err, 'The link could not be created.'));
@@ -144,11 +150,11 @@ export class ShareDialog {
     this.copied.set(this.clipboard.copy(url));
   }
 
-  protected async revoke(link: AccessLinkView): Promise<void> {
+  protected async revoke(link: LinkRow): Promise<void> {
     this.revoking.set(link.id);
     this.revokeError.set(null);
     try {
-      await firstValueFrom(this.api.revokeLink(this.data.reportId, link.id));
+      await firstValueFrom(this.api.revokeLink(this.data.target, link.id));
       // A revoked link no longer works: stop offering it for copying.
       if (this.created()?.id === link.id) {
         this.created.set(null);

@@ -4,7 +4,9 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router } from '@angular/router';
 import { Subscription, switchMap, timer } from 'rxjs';
+import type { SeriesDto } from '../../../shared/series-api';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
 import { AnalysisDialog, type AnalysisDialogData, type AnalysisDialogResult } from './analysis-dialog';
@@ -14,6 +16,7 @@ import { DropZone } from './drop-zone';
 import { ProjectRuns } from './project-runs';
 import { JobTracker } from './job-tracker';
 import { MetadataDialog, type MetadataDialogData, type MetadataDialogResult } from './metadata-dialog';
+import { CompareDialog, type CompareDialogData } from '../series/compare-dialog';
 import { InteractionModelDialog, type InteractionModelDialogData } from '../interaction-model/interaction-model-dialog';
 import { TrajectoriesApi } from './trajectories-api';
 import { TrajectoriesTable, type TrajectoryAction } from './trajectories-table';
@@ -38,7 +41,7 @@ const SETTLED = new Set(['ready', 'failed']);
     } @else if (loadError()) {
       <p class="state error" role="alert"><mat-icon aria-hidden="true">error</mat-icon> {{ loadError() }}</p>
     } @else {
-      <erg-trajectories-table [trajectories]="trajectories()" [canEdit]="canEdit()" (action)="act($event.kind, $event.trajectory)" (editSelected)="editSelected($event)" />
+      <erg-trajectories-table [trajectories]="trajectories()" [canEdit]="canEdit()" (action)="act($event.kind, $event.trajectory)" (editSelected)="editSelected($event)" (compareSelected)="compare($event)" />
     }
   `,
   styles: `.state { display: flex; gap: 8px; align-items: center; padding: 24px 0; } .error { color: var(--mat-sys-error); }`,
@@ -53,6 +56,7 @@ export class ProjectTrajectories {
   private readonly dialog = inject(MatDialog);
   private readonly snack = inject(MatSnackBar);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly router = inject(Router);
   protected readonly trajectories = signal<TrajectoryDto[]>([]);
   protected readonly loading = signal(true);
   protected readonly loadError = signal('');
@@ -100,6 +104,14 @@ export class ProjectTrajectories {
     const data: MetadataDialogData = { kind: 'many', trajectories: selected };
     this.dialog.open<MetadataDialog, MetadataDialogData, MetadataDialogResult>(MetadataDialog, { data, width: '640px' }).afterClosed().subscribe((result) => {
       if (result?.kind === 'saved') result.trajectories.forEach((t) => this.replace(t));
+    });
+  }
+
+  /** Names a series of the ticked trajectories, creates it, and opens it. */
+  protected compare(selected: TrajectoryDto[]): void {
+    const data: CompareDialogData = { projectId: this.projectId(), trajectories: selected };
+    this.dialog.open<CompareDialog, CompareDialogData, SeriesDto>(CompareDialog, { data, width: '600px' }).afterClosed().subscribe((series) => {
+      if (series) void this.router.navigate(['/series', series.id]);
     });
   }
 

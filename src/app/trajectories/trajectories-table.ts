@@ -26,7 +26,8 @@ const NARROW = '(max-width: 719.98px)';
 
 /**
  * The project's trajectories: sortable, filterable, paged, with per-row
- * actions; editors can tick several to change their metadata at once.
+ * actions; editors can tick several to change their metadata at once or to
+ * compare them as a series.
  */
 @Component({
   selector: 'erg-trajectories-table',
@@ -43,6 +44,8 @@ export class TrajectoriesTable {
   readonly canEdit = input(false);
   readonly action = output<{ kind: TrajectoryAction; trajectory: TrajectoryDto }>();
   readonly editSelected = output<TrajectoryDto[]>();
+  /** The ticked trajectories, to be compared across their state points. */
+  readonly compareSelected = output<TrajectoryDto[]>();
 
   protected readonly narrow = toSignal(inject(BreakpointObserver).observe(NARROW).pipe(map((s) => s.matches)), { initialValue: false });
   protected readonly columns = computed(() => [
@@ -105,6 +108,10 @@ export class TrajectoriesTable {
 
   protected editTheSelected(): void {
     this.editSelected.emit(this.selected());
+  }
+
+  protected compareTheSelected(): void {
+    this.compareSelected.emit(this.selected());
   }
 
   protected clearSelection(): void {

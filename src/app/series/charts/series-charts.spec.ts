@@ -1,35 +1,34 @@
 import { describe, expect, it } from 'vitest';
-import type { ReportCurve } from '../../../../shared/report';
+import type { Overlay } from '../../../../shared/series-api';
 import { diffusionValue, emptyResults, memberResult } from '../series-fixture';
 import { scaleColour } from '../temperature-scale';
 import { heatCapacityChart } from './caloric-charts';
-import { OVERLAY_KINDS, overlayChartSpecs } from './overlay-charts';
+import { overlayChart } from './overlay-charts';
 import { tableCsv } from './series-chart-spec';
 import { arrheniusChart, diffusionChart, lindemannChart } from './state-charts';
 
-const msd = (scale: number): ReportCurve => ({ columns: ['lag', 'MSD all'], units: ['ps', 'Å²'], data: [[0, 1, 2], [0, scale, 2 * scale]] });
 const seriesData = (option: unknown, name: string): unknown[] => ((option as { series: { name: string; type: string; data: unknown[] }[] }).series.find((s) => s.name === name && s.type !== 'custom')?.data ?? []);
 
 describe('overlay charts', () => {
-  it('when three members have an MSD, then each is one line coloured by its place between the coldest and the hottest', () => {
-    const spec = overlayChartSpecs(OVERLAY_KINDS[0]!, [
-      { trajectoryId: 2, name: 'hot', temperatureK: 300, curve: msd(3) },
-      { trajectoryId: 1, name: 'cold', temperatureK: 100, curve: msd(1) },
-      { trajectoryId: 3, name: 'mid', temperatureK: 200, curve: msd(2) },
-      { trajectoryId: 4, name: 'pending', temperatureK: 250, curve: null },
-    ])!;
-    const lines = (spec.option as { series: { name: string; itemStyle: { color: string } }[] }).series;
+  const msd = (trajectoryId: number, name: string, temperatureK: number | null, scale: number) => ({ trajectoryId, name, temperatureK, phase: null, reportId: trajectoryId, x: [0, 1, 2], y: [0, scale, 2 * scale] });
+  const overlay = (lines: Overlay['lines']): Overlay => ({ kind: 'msd', x: { label: 'lag', unit: 'ps' }, y: { label: 'MSD all', unit: 'Å²' }, lines });
+
+  it('when three members have an MSD, then each is one line ordered and coloured from the coldest to the hottest', () => {
+    const spec = overlayChart(overlay([msd(2, 'hot', 300, 3), msd(1, 'cold', 100, 1), msd(3, 'mid', 200, 2)]))!;
+    const lines = (spec.option as { series: { name: string; itemStyle: { color: string }; data: unknown[] }[] }).series;
     expect(lines.map((l) => l.name)).toEqual(['cold · 100 K', 'mid · 200 K', 'hot · 300 K']);
     expect(lines[0]!.itemStyle.color).toBe(scaleColour(0));
+    expect(lines[1]!.itemStyle.color).toBe(scaleColour(0.5));
     expect(lines[2]!.itemStyle.color).toBe(scaleColour(1));
-    // On log axes the zero lag cannot be drawn; the CSV carries what is drawn, units in the header.
+    // On log axes the zero lag cannot be drawn, but the CSV keeps it; units sit in the header.
+    expect(lines[0]!.data).toHaveLength(2);
     expect(spec.table.columns).toEqual(['member', 'T (K)', 'lag (ps)', 'MSD all (Å²)']);
     expect(spec.table.rows).toContainEqual(['hot', 300, 2, 6]);
-    expect(spec.table.rows).toHaveLength(6);
+    expect(spec.table.rows).toHaveLength(9);
   });
 
   it('when no member has the curve, then there is no chart', () => {
-    expect(overlayChartSpecs(OVERLAY_KINDS[4]!, [{ trajectoryId: 1, name: 'a', temperatureK: 90, curve: msd(1) }])).toBeNull();
+    expect(overlayChart(overlay([]))).toBeNull();
   });
 });
 
