@@ -14,9 +14,13 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { BenchRow } from './bench-row.ts';
 import { inspectTrajectory } from '../server/formats/inspect.ts';
+import { readFrames } from '../server/formats/read-frames.ts';
 import { BENCH_ATOMS, syntheticFrames } from './synthetic-extxyz.ts';
 
 const FRAMES = 4000;
+const PDB_FRAMES = 1000;
+/** The PDB reader's time per atom line may be at most this many times the XYZ reader's. */
+const PDB_TARGET_RATIO = 2;
 const MEMORY_BUDGET_MB = 300;
 const STREAMED_BYTES = 1024 ** 3;
 const TARGET_MB_PER_S = 150;
@@ -66,6 +70,38 @@ async function inspectInChild(bytes: number): Promise<MemoryReport> {
   return JSON.parse(stdout) as MemoryReport;
 }
 
+/** The same positions as PDB (MODEL/CRYST1/ATOM…/ENDMDL) and as plain XYZ, with the same three decimals. */
+export async function writePdbAndXyz(pdbPath: string, xyzPath: string): Promise<void> {
+  const pdb = await open(pdbPath, 'w');
+  const xyz = await open(xyzPath, 'w');
+  let seed = 7;
+  const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const base = Array.from({ length: BENCH_ATOMS * 3 }, () => rnd() * 24);
+  try {
+    for (let f = 0; f < PDB_FRAMES; f++) {
+      let p = `MODEL     ${String(f + 1).padStart(4)}\nCRYST1   24.000   24.000   24.000  90.00  90.00  90.00 P 1           1\n`;
+      let x = `${BENCH_ATOMS}\nframe ${f}\n`;
+      for (let a = 0; a < BENCH_ATOMS; a++) {
+        const el = a % 3 === 0 ? 'O' : 'H';
+        const c = [0, 1, 2].map((k) => (base[3 * a + k]! + 0.01 * ((f * 7 + a + k) % 13)).toFixed(3).padStart(8));
+        p += `ATOM  ${String(a + 1).padStart(5)}  ${el.padEnd(3)} WAT A${String(Math.floor(a / 3) + 1).padStart(4)}    ${c.join('')}  1.00  0.00          ${el.padStart(2)}\n`;
+        x += `${el} ${c.join(' ')}\n`;
+      }
+      await pdb.write(`${p}ENDMDL\n`);
+      await xyz.write(x);
+    }
+  } finally {
+    await pdb.close();
+    await xyz.close();
+  }
+}
+
+async function countFrames(path: string): Promise<number> {
+  let frames = 0;
+  for await (const frame of readFrames(path)) frames += frame.positions.length > 0 ? 1 : 0;
+  return frames;
+}
+
 export async function benchReaders(): Promise<BenchRow[]> {
   const dir = await mkdtemp(join(tmpdir(), 'ergodic-bench-readers-'));
   try {
@@ -78,6 +114,13 @@ export async function benchReaders(): Promise<BenchRow[]> {
       throw new Error(`bench file misread: ${info.frames} frames, ${info.atoms} atoms, ${lines} lines`);
     }
     const parseRate = megabytes / parseSeconds;
+    const pdbPath = join(dir, 'water.pdb');
+    const xyzPath = join(dir, 'water.xyz');
+    await writePdbAndXyz(pdbPath, xyzPath);
+    const [pdbFrames, pdbSeconds] = await best(3, () => countFrames(pdbPath));
+    const [xyzFrames, xyzSeconds] = await best(3, () => countFrames(xyzPath));
+    if (pdbFrames !== PDB_FRAMES || xyzFrames !== PDB_FRAMES) throw new Error(`bench PDB/XYZ misread: ${pdbFrames} and ${xyzFrames} frames`);
+    const pdbRatio = pdbSeconds / xyzSeconds;
     const memory = await inspectInChild(STREAMED_BYTES);
     return [
       {
@@ -86,6 +129,13 @@ export async function benchReaders(): Promise<BenchRow[]> {
         reference: 'newline scan of the same file (best of 3 each)',
         ratio: scanSeconds / parseSeconds,
         note: `${parseRate.toFixed(0)} MB/s parsed vs ${(megabytes / scanSeconds).toFixed(0)} MB/s scanned; target ≥ ${TARGET_MB_PER_S} MB/s ${parseRate >= TARGET_MB_PER_S ? 'met' : 'NOT met'}`,
+      },
+      {
+        name: `PDB read, ${BENCH_ATOMS} atoms × ${PDB_FRAMES} frames, per atom line`,
+        seconds: pdbSeconds,
+        reference: 'plain XYZ of the same positions (best of 3 each)',
+        ratio: pdbRatio,
+        note: `${(pdbSeconds / (BENCH_ATOMS * PDB_FRAMES) * 1e9).toFixed(0)} ns vs ${(xyzSeconds / (BENCH_ATOMS * PDB_FRAMES) * 1e9).toFixed(0)} ns per atom line; target ≤ ${PDB_TARGET_RATIO}× ${pdbRatio <= PDB_TARGET_RATIO ? 'met' : 'NOT met'}`,
       },
       {
         name: `inspect ${(memory.bytes / 1e9).toFixed(2)} GB of streamed extended XYZ (${memory.frames} frames), own process`,

@@ -61,6 +61,8 @@ const configSchema = z.object({
   ANALYSIS_MAX_MEMORY_BYTES: bytes.default(4 * 1024 ** 3),
   /** Positions and velocities an analysis holds in memory; beyond this they wait in a scratch file in the worker's temporary folder. */
   ANALYSIS_IN_MEMORY_BYTES: bytes.default(96 * 1024 ** 2),
+  /** Frame-store objects the web server keeps in memory for the frame viewer. */
+  FRAME_CACHE_BYTES: bytes.default(256 * 1024 ** 2),
   /** Positions and velocities per object of the binary frame store written at inspection. */
   FRAME_STORE_CHUNK_BYTES: z.coerce.number().int().min(4096).max(256 * 1024 ** 2).default(8 * 1024 ** 2),
   /** Longest wait for the queue to accept a job before the request fails with 503. */

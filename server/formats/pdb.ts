@@ -14,6 +14,21 @@ import type { TextFrame, TextReadContext } from './text-frame.ts';
 const RECORD = (buf: Buffer, start: number, end: number): string =>
   buf.toString('latin1', start, Math.min(end, start + 6)).trimEnd().toUpperCase();
 
+/** True when the record name (any case, as RECORD reads it) is ATOM or HETATM, read from the bytes without making a string. */
+function isAtomRecord(buf: Buffer, start: number, end: number): boolean {
+  if (end - start < 4) return false;
+  const c0 = buf[start] | 32, c1 = buf[start + 1] | 32, c2 = buf[start + 2] | 32, c3 = buf[start + 3] | 32;
+  const blankFrom = (k: number) => {
+    for (let i = start + k; i < Math.min(end, start + 6); i++) if (buf[i] !== 32 && buf[i] !== 9) return false;
+    return true;
+  };
+  if (c0 === 97 && c1 === 116 && c2 === 111 && c3 === 109) return blankFrom(4); // atom
+  return end - start >= 6 && c0 === 104 && c1 === 101 && c2 === 116 && c3 === 97 && (buf[start + 4] | 32) === 116 && (buf[start + 5] | 32) === 109; // hetatm
+}
+
+/** Bytes of the columns an element is read from (atom name 13–16, element 77–78), remembered per atom to reuse its symbol. */
+const NAME_BYTES = 6;
+
 /** 1-based inclusive wwPDB columns → 0-based [from, to). */
 const X_COLUMNS = [30, 38] as const;
 const Y_COLUMNS = [38, 46] as const;
@@ -26,8 +41,11 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
   let index = ctx.firstIndex;
   let nAtoms = -1;
   let cell: Cell | null = null;
-  let positions: number[] = [];
+  let positions = new Float64Array(3 * 1024);
   let species: string[] = [];
+  // The previous frame's element columns and symbol of each atom: most frames repeat them.
+  let seenNames = new Uint8Array(NAME_BYTES * 1024);
+  const seenSpecies: string[] = [];
   let frameStart = -1;
   let frameLine: number | undefined;
   let lastSpecies: string[] | null = null;
@@ -50,13 +68,12 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
     if (!same) lastSpecies = species;
     const frame: TextFrame = {
       index,
-      positions: Float64Array.from(positions),
+      positions: positions.slice(0, 3 * n),
       species: lastSpecies!,
       cell,
       byteOffset: frameStart,
     };
     if (cell) frame.pbc = [true, true, true];
-    positions = [];
     species = [];
     frameStart = -1;
     index++;
@@ -64,11 +81,13 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
   };
 
   try {
-    while (await lines.nextLine()) {
+    // The synchronous next() serves buffered lines; awaiting only when a chunk runs out keeps a microtask off every line.
+    while (lines.next() || (await lines.nextLine())) {
       const { buf, start, end } = lines;
       if (isBlank(buf, start, end)) continue;
-      const record = RECORD(buf, start, end);
-      if (record === 'ATOM' || record === 'HETATM') {
+      const atom = isAtomRecord(buf, start, end);
+      const record = atom ? '' : RECORD(buf, start, end);
+      if (atom) {
         sawAtoms = true;
         if (frameStart < 0) {
           frameStart = lines.lineOffset;
@@ -78,7 +97,11 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
           species.push('');
           continue;
         }
-        readAtom(lines, ctx, index, positions, species);
+        const k = species.length;
+        if (3 * k + 3 > positions.length) positions = grown(positions, 2 * positions.length);
+        if (NAME_BYTES * (k + 1) > seenNames.length) seenNames = grown(seenNames, 2 * seenNames.length);
+        readAtom(lines, ctx, index, positions, 3 * k);
+        species.push(speciesOf(lines, file, index, seenNames, NAME_BYTES * k, seenSpecies, k));
         if (species.length > ctx.limits.maxAtoms) {
           throw new TrajectoryFormatError(`frame has more than the limit of ${ctx.limits.maxAtoms} atoms`, {
             file,
@@ -116,28 +139,57 @@ function field(buf: Buffer, start: number, end: number, [from, to]: readonly [nu
   return [s, e];
 }
 
-function readAtom(lines: LineReader, ctx: TextReadContext, index: number, positions: number[], species: string[]): void {
+function readAtom(lines: LineReader, ctx: TextReadContext, index: number, positions: Float64Array, at: number): void {
   const { buf, start, end } = lines;
-  const where = { file: ctx.file, frame: index, line: lines.line };
   if (end - start < Z_COLUMNS[1]) {
     throw new TrajectoryFormatError(
       `ATOM/HETATM record is ${end - start} characters long; coordinates need columns 31–54 (truncated record)`,
-      where,
+      { file: ctx.file, frame: index, line: lines.line },
     );
   }
-  const axes = ['x', 'y', 'z'];
-  [X_COLUMNS, Y_COLUMNS, Z_COLUMNS].forEach((columns, axis) => {
-    const [s, e] = field(buf, start, end, columns);
-    const value = s < e ? parseNumberBytes(buf, s, e) : NaN;
-    if (!Number.isFinite(value)) {
-      throw new TrajectoryFormatError(
-        `${axes[axis]} in columns ${columns[0] + 1}–${columns[1]} is "${buf.toString('latin1', s, e)}", not a finite number`,
-        where,
-      );
+  positions[at] = coordinate(lines, ctx, index, X_COLUMNS, 0);
+  positions[at + 1] = coordinate(lines, ctx, index, Y_COLUMNS, 1);
+  positions[at + 2] = coordinate(lines, ctx, index, Z_COLUMNS, 2);
+}
+
+function coordinate(lines: LineReader, ctx: TextReadContext, index: number, columns: readonly [number, number], axis: number): number {
+  const { buf, start, end } = lines;
+  let s = start + columns[0];
+  let e = Math.min(end, start + columns[1]);
+  while (s < e && (buf[s] === 32 || buf[s] === 9)) s++;
+  while (e > s && (buf[e - 1] === 32 || buf[e - 1] === 9)) e--;
+  const value = s < e ? parseNumberBytes(buf, s, e) : NaN;
+  if (value - value !== 0) {
+    throw new TrajectoryFormatError(
+      `${'xyz'[axis]} in columns ${columns[0] + 1}–${columns[1]} is "${buf.toString('latin1', s, e)}", not a finite number`,
+      { file: ctx.file, frame: index, line: lines.line },
+    );
+  }
+  return value;
+}
+
+/** The atom's element: the previous frame's symbol when its name and element columns are byte for byte the same, else read afresh. */
+function speciesOf(lines: LineReader, file: string, index: number, seen: Uint8Array, at: number, seenSpecies: string[], k: number): string {
+  const { buf, start, end } = lines;
+  let same = seenSpecies[k] !== undefined;
+  for (let j = 0; j < NAME_BYTES; j++) {
+    const col = j < 4 ? start + NAME_COLUMNS[0] + j : start + ELEMENT_COLUMNS[0] + j - 4;
+    const byte = col < end ? buf[col] : 0;
+    if (seen[at + j] !== byte) {
+      same = false;
+      seen[at + j] = byte;
     }
-    positions.push(value);
-  });
-  species.push(elementOf(buf, start, end, where));
+  }
+  if (same) return seenSpecies[k]!;
+  const symbol = elementOf(buf, start, end, { file, frame: index, line: lines.line });
+  seenSpecies[k] = symbol;
+  return symbol;
+}
+
+function grown<T extends Float64Array | Uint8Array>(array: T, length: number): T {
+  const out = new (array.constructor as { new (n: number): T })(length);
+  out.set(array);
+  return out;
 }
 
 /** Element from columns 77–78, else from the atom name (columns 13–16), as element symbols conventionally sit there. */

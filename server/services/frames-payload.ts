@@ -23,13 +23,24 @@ export interface FramesPayloadInput {
   positions: Float32Array;
 }
 
+/** The per-atom part of the header, by species list (a frame store keeps one list for good). */
+const fixedHeaders = new WeakMap<number[], string>();
+
+function fixedHeaderJson(input: FramesPayloadInput): string {
+  let fixed = fixedHeaders.get(input.speciesIndex);
+  if (fixed === undefined) {
+    const json = JSON.stringify({ atoms: input.atoms, speciesNames: input.speciesNames, speciesIndex: input.speciesIndex, lengthUnit: 'angstrom' } satisfies Omit<FramesHeader, 'frames'>);
+    fixed = json.slice(1, -1);
+    fixedHeaders.set(input.speciesIndex, fixed);
+  }
+  return fixed;
+}
+
 /** Writes the payload; positions already in Å (the usual case) are copied as bytes, not number by number. */
 export function encodeFramesPayload(input: FramesPayloadInput, lengthToAngstrom: number): Buffer {
-  const header: FramesHeader = {
-    atoms: input.atoms, speciesNames: input.speciesNames, speciesIndex: input.speciesIndex, lengthUnit: 'angstrom',
-    frames: input.frames.map((f) => ({ index: f.index, time: f.time, cell: f.cell ? Array.from(f.cell, (v) => v * lengthToAngstrom) : null })),
-  };
-  let json = JSON.stringify(header);
+  const frames: FramesHeader['frames'] = input.frames.map((f) => ({ index: f.index, time: f.time, cell: f.cell ? Array.from(f.cell, (v) => v * lengthToAngstrom) : null }));
+  // The same JSON as the whole header stringified, with the part that never changes for a trajectory written once.
+  let json = `{${fixedHeaderJson(input)},"frames":${JSON.stringify(frames)}}`;
   json += ' '.repeat((4 - ((4 + Buffer.byteLength(json)) % 4)) % 4);
   const jsonBytes = Buffer.from(json, 'utf8');
   // Never from the shared pool, so the Float32 view below starts on a 4-byte boundary.

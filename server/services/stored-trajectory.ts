@@ -9,6 +9,7 @@ import type { TrajectoryRow } from '../db/schema/index.ts';
 import type { Compression, Frame, FrameOffset, TrajectoryFormat } from '../formats/frame.ts';
 import { readFrames, type FrameRange, type SeekableSource } from '../formats/read-frames.ts';
 import { openFrameStore, type FrameStore } from '../frame-store/reader.ts';
+import { ChunkCache } from '../frame-store/chunk-cache.ts';
 import { readerLimits } from './reader-limits.ts';
 
 /** A stored trajectory object as a source the readers can open at any byte offset. */
@@ -46,6 +47,32 @@ export function frameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<Frame
     opened.catch(() => openedStores.delete(key));
     if (openedStores.size >= MAX_OPEN_STORES) openedStores.delete(openedStores.keys().next().value!);
     openedStores.set(key, opened);
+  }
+  return opened;
+}
+
+/** One cache of whole frame-store objects per object store, for the frame viewer only (analyses stream chunks once). */
+const viewerCaches = new WeakMap<AppContext['store'], ChunkCache>();
+const viewerStores = new Map<string, Promise<FrameStore>>();
+
+/**
+ * The trajectory's frame store read through the viewer's cache of whole
+ * chunks, or null for an upload inspected before the store existed.
+ */
+export function viewerFrameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<FrameStore> | null {
+  const key = row.frameStoreKey;
+  if (!key) return null;
+  let cache = viewerCaches.get(ctx.store);
+  if (!cache) {
+    cache = new ChunkCache(ctx.store, ctx.config.FRAME_CACHE_BYTES);
+    viewerCaches.set(ctx.store, cache);
+  }
+  let opened = viewerStores.get(key);
+  if (!opened) {
+    opened = openFrameStore(cache.asSource(), key);
+    opened.catch(() => viewerStores.delete(key));
+    if (viewerStores.size >= MAX_OPEN_STORES) viewerStores.delete(viewerStores.keys().next().value!);
+    viewerStores.set(key, opened);
   }
   return opened;
 }

@@ -6,7 +6,7 @@ import { LENGTH_TO_ANGSTROM, type LengthUnit } from '../formats/units.ts';
 import { writeExtxyz } from '../formats/write-extxyz.ts';
 import { badRequest, conflict } from '../errors.ts';
 import { encodeFrames, encodeFramesPayload } from './frames-payload.ts';
-import { frameStoreOf, storedFrames } from './stored-trajectory.ts';
+import { storedFrames, viewerFrameStoreOf } from './stored-trajectory.ts';
 
 /** Most coordinates one frames request returns (16 MB of Float32). */
 const MAX_VALUES_PER_REQUEST = 4_000_000;
@@ -29,7 +29,7 @@ export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested
   const maxFrames = Math.max(1, Math.floor(MAX_VALUES_PER_REQUEST / perFrame));
   const to = Math.min(range.to, range.from + maxFrames * range.stride);
   const toAngstrom = LENGTH_TO_ANGSTROM[row.lengthUnit as LengthUnit] ?? 1;
-  const store = frameStoreOf(ctx, row);
+  const store = viewerFrameStoreOf(ctx, row);
   if (store) {
     const opened = await store;
     const { frames, positions } = await opened.readPositions({ ...range, to });
