@@ -1,6 +1,5 @@
-import { createHash } from 'node:crypto';
-import { createReadStream } from 'node:fs';
 import { basename } from 'node:path';
+import { fileSha256 } from './file-sha256.ts';
 import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import { runAnalyses, type AnalysisRun, type SimulationFacts } from '../analysis/index.ts';
 import { assembleTrajectory, type AssembleSpill } from '../formats/assemble.ts';
@@ -44,11 +43,6 @@ export interface LocalReport {
   curves: Record<string, ReportCurve>;
 }
 
-async function sha256Of(path: string): Promise<string> {
-  const hash = createHash('sha256');
-  for await (const chunk of createReadStream(path, { highWaterMark: 1024 * 1024 })) hash.update(chunk as Buffer);
-  return hash.digest('hex');
-}
 
 /** What the file holds, as the planner needs it. */
 function factsOf(info: InspectResult, options: AnalyzeFileOptions, timeStep: number): TrajectoryFacts {
@@ -160,7 +154,7 @@ export async function analyzeFile(path: string, options: AnalyzeFileOptions): Pr
 async function analyzeWithin(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ report: LocalReport; info: FileInfo; speciesElements: Record<string, SpeciesElement> }> {
   const name = basename(path);
   const [{ traj, plan, info }, inputSha256] = await Promise.all([
-    choosesFrames(options.params) ? readSelected(path, options, spill) : readWhole(path, options, spill), sha256Of(path),
+    choosesFrames(options.params) ? readSelected(path, options, spill) : readWhole(path, options, spill), fileSha256(path),
   ]);
   const { selection, params } = plan;
   const speciesElements = speciesElementsOf([...new Set(traj.species)], null);
