@@ -2,6 +2,8 @@
  * Which frames an analysis uses: a range [fromFrame, toFrame), every
  * frameStride-th frame, after leaving out discardPs of equilibration at the
  * start of the range. One rule for the API, the dialog and the command line.
+ * Frames here are 0-based with `to` exclusive, as in the API and the command
+ * line; the browser shows them counted from 1 and converts at its form.
  */
 
 /** Runs longer than this are analysed every few frames unless a stride is given, so the default cost stays bounded. */
@@ -47,7 +49,8 @@ export function selectFrames(totalFrames: number, framePs: number, input: FrameS
   const discardFrames = discardPs > 0 ? Math.ceil(discardPs / framePs - 1e-9) : 0;
   const from = fromFrame + discardFrames;
   if (from >= toFrame) {
-    return { problem: `Discarding ${discardPs} ps (${discardFrames} frames) leaves no frames of the range ${fromFrame}–${toFrame - 1}.` };
+    // No frame numbers here: the browser counts from 1 and the API from 0, and this message reaches both.
+    return { problem: `Discarding ${discardPs} ps (${discardFrames} frames) leaves none of the ${toFrame - fromFrame} frames chosen.` };
   }
   const stride = input.frameStride ?? autoStride(toFrame - from);
   const frames = Math.ceil((toFrame - from) / stride);

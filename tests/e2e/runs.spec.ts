@@ -86,7 +86,14 @@ test.describe('analysis runs', () => {
     await dialog.getByRole('button', { name: /Discard the first [\d.]+ ps/ }).click();
     await dialog.getByRole('button', { name: 'Advanced settings' }).click();
     await dialog.getByLabel('Stride').fill('2');
-    await expect(dialog.getByText(/Estimated .* frames \(\d+–399, every 2\)/)).toBeVisible();
+    // Frames are counted from 1 here, as in the viewer: 0 is refused, 1 to 400 is the whole run.
+    await dialog.getByLabel('From frame').fill('0');
+    await expect(dialog.getByText('The first frame must be at least 1 (frames are counted from 1; this trajectory\'s frames are 1 to 400).')).toBeVisible();
+    await dialog.getByLabel('To frame (included)').fill('401');
+    await expect(dialog.getByText('The last frame must be at most 400; this trajectory\'s frames are 1 to 400.')).toBeVisible();
+    await dialog.getByLabel('From frame').fill('1');
+    await dialog.getByLabel('To frame (included)').fill('400');
+    await expect(dialog.getByText(/Estimated .* frames \(from frame \d+ to 400, every 2\)/)).toBeVisible();
     await screens(page, 'analysis-dialog-frames');
     for (const box of await dialog.getByRole('checkbox').all()) {
       if (await box.isChecked()) await box.uncheck();
@@ -96,7 +103,7 @@ test.describe('analysis runs', () => {
     await expect(dialog).toBeHidden();
     await expect(page.getByText('The analysis of relaxing.extxyz (temperature) is done.')).toBeVisible({ timeout: 120_000 });
     await page.getByRole('button', { name: 'Open report' }).click();
-    await expect(page.getByText(/Analysed \d+ frames, from frame \d+ up to frame 399, every 2nd frame\. The first [\d.]+ ps of the range \(\d+ frames\) were left out for equilibration\./)).toBeVisible();
+    await expect(page.getByText(/Analysed \d+ frames, from frame \d+ up to frame 400, every 2nd frame\. The first [\d.]+ ps of the range \(\d+ frames\) were left out for equilibration\./)).toBeVisible();
   });
 });
 

@@ -92,10 +92,10 @@ describe('methods text', () => {
     expect(spectrum).toContain('divided by that factor up to 2502 cm⁻¹ (ωΔt = 3π/4), and 6.3 % of its raw weight lay above');
     expect(spectrum).toContain(`Warning: ${warning}`);
   });
-  it('when a run used a frame range, a stride and a discard, then a frames paragraph says which frames the engine saw', () => {
+  it('when a run used a frame range, a stride and a discard, then a frames paragraph says which frames the engine saw, counted from 1 as in the viewer', () => {
     const m = { ...report().methods, frames: { from: 301, to: 3100, stride: 5, used: 560, discardedFrames: 201, discardPs: 2.004, autoStride: false } };
     const frames = methodsParagraphs(report({ methods: m })).find((p) => p.heading === 'Frames')!;
-    expect(frames.body).toBe('Analysed 560 frames, from frame 301 up to frame 3099, every 5th frame. The first 2.004 ps of the range (201 frames) were left out for equilibration.');
+    expect(frames.body).toBe('Analysed 560 frames, from frame 302 up to frame 3100, every 5th frame. The first 2.004 ps of the range (201 frames) were left out for equilibration.');
     expect(methodsParagraphs(report()).some((p) => p.heading === 'Frames')).toBe(false);
   });
 });

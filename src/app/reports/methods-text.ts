@@ -48,7 +48,10 @@ function ordinal(n: number): string {
   return `${n}${suffix}`;
 }
 
-/** Which frames the engine saw; absent from reports made before frames could be selected. */
+/**
+ * Which frames the engine saw; absent from reports made before frames could be selected.
+ * The report stores the API's range (0-based, `to` one past the end); readers count frames from 1, as the viewer does.
+ */
 function framesParagraph(m: Json): MethodsParagraph | null {
   const used = num(m, 'used');
   const from = num(m, 'from');
@@ -58,7 +61,7 @@ function framesParagraph(m: Json): MethodsParagraph | null {
   const discarded = num(m, 'discardedFrames') ?? 0;
   const every = stride > 1 ? `, every ${ordinal(stride)} frame${flag(m, 'autoStride') ? ' (chosen automatically for a long run)' : ''}` : '';
   const discard = discarded > 0 ? ` The first ${f(num(m, 'discardPs'), 4)} ps of the range (${discarded} frames) were left out for equilibration.` : '';
-  return { heading: 'Frames', body: `Analysed ${used} frames, from frame ${from} up to frame ${to - 1}${every}.${discard}` };
+  return { heading: 'Frames', body: `Analysed ${used} frames, from frame ${from + 1} up to frame ${to}${every}.${discard}` };
 }
 
 /** Warnings a reader must not miss, as sentences after a paragraph. */

@@ -57,7 +57,7 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
       @if (t.preset) { <p class="facts">Settings of the report you came from; change what you need.</p> }
       @if (suggestedDiscardPs(); as ps) {
         <p class="suggestion">
-          Inspection judged the run equilibrated from frame {{ t.equilibration!.frame }} (about {{ significant(ps) }} ps), from {{ t.equilibration!.judgedFrom }}.
+          Inspection judged the run equilibrated from frame {{ t.equilibration!.frame + 1 }} (about {{ significant(ps) }} ps), from {{ t.equilibration!.judgedFrom }}.
           <button mat-button type="button" (click)="useSuggestedDiscard(ps)">Discard the first {{ significant(ps) }} ps</button>
         </p>
       }
@@ -84,13 +84,13 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
             <h3>Frames</h3>
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>From frame</mat-label>
-              <input matInput type="number" formControlName="fromFrame" min="0" step="1">
-              <mat-hint>Empty: the first (0)</mat-hint>
+              <input matInput type="number" formControlName="fromFrame" min="1" [attr.max]="t.frames" step="1">
+              <mat-hint>Counted from 1. Empty: the first (1)</mat-hint>
             <mat-error>{{ fieldErrors()['fromFrame'] }}</mat-error></mat-form-field>
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
-              <mat-label>To frame (not included)</mat-label>
-              <input matInput type="number" formControlName="toFrame" min="1" step="1">
-              <mat-hint>Empty: to the end ({{ t.frames }})</mat-hint>
+              <mat-label>To frame (included)</mat-label>
+              <input matInput type="number" formControlName="toFrame" min="1" [attr.max]="t.frames" step="1">
+              <mat-hint>Empty: the last ({{ t.frames }})</mat-hint>
             <mat-error>{{ fieldErrors()['toFrame'] }}</mat-error></mat-form-field>
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Stride</mat-label>
@@ -209,7 +209,7 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
       @if (estimate(); as e) {
         <p class="estimate" aria-live="polite">
           Estimated {{ durationText(e.seconds) === 'under a second' ? '' : 'about ' }}{{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory, on {{ e.frames.used }} frames
-          ({{ e.frames.from }}–{{ e.frames.to - 1 }}{{ e.frames.stride > 1 ? ', every ' + e.frames.stride + (e.frames.autoStride ? ', chosen for a long run' : '') : '' }}){{ e.rMaxA !== null ? '; g(r) to ' + significant(e.rMaxA) + ' Å' : '' }}.
+          (from frame {{ e.frames.from + 1 }} to {{ e.frames.to }}{{ e.frames.stride > 1 ? ', every ' + e.frames.stride + (e.frames.autoStride ? ', chosen for a long run' : '') : '' }}){{ e.rMaxA !== null ? '; g(r) to ' + significant(e.rMaxA) + ' Å' : '' }}.
         </p>
         @if (!e.withinLimits) {
           <div class="error" role="alert">
@@ -331,6 +331,8 @@ export class AnalysisDialog {
   /** The body the dialog would send, or null while the settings are incomplete. */
   private request(): StartAnalysis | null {
     if (this.selected().size === 0) return null;
+    // A field the dialog already marks is not sent: the server would answer in the API's 0-based frame count.
+    if (Object.keys(fieldProblems(this.form.getRawValue(), this.t.frames ?? undefined)).length) return null;
     const built = buildParams(this.form.getRawValue());
     const parsed = analysisParamsSchema.safeParse(built.params);
     if (built.problems.length || !parsed.success) return null;
@@ -356,7 +358,7 @@ export class AnalysisDialog {
 
   /** Puts each field's problem on its control, so the field turns red and says it beneath. */
   private checkFields(): Partial<Record<FieldName, string>> {
-    const problems = fieldProblems(this.form.getRawValue());
+    const problems = fieldProblems(this.form.getRawValue(), this.t.frames ?? undefined);
     this.fieldErrors.set(problems);
     for (const [name, control] of Object.entries(this.form.controls)) {
       const problem = problems[name as FieldName];

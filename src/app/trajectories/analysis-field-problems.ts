@@ -35,13 +35,33 @@ function inWords(message: string, field: FieldName): string {
 }
 
 /**
- * What is wrong with the advanced settings, field by field, in words, for
- * the message under each field: the half-filled windows the form itself
- * catches, then everything the shared schema (the one the server applies)
- * refuses. Empty when the settings can be sent.
+ * The frame range in the count people see (from 1, last frame included), checked
+ * here so no message ever quotes the API's 0-based numbers back at them.
  */
-export function fieldProblems(s: AdvancedSettings): Partial<Record<FieldName, string>> {
+function frameRangeProblems(s: AdvancedSettings, totalFrames: number | undefined, out: Partial<Record<FieldName, string>>): void {
+  const whole = (v: number | null): v is number => v !== null && v !== undefined && Number.isInteger(v);
+  const end = totalFrames === undefined ? '' : `; this trajectory's frames are 1 to ${totalFrames}`;
+  if (whole(s.fromFrame)) {
+    if (s.fromFrame < 1) out.fromFrame = `The first frame must be at least 1 (frames are counted from 1${end}).`;
+    else if (totalFrames !== undefined && s.fromFrame > totalFrames) out.fromFrame = `The first frame must be at most ${totalFrames}${end}.`;
+  }
+  if (whole(s.toFrame)) {
+    if (s.toFrame < 1) out.toFrame = `The last frame must be at least 1 (frames are counted from 1${end}).`;
+    else if (totalFrames !== undefined && s.toFrame > totalFrames) out.toFrame = `The last frame must be at most ${totalFrames}${end}.`;
+    else if (whole(s.fromFrame) && !out.fromFrame && s.toFrame < s.fromFrame) out.toFrame = `The last frame must not come before the first (${s.fromFrame}).`;
+  }
+}
+
+/**
+ * What is wrong with the advanced settings, field by field, in words, for
+ * the message under each field: the frame range against the trajectory's
+ * length (when known) and the half-filled windows the form itself catches,
+ * then everything the shared schema (the one the server applies) refuses.
+ * Empty when the settings can be sent.
+ */
+export function fieldProblems(s: AdvancedSettings, totalFrames?: number): Partial<Record<FieldName, string>> {
   const out: Partial<Record<FieldName, string>> = {};
+  frameRangeProblems(s, totalFrames, out);
   const missing = (mode: 'auto' | 'manual', start: FieldName, end: FieldName, what: string) => {
     if (mode !== 'manual') return;
     const blank = (f: FieldName) => s[f] === null || s[f] === undefined || Number.isNaN(s[f]);

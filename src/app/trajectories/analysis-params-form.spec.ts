@@ -30,9 +30,10 @@ describe('advanced analysis settings', () => {
     expect(params).not.toHaveProperty('constraints');
     expect(buildParams({ ...defaults, constraints: 0, temperatureK: 250 }).params).toMatchObject({ constraints: 0, temperatureK: 250 });
   });
-  it('when a frame range, stride and discard are given, then they are sent as the shared fields', () => {
+  it('when a frame range counted from 1 is given, then the API gets its 0-based start and exclusive end, with the stride and discard', () => {
     const { params } = buildParams({ ...defaults, fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
-    expect(analysisParamsSchema.parse(params)).toMatchObject({ fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 });
+    expect(analysisParamsSchema.parse(params)).toMatchObject({ fromFrame: 99, toFrame: 900, frameStride: 4, discardPs: 2.5 });
+    expect(analysisParamsSchema.parse(buildParams({ ...defaults, fromFrame: 1, toFrame: 1 }).params)).toMatchObject({ fromFrame: 0, toFrame: 1 });
   });
 });
 
@@ -45,6 +46,14 @@ describe('settings from a stored run', () => {
     const settings = settingsFromParams(stored, defaults);
     expect(settings).toEqual(expect.objectContaining({ fitMode: 'manual', fitStartPs: 2, fitEndPs: 12, gkMode: 'auto', pair: 'Ar–Kr', temperatureK: 120 }));
     expect(analysisParamsSchema.parse(buildParams(settings).params)).toEqual(stored);
+  });
+
+  it('when a run used a frame range, then the panel shows it counted from 1 and sends the same range back', () => {
+    const stored = analysisParamsSchema.parse({ fromFrame: 99, toFrame: 900, frameStride: 4, discardPs: 2.5 });
+    const settings = settingsFromParams(stored, defaults);
+    expect(settings).toEqual(expect.objectContaining({ fromFrame: 100, toFrame: 900, frameStride: 4, discardPs: 2.5 }));
+    expect(analysisParamsSchema.parse(buildParams(settings).params)).toEqual(stored);
+    expect(settingsFromParams(analysisParamsSchema.parse({}), defaults)).toEqual(expect.objectContaining({ fromFrame: null, toFrame: null, frameStride: null, discardPs: null }));
   });
 
   it('when the stored parameters do not parse, then the panel keeps its defaults', () => {
@@ -64,9 +73,19 @@ describe('problems under each advanced field', async () => {
     const problems = fieldProblems({ ...defaults, zeroPadFactor: 1.5, temperatureK: -3, binWidthA: 2, fromFrame: -1 });
     expect(problems).toEqual({
       zeroPadFactor: 'The zero padding must be a whole number.', temperatureK: 'The temperature must be above 0.',
-      binWidthA: 'The bin width must be at most 1 Å.', fromFrame: 'The first frame must be at least 0.',
+      binWidthA: 'The bin width must be at most 1 Å.', fromFrame: 'The first frame must be at least 1 (frames are counted from 1).',
     });
     for (const text of Object.values(problems)) expect(text).not.toMatch(/[a-z][A-Z]|:/);
+  });
+  it('when the range runs past a 400-frame trajectory or backwards, then the field says so counting from 1', () => {
+    expect(fieldProblems({ ...defaults, fromFrame: 401 }, 400)).toEqual({ fromFrame: "The first frame must be at most 400; this trajectory's frames are 1 to 400." });
+    expect(fieldProblems({ ...defaults, toFrame: 401 }, 400)).toEqual({ toFrame: "The last frame must be at most 400; this trajectory's frames are 1 to 400." });
+    expect(fieldProblems({ ...defaults, fromFrame: 0, toFrame: 0 }, 400)).toEqual({
+      fromFrame: "The first frame must be at least 1 (frames are counted from 1; this trajectory's frames are 1 to 400).",
+      toFrame: "The last frame must be at least 1 (frames are counted from 1; this trajectory's frames are 1 to 400).",
+    });
+    expect(fieldProblems({ ...defaults, fromFrame: 50, toFrame: 40 }, 400)).toEqual({ toFrame: 'The last frame must not come before the first (50).' });
+    expect(fieldProblems({ ...defaults, fromFrame: 1, toFrame: 400 }, 400)).toEqual({});
   });
   it('when everything is sendable, then no field has a problem', () => {
     expect(fieldProblems(defaults)).toEqual({});

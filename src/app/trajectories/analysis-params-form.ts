@@ -2,9 +2,14 @@ import { analysisParamsSchema, type AnalysisParamsInput, type SpectralWindow, ty
 
 /** The advanced panel's raw values: blanks are null, windows are split into mode and bounds. */
 export interface AdvancedSettings {
-  /** Frame range and stride; blanks mean from the start, to the end, and the automatic stride. */
+  /**
+   * Frame range as people count it, from 1 like the viewer and cut files: the first and the last frame used,
+   * both included. Blanks mean from the start and to the end. buildParams turns them into the API's 0-based,
+   * end-exclusive range, the one place the two counts meet.
+   */
   fromFrame: number | null;
   toFrame: number | null;
+  /** Blank means the automatic stride. */
   frameStride: number | null;
   /** Equilibration left out at the start of the range, ps. */
   discardPs: number | null;
@@ -57,7 +62,8 @@ export function buildParams(s: AdvancedSettings): { params: AnalysisParamsInput;
     binWidthA: s.binWidthA,
     sqWindow: s.sqWindow,
   };
-  if (given(s.fromFrame)) params.fromFrame = s.fromFrame;
+  // Frame n counted from 1 is index n − 1; the last frame n, included, is the exclusive end n.
+  if (given(s.fromFrame)) params.fromFrame = s.fromFrame - 1;
   if (given(s.toFrame)) params.toFrame = s.toFrame;
   if (given(s.frameStride)) params.frameStride = s.frameStride;
   if (given(s.discardPs) && s.discardPs > 0) params.discardPs = s.discardPs;
@@ -87,6 +93,8 @@ export function settingsFromParams(params: Record<string, unknown>, base: Advanc
   const gk = manual(p.greenKuboWindow);
   return {
     ...base,
+    fromFrame: p.fromFrame > 0 ? p.fromFrame + 1 : null, toFrame: number(p.toFrame), frameStride: number(p.frameStride),
+    discardPs: p.discardPs > 0 ? p.discardPs : null,
     species: p.species, maxLagPs: number(p.maxLagPs), removeComDrift: p.removeComDrift,
     fitMode: fit.mode, fitStartPs: fit.start, fitEndPs: fit.end, gkMode: gk.mode, gkStartPs: gk.start, gkEndPs: gk.end,
     window: p.window, zeroPadFactor: p.zeroPadFactor, temperatureK: number(p.temperatureK), degreesOfFreedom: number(p.degreesOfFreedom),

@@ -30,7 +30,7 @@ describe('which frames an analysis uses', () => {
     [{ fromFrame: 4000 }, /fromFrame 4000 is past the last frame \(the trajectory has 4000 frames/],
     [{ toFrame: 4001 }, /toFrame 4001 is past the end/],
     [{ fromFrame: 10, toFrame: 10 }, /toFrame \(10\) must be greater than fromFrame \(10\)/],
-    [{ discardPs: 40 }, /Discarding 40 ps \(4000 frames\) leaves no frames/],
+    [{ discardPs: 40 }, /Discarding 40 ps \(4000 frames\) leaves none of the 4000 frames chosen/],
     [{ toFrame: 3, frameStride: 2, fromFrame: 2 }, /leaves 1 frame; analyses need at least 2/],
   ])('when the selection is %j, then it is refused in words that say what to change', (input, message) => {
     const s = selectFrames(4000, 0.01, input);
