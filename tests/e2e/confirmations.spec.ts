@@ -88,7 +88,7 @@ test.describe('confirmation before changes that are hard to undo', () => {
     await expect(row).toContainText('Admin');
   });
 
-  test('when an owner leaves a project, then they are asked first, and after leaving they are back at their projects without it', async ({ page, context, browser }) => {
+  test('when the only owner would leave, then Leave is disabled and says why; when an owner leaves a project, then they are asked first, and after leaving they are back at their projects without it', async ({ page, context, browser }) => {
     const partner = uniqueUser('Coowner');
     const partnerContext = await browser.newContext();
     try {
@@ -104,8 +104,15 @@ test.describe('confirmation before changes that are hard to undo', () => {
     const made = await context.request.post('/api/projects', { data: { name: 'Larkspur glass transition' }, headers: { 'X-XSRF-TOKEN': token } });
     expect(made.status(), await made.text()).toBe(201);
     const projectId = ((await made.json()) as { project: { id: number } }).project.id;
-    await addProjectOwner(projectId, partner.email);
 
+    // The only owner is not offered a leave the server would refuse, and is told why.
+    await page.goto(`/projects/${projectId}/settings`);
+    const alone = page.getByRole('button', { name: 'Leave this project' });
+    await expect(alone).toBeDisabled();
+    await expect(alone).toHaveAccessibleDescription('You are the only owner. Make another member an owner first, or delete the project.');
+    await screens(page, 'leave-project-only-owner');
+
+    await addProjectOwner(projectId, partner.email);
     await page.goto(`/projects/${projectId}/settings`);
     const members = page.getByRole('table', { name: 'Project members' });
     await expect(members).toContainText(partner.name);

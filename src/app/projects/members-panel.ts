@@ -15,6 +15,7 @@ import { memberSchema, PROJECT_ROLES, type Member, type ProjectRole } from '../.
 import { unwrapList } from '../core/api-envelope';
 import { ROLE_MEANING } from './role-meaning';
 import { ProjectsApi } from './projects-api';
+import { leaveBlockedReason } from './leave-rule';
 
 /** Who is in the project; owners change roles and remove people here. */
 @Component({
@@ -53,7 +54,12 @@ import { ProjectsApi } from './projects-api';
           <th mat-header-cell *matHeaderCellDef><span class="visually-hidden">Actions</span></th>
           <td mat-cell *matCellDef="let m">
             @if (m.userId === auth.user()?.id) {
-              <button mat-button type="button" (click)="remove(m)" aria-label="Leave this project">Leave</button>
+              @if (leaveBlocked(); as why) {
+                <button mat-button type="button" disabled aria-label="Leave this project" aria-describedby="leave-blocked">Leave</button>
+                <span id="leave-blocked" class="muted leave-hint">{{ why }}</span>
+              } @else {
+                <button mat-button type="button" (click)="remove(m)" aria-label="Leave this project">Leave</button>
+              }
             } @else {
               <button mat-button type="button" (click)="remove(m)" [attr.aria-label]="'Remove ' + m.displayName">Remove</button>
             }
@@ -64,7 +70,7 @@ import { ProjectsApi } from './projects-api';
       </table>
     }
   `,
-  styles: `mat-select { max-width: 140px; }`,
+  styles: `mat-select { max-width: 140px; } .leave-hint { display: block; max-width: 220px; font-size: 0.85em; }`,
 })
 export class MembersPanel {
   private readonly api = inject(ProjectsApi);
@@ -83,6 +89,8 @@ export class MembersPanel {
   protected readonly rows = computed(() => this.members.value() ?? []);
   protected readonly columns = computed(() => (this.canManage() ? ['name', 'role', 'joined', 'actions'] : ['name', 'role', 'joined']));
   protected readonly error = signal('');
+  /** Why the signed-in owner may not leave (they are the only owner), or null. */
+  protected readonly leaveBlocked = computed(() => leaveBlockedReason(this.rows(), this.auth.user()?.id));
 
   protected loadError(): string {
     return apiErrorMessage(this.members.error(), 'The members could not be loaded.');
