@@ -88,8 +88,10 @@ test.describe('analysis runs', () => {
     await dialog.getByLabel('Stride').fill('2');
     // Frames are counted from 1 here, as in the viewer: 0 is refused, 1 to 400 is the whole run.
     await dialog.getByLabel('From frame').fill('0');
+    await dialog.getByLabel('From frame').blur();
     await expect(dialog.getByText('The first frame must be at least 1 (frames are counted from 1; this trajectory\'s frames are 1 to 400).')).toBeVisible();
     await dialog.getByLabel('To frame (included)').fill('401');
+    await dialog.getByLabel('To frame (included)').blur();
     await expect(dialog.getByText('The last frame must be at most 400; this trajectory\'s frames are 1 to 400.')).toBeVisible();
     await dialog.getByLabel('From frame').fill('1');
     await dialog.getByLabel('To frame (included)').fill('400');
