@@ -69,7 +69,7 @@ test.describe('state-point series', () => {
     });
 
     await test.step('the Arrhenius fit gives E_a with its error in kJ/mol and eV, and melting is bracketed with its caution', async () => {
-      await expect(page.getByLabel('Activation energy')).toHaveText(/E\s*a = \d+(\.\d+)? ± \d+(\.\d+)? kJ\/mol = \d+(\.\d+)? ± \d+(\.\d+)? eV/);
+      await expect(page.getByLabel('Activation energy', { exact: true })).toHaveText(/E\s*a = \d+(\.\d+)? ± \d+(\.\d+)? kJ\/mol = \d+(\.\d+)? ± \d+(\.\d+)? eV/);
       const melting = page.getByRole('region', { name: 'Melting bracket' });
       await expect(page.getByLabel('Melting bracket, Whole series')).toHaveText(/\d+(\.\d+)? K < T < \d+(\.\d+)? K/);
       await expect(melting).toContainText('argon-040K.extxyz is solid; argon-090K.extxyz is liquid.');
@@ -116,7 +116,7 @@ test.describe('state-point series', () => {
         await expect(guest.getByRole('heading', { level: 1, name: 'Argon heating study' })).toBeVisible();
         await expect(guest.getByRole('note').filter({ hasText: 'read only through an access link' })).toBeVisible();
         await expect(guest.getByRole('table', { name: 'Members' }).getByRole('row', { name: /^1 argon-040K\.extxyz / }).getByText('solid', { exact: true })).toBeVisible();
-        await expect(guest.getByLabel('Activation energy')).toContainText('kJ/mol');
+        await expect(guest.getByLabel('Activation energy', { exact: true })).toContainText('kJ/mol');
         await expect(guest.getByRole('img', { name: /g\(r\) against distance|Radial distribution function against distance/ })).toBeVisible();
         await expect(guest.getByRole('button', { name: 'Share' })).toHaveCount(0);
         await expect(guest.getByRole('button', { name: 'Add members' })).toHaveCount(0);
