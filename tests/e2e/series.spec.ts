@@ -77,7 +77,7 @@ test.describe('state-point series', () => {
     });
 
     await test.step('the charts draw, coloured by temperature, and a chart downloads as CSV with units in its header', async () => {
-      await expect(page.getByRole('img', { name: /MSD against lag time on log–log axes, one line per member/ })).toBeVisible();
+      await expect(page.getByRole('img', { name: /Mean-square displacement against lag time on log–log axes, one line per member/ })).toBeVisible();
       await expect(page.getByRole('img', { name: /weighted Arrhenius fit/ })).toBeVisible();
       const downloading = page.waitForEvent('download');
       await page.getByRole('button', { name: 'Download Diffusion coefficient D(T) data as CSV' }).click();
