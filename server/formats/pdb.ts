@@ -6,7 +6,8 @@
  */
 import { TrajectoryFormatError, type Cell } from './frame.ts';
 import { isBlank, type LineReader } from './line-reader.ts';
-import { parseNumberBytes, parseNumberText } from './number-bytes.ts';
+import { parseNumberText } from './number-bytes.ts';
+import { parseColumnNumber } from './column-number.ts';
 import { cellFromParameters } from './cell-parameters.ts';
 import type { TextFrame, TextReadContext } from './text-frame.ts';
 
@@ -14,15 +15,14 @@ import type { TextFrame, TextReadContext } from './text-frame.ts';
 const RECORD = (buf: Buffer, start: number, end: number): string =>
   buf.toString('latin1', start, Math.min(end, start + 6)).trimEnd().toUpperCase();
 
-/** True when the record name (any case, as RECORD reads it) is ATOM or HETATM, read from the bytes without making a string. */
+/**
+ * True when the record name (any case, as RECORD reads it) is ATOM or HETATM, read from the bytes without making a string.
+ * No closures here or in the other per-line functions: the TypeScript loader names every closure it creates, which costs a property definition each time.
+ */
 function isAtomRecord(buf: Buffer, start: number, end: number): boolean {
   if (end - start < 4) return false;
   const c0 = buf[start] | 32, c1 = buf[start + 1] | 32, c2 = buf[start + 2] | 32, c3 = buf[start + 3] | 32;
-  const blankFrom = (k: number) => {
-    for (let i = start + k; i < Math.min(end, start + 6); i++) if (buf[i] !== 32 && buf[i] !== 9) return false;
-    return true;
-  };
-  if (c0 === 97 && c1 === 116 && c2 === 111 && c3 === 109) return blankFrom(4); // atom
+  if (c0 === 97 && c1 === 116 && c2 === 111 && c3 === 109) return isBlank(buf, start + 4, Math.min(end, start + 6)); // atom
   return end - start >= 6 && c0 === 104 && c1 === 101 && c2 === 116 && c3 === 97 && (buf[start + 4] | 32) === 116 && (buf[start + 5] | 32) === 109; // hetatm
 }
 
@@ -42,21 +42,27 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
   let nAtoms = -1;
   let cell: Cell | null = null;
   let positions = new Float64Array(3 * 1024);
-  let species: string[] = [];
-  // The previous frame's element columns and symbol of each atom: most frames repeat them.
+  /** Atom lines of the current frame so far. */
+  let atoms = 0;
+  // The last parsed frame's element columns and symbol of each atom: most frames repeat them.
   let seenNames = new Uint8Array(NAME_BYTES * 1024);
   const seenSpecies: string[] = [];
+  /** Set when an atom's symbol differs from the last parsed frame's, so the frame needs a species array of its own. */
+  const changed = { species: false };
   let frameStart = -1;
   let frameLine: number | undefined;
   let lastSpecies: string[] | null = null;
   let sawAtoms = false;
+  // Whether frame `wantedIndex` is to be parsed, asked once per frame rather than per atom line.
+  let wantedIndex = -1;
+  let wanted = true;
 
   const finish = (): TextFrame | null => {
-    if (frameStart < 0 || species.length === 0) {
+    if (frameStart < 0 || atoms === 0) {
       frameStart = -1;
       return null;
     }
-    const n = species.length;
+    const n = atoms;
     if (nAtoms >= 0 && n !== nAtoms) {
       throw new TrajectoryFormatError(
         `frame ${index + 1} has ${n} atoms but earlier frames have ${nAtoms}: the atom count must not change`,
@@ -64,17 +70,17 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
       );
     }
     nAtoms = n;
-    const same = lastSpecies !== null && lastSpecies.every((s, k) => s === species[k]);
-    if (!same) lastSpecies = species;
+    if (wanted && (changed.species || lastSpecies === null)) lastSpecies = seenSpecies.slice(0, n);
+    changed.species = false;
     const frame: TextFrame = {
       index,
       positions: positions.slice(0, 3 * n),
-      species: lastSpecies!,
+      species: lastSpecies ?? [],
       cell,
       byteOffset: frameStart,
     };
     if (cell) frame.pbc = [true, true, true];
-    species = [];
+    atoms = 0;
     frameStart = -1;
     index++;
     return frame;
@@ -85,31 +91,33 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
     while (lines.next() || (await lines.nextLine())) {
       const { buf, start, end } = lines;
       if (isBlank(buf, start, end)) continue;
-      const atom = isAtomRecord(buf, start, end);
-      const record = atom ? '' : RECORD(buf, start, end);
-      if (atom) {
+      if (isAtomRecord(buf, start, end)) {
         sawAtoms = true;
         if (frameStart < 0) {
           frameStart = lines.lineOffset;
           frameLine = lines.line;
         }
-        if (ctx.wants && !ctx.wants(index)) {
-          species.push('');
-          continue;
+        if (wantedIndex !== index) {
+          wantedIndex = index;
+          wanted = !ctx.wants || ctx.wants(index);
         }
-        const k = species.length;
+        const k = atoms++;
+        if (!wanted) continue;
         if (3 * k + 3 > positions.length) positions = grown(positions, 2 * positions.length);
         if (NAME_BYTES * (k + 1) > seenNames.length) seenNames = grown(seenNames, 2 * seenNames.length);
         readAtom(lines, ctx, index, positions, 3 * k);
-        species.push(speciesOf(lines, file, index, seenNames, NAME_BYTES * k, seenSpecies, k));
-        if (species.length > ctx.limits.maxAtoms) {
+        readSpecies(lines, file, index, seenNames, seenSpecies, k, changed);
+        if (atoms > ctx.limits.maxAtoms) {
           throw new TrajectoryFormatError(`frame has more than the limit of ${ctx.limits.maxAtoms} atoms`, {
             file,
             frame: index,
             line: lines.line,
           });
         }
-      } else if (record === 'MODEL') {
+        continue;
+      }
+      const record = RECORD(buf, start, end);
+      if (record === 'MODEL') {
         const frame = finish();
         if (frame && (!ctx.wants || ctx.wants(frame.index))) yield frame;
         frameStart = lines.lineOffset;
@@ -139,6 +147,7 @@ function field(buf: Buffer, start: number, end: number, [from, to]: readonly [nu
   return [s, e];
 }
 
+/** x, y, z from columns 31–38, 39–46 and 47–54. */
 function readAtom(lines: LineReader, ctx: TextReadContext, index: number, positions: Float64Array, at: number): void {
   const { buf, start, end } = lines;
   if (end - start < Z_COLUMNS[1]) {
@@ -147,30 +156,42 @@ function readAtom(lines: LineReader, ctx: TextReadContext, index: number, positi
       { file: ctx.file, frame: index, line: lines.line },
     );
   }
-  positions[at] = coordinate(lines, ctx, index, X_COLUMNS, 0);
-  positions[at + 1] = coordinate(lines, ctx, index, Y_COLUMNS, 1);
-  positions[at + 2] = coordinate(lines, ctx, index, Z_COLUMNS, 2);
+  const x = parseColumnNumber(buf, start + X_COLUMNS[0], start + X_COLUMNS[1]);
+  const y = parseColumnNumber(buf, start + Y_COLUMNS[0], start + Y_COLUMNS[1]);
+  const z = parseColumnNumber(buf, start + Z_COLUMNS[0], start + Z_COLUMNS[1]);
+  // NaN unless all three are finite.
+  if (x - x + (y - y) + (z - z) !== 0) throw coordinateError(lines, ctx, index, [x, y, z]);
+  positions[at] = x;
+  positions[at + 1] = y;
+  positions[at + 2] = z;
 }
 
-function coordinate(lines: LineReader, ctx: TextReadContext, index: number, columns: readonly [number, number], axis: number): number {
-  const { buf, start, end } = lines;
-  let s = start + columns[0];
-  let e = Math.min(end, start + columns[1]);
-  while (s < e && (buf[s] === 32 || buf[s] === 9)) s++;
-  while (e > s && (buf[e - 1] === 32 || buf[e - 1] === 9)) e--;
-  const value = s < e ? parseNumberBytes(buf, s, e) : NaN;
-  if (value - value !== 0) {
-    throw new TrajectoryFormatError(
-      `${'xyz'[axis]} in columns ${columns[0] + 1}–${columns[1]} is "${buf.toString('latin1', s, e)}", not a finite number`,
-      { file: ctx.file, frame: index, line: lines.line },
-    );
-  }
-  return value;
+/** Names the first coordinate that is not a finite number; only runs on failure. */
+function coordinateError(lines: LineReader, ctx: TextReadContext, index: number, values: number[]): TrajectoryFormatError {
+  const axis = values.findIndex((v) => !Number.isFinite(v));
+  const columns = [X_COLUMNS, Y_COLUMNS, Z_COLUMNS][axis];
+  const [s, e] = field(lines.buf, lines.start, lines.end, columns);
+  return new TrajectoryFormatError(
+    `${'xyz'[axis]} in columns ${columns[0] + 1}–${columns[1]} is "${lines.buf.toString('latin1', s, e)}", not a finite number`,
+    { file: ctx.file, frame: index, line: lines.line },
+  );
 }
 
-/** The atom's element: the previous frame's symbol when its name and element columns are byte for byte the same, else read afresh. */
-function speciesOf(lines: LineReader, file: string, index: number, seen: Uint8Array, at: number, seenSpecies: string[], k: number): string {
+/**
+ * Atom k's element into seenSpecies[k]: kept when its name and element columns are byte for byte the last parsed
+ * frame's, else read afresh, flagging `changed` when the symbol differs.
+ */
+function readSpecies(
+  lines: LineReader,
+  file: string,
+  index: number,
+  seen: Uint8Array,
+  seenSpecies: string[],
+  k: number,
+  changed: { species: boolean },
+): void {
   const { buf, start, end } = lines;
+  const at = NAME_BYTES * k;
   let same = seenSpecies[k] !== undefined;
   for (let j = 0; j < NAME_BYTES; j++) {
     const col = j < 4 ? start + NAME_COLUMNS[0] + j : start + ELEMENT_COLUMNS[0] + j - 4;
@@ -180,10 +201,10 @@ function speciesOf(lines: LineReader, file: string, index: number, seen: Uint8Ar
       seen[at + j] = byte;
     }
   }
-  if (same) return seenSpecies[k]!;
+  if (same) return;
   const symbol = elementOf(buf, start, end, { file, frame: index, line: lines.line });
+  if (symbol !== seenSpecies[k]) changed.species = true;
   seenSpecies[k] = symbol;
-  return symbol;
 }
 
 function grown<T extends Float64Array | Uint8Array>(array: T, length: number): T {

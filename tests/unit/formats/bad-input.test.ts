@@ -199,6 +199,16 @@ describe('PDB records', () => {
     expect(await inspect(bytes(text), 'text.pdb')).toMatch(/^text\.pdb, frame 2, line 5: x in columns 31–38 is "x\.yz", not a finite number/);
   });
 
+  it('when only the z column fails, then it is the one named, with its columns', async () => {
+    const text = `${atom(1, 'O', '   0.000', '   1.000', '  1.2.3 ')}\nEND\n`;
+    expect(await inspect(bytes(text), 'zed.pdb')).toMatch(/^zed\.pdb, frame 1, line 1: z in columns 47–54 is "1\.2\.3", not a finite number/);
+  });
+
+  it('when a coordinate overflows to infinity, then it is refused as not finite', async () => {
+    const text = `MODEL        1\n${atom(1, 'O', '   0.000', ' 9e999  ')}\nENDMDL\n`;
+    expect(await inspect(bytes(text), 'huge.pdb')).toMatch(/^huge\.pdb, frame 1, line 2: y in columns 39–46 is "9e999", not a finite number/);
+  });
+
   it('when models have different atom counts, then it names the model that differs', async () => {
     const text = `MODEL        1\n${atom(1, 'O', '   0.000')}\n${atom(2, 'H', '   1.000')}\nENDMDL\nMODEL        2\n${atom(1, 'O', '   0.000')}\nENDMDL\n`;
     expect(await inspect(bytes(text), 'models.pdb')).toMatch(/^models\.pdb, frame 2, line 5: frame 2 has 1 atoms but earlier frames have 2/);

@@ -162,6 +162,28 @@ describe('PDB', () => {
     expect(frames.map((f) => Array.from(f.positions))).toEqual([[1, 2, 3], [4, 5, 6]]);
   });
 
+  it('when coordinates fill their columns with no blank between them, then each is read from its own columns, sign included', async () => {
+    const line = `ATOM      1  O   HOH A   1    -999.999-888.888-777.777  1.00  0.00           O`;
+    const [frame] = await readAll(bytes(`${line}\nEND\n`), 'wide.pdb');
+    expect(Array.from(frame.positions)).toEqual([-999.999, -888.888, -777.777]);
+  });
+
+  it('when an atom changes element between models, then each frame reports its own species, also when frames in between are skipped', async () => {
+    const models = (elements: string[][]) =>
+      elements.map((model, m) => `MODEL     ${String(m + 1).padStart(4)}\n${model.map((el, a) => atom('ATOM', ` ${el}  `, m, a, 0, el)).join('\n')}\nENDMDL\n`).join('');
+    const text = models([['O', 'H'], ['O', 'H'], ['N', 'H'], ['N', 'H']]);
+    expect((await readAll(bytes(text), 'swap.pdb')).map((f) => f.species)).toEqual([['O', 'H'], ['O', 'H'], ['N', 'H'], ['N', 'H']]);
+    const strided = await readAll(bytes(text), 'swap.pdb', { wants: (i) => i % 2 === 1 });
+    expect(strided.map((f) => [f.index, f.species])).toEqual([[1, ['O', 'H']], [3, ['N', 'H']]]);
+  });
+
+  it('when the atom name changes between models but the element does not, then the species stay the same', async () => {
+    const text = `MODEL        1\n${atom('ATOM', ' CA ', 0, 0, 0)}\nENDMDL\nMODEL        2\n${atom('ATOM', ' CB ', 1, 1, 1)}\nENDMDL\n`;
+    const frames = await readAll(bytes(text), 'rename.pdb');
+    expect(frames.map((f) => f.species)).toEqual([['C'], ['C']]);
+    expect(Array.from(frames[1].positions)).toEqual([1, 1, 1]);
+  });
+
   it('when lines end in CR LF and TER and CONECT records are present, then only atoms are read', async () => {
     const text = `MODEL        1\r\n${atom('ATOM', ' N  ', 1, 2, 3, 'N')}\r\nTER\r\nCONECT    1    2\r\nENDMDL\r\n`;
     const [frame] = await readAll(bytes(text), 'crlf.pdb');
