@@ -193,6 +193,21 @@ function readSpecies(
   const { buf, start, end } = lines;
   const at = NAME_BYTES * k;
   let same = seenSpecies[k] !== undefined;
+  // The usual case, a full-length record that repeats the last frame's columns, in six plain comparisons.
+  const name = start + NAME_COLUMNS[0];
+  const element = start + ELEMENT_COLUMNS[0];
+  if (
+    same &&
+    end - start >= ELEMENT_COLUMNS[1] &&
+    seen[at] === buf[name] &&
+    seen[at + 1] === buf[name + 1] &&
+    seen[at + 2] === buf[name + 2] &&
+    seen[at + 3] === buf[name + 3] &&
+    seen[at + 4] === buf[element] &&
+    seen[at + 5] === buf[element + 1]
+  ) {
+    return;
+  }
   for (let j = 0; j < NAME_BYTES; j++) {
     const col = j < 4 ? start + NAME_COLUMNS[0] + j : start + ELEMENT_COLUMNS[0] + j - 4;
     const byte = col < end ? buf[col] : 0;
