@@ -40,8 +40,15 @@ const configSchema = z.object({
    * system's temp folder.
    */
   JOB_TEMP_DIR: z.string().min(1).optional(),
-  /** Most bytes one job may write to its temp folder; counted with the decompressed size. */
+  /** Most bytes one temporary copy may take (an H5MD inside gzip or zip, decompressed); counted with the decompressed size. */
   JOB_TEMP_MAX_BYTES: bytes.default(4 * 1024 ** 3),
+  /**
+   * Disk each process (web server, job worker) may fill with local copies of
+   * H5MD uploads read after inspection (uploads inspected before the frame
+   * store existed), kept in JOB_TEMP_DIR so a later request or job reads
+   * the copy instead of downloading again; least recently used out first.
+   */
+  H5MD_COPY_CACHE_BYTES: bytes.default(4 * 1024 ** 3),
   /**
    * Where jobs run: `process` starts a worker as a child process of the web
    * server (a crash or out-of-memory in a job cannot take the API down),

@@ -27,6 +27,8 @@ export interface H5mdReadOptions {
   wants?: (index: number) => boolean;
   /** First frame to consider. */
   firstIndex?: number;
+  /** Bytes of positions (as float64) read per block of frames; default 8 MiB. */
+  blockBytes?: number;
 }
 
 /** Position blocks are read about this size at a time. */
@@ -70,7 +72,8 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
     }
     const { frames, atoms } = layout;
     const valuesPerFrame = atoms * 3;
-    const block = Math.max(1, Math.floor(BLOCK_BYTES / (valuesPerFrame * 8)));
+    // Each block is one hyperslab of whole frames, so memory follows the block, not the file.
+    const block = Math.max(1, Math.floor((options.blockBytes ?? BLOCK_BYTES) / (valuesPerFrame * 8)));
     const wants = options.wants ?? (() => true);
     for (let t = options.firstIndex ?? 0; t < frames; ) {
       if (!wants(t)) {

@@ -22,22 +22,30 @@ export async function spoolToTempFile(source: AsyncIterable<Buffer>, limits: Res
   const remove = () => rm(dir, { recursive: true, force: true });
   const path = join(dir, 'trajectory.h5');
   try {
-    const handle = await open(path, 'wx', 0o600);
-    try {
-      let written = 0;
-      for await (const chunk of source) {
-        written += chunk.length;
-        if (written > limits.maxTempFileBytes || written > limits.maxDecompressedBytes) throw tooLarge(written, limits, file);
-        await handle.write(chunk);
-      }
-    } finally {
-      await handle.close();
-    }
+    await spoolTo(path, source, limits, file);
   } catch (error) {
     await remove();
     throw error;
   }
   return { path, remove };
+}
+
+/**
+ * Writes a stream to a new file at `path` under the same bounds; a file
+ * left half-written by a refusal or a failed read is the caller's to remove.
+ */
+export async function spoolTo(path: string, source: AsyncIterable<Buffer>, limits: ResolvedLimits, file: string): Promise<void> {
+  const handle = await open(path, 'wx', 0o600);
+  try {
+    let written = 0;
+    for await (const chunk of source) {
+      written += chunk.length;
+      if (written > limits.maxTempFileBytes || written > limits.maxDecompressedBytes) throw tooLarge(written, limits, file);
+      await handle.write(chunk);
+    }
+  } finally {
+    await handle.close();
+  }
 }
 
 /** Names the limit that was reached, in bytes and as people read them, and the setting that raises it. */

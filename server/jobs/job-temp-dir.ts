@@ -9,7 +9,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
 const PREFIX = 'ergodic-job-';
-const OWNED = /^ergodic-job-(\d+)-/;
+/** Job folders and a process's local copies (services/local-copies.ts) carry the owning process's id. */
+const OWNED = /^ergodic-(?:job|copies)-(\d+)(?:-|$)/;
 
 /** Where job temp folders go: the configured folder, else the system's temp folder. */
 export function jobTempRoot(configured: string | undefined): string {
@@ -37,7 +38,7 @@ function running(pid: number): boolean {
   }
 }
 
-/** Removes the temp folders of jobs whose process no longer runs; returns how many went. */
+/** Removes the temp folders of jobs (and local copies) whose process no longer runs; returns how many went. */
 export async function removeOrphanedJobTempDirs(root: string): Promise<number> {
   let names: string[];
   try {

@@ -9,6 +9,7 @@ import type { ProcessorThreadData } from './processor.ts';
 import { QUEUE_NAME } from './queue.ts';
 import { jobTempRoot, removeOrphanedJobTempDirs } from './job-temp-dir.ts';
 import { requeueStranded } from './requeue-stranded.ts';
+import { removeLocalCopiesOnExit } from '../services/local-copies.ts';
 
 export interface RunningWorker {
   worker: Worker;
@@ -33,6 +34,8 @@ export async function startWorker(config: Config, log: Logger, shared?: AppConte
   // Temp folders of jobs whose process died (a crash cannot clean up after itself).
   const orphans = await removeOrphanedJobTempDirs(jobTempRoot(config.JOB_TEMP_DIR));
   if (orphans) log.info({ orphans }, 'removed temp folders of jobs whose process had ended');
+  // The job threads keep local copies in this process's folder; it goes when the process does.
+  removeLocalCopiesOnExit(config);
   const connection = redisConnection(config.REDIS_URL);
   const threadData: ProcessorThreadData = { config };
   const worker = new Worker(QUEUE_NAME, processorFile, {

@@ -11,6 +11,11 @@ import { readFrames, type FrameRange, type SeekableSource } from '../formats/rea
 import { openFrameStore, type FrameStore } from '../frame-store/reader.ts';
 import { ChunkCache } from '../frame-store/chunk-cache.ts';
 import { readerLimits } from './reader-limits.ts';
+import { localCopies } from './local-copies.ts';
+import { decodedBytes } from '../formats/decoded.ts';
+import { resolveLimits } from '../formats/limits.ts';
+import { spoolTo } from '../formats/spool.ts';
+import type { LocalCopy } from '../storage/local-copy-cache.ts';
 
 /** A stored trajectory object as a source the readers can open at any byte offset. */
 export function storedSource(ctx: AppContext, row: TrajectoryRow): SeekableSource {
@@ -80,7 +85,8 @@ export function viewerFrameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise
 /**
  * Frames of a range in file order, in the file's units. From the frame
  * store no text is parsed, and positions and velocities are views into
- * their chunk (keeping a frame keeps its chunk's memory).
+ * their chunk (keeping a frame keeps its chunk's memory). An older H5MD
+ * upload is read from this process's local copy, by blocks of frames.
  */
 export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: FrameRange = {}, tempDir?: string): AsyncGenerator<Frame> {
   const store = frameStoreOf(ctx, row);
@@ -88,9 +94,31 @@ export async function* storedFrames(ctx: AppContext, row: TrajectoryRow, range: 
     yield* (await store).frames(range);
     return;
   }
+  const limits = { ...readerLimits(ctx.config, tempDir), name: row.name };
+  if (row.format === 'h5md') {
+    const copy = await localH5mdCopy(ctx, row);
+    try {
+      yield* readFrames(copy.path, range, undefined, limits);
+    } finally {
+      await copy.release();
+    }
+    return;
+  }
   const index = await loadFrameIndex(ctx, row);
   yield* readFrames(storedSource(ctx, row), range, index?.offsets, {
-    ...readerLimits(ctx.config, tempDir), name: row.name, totalBytes: row.sizeBytes,
-    format: index?.format, compression: index?.compression,
+    ...limits, totalBytes: row.sizeBytes, format: index?.format, compression: index?.compression,
+  });
+}
+
+/**
+ * The H5MD file of an upload on local disk (HDF5 needs random access),
+ * decompressed: downloaded once per process and kept for later requests
+ * and jobs, each copy held to JOB_TEMP_MAX_BYTES.
+ */
+export function localH5mdCopy(ctx: AppContext, row: TrajectoryRow): Promise<LocalCopy> {
+  return localCopies(ctx.config).acquire(row.objectKey, async (path) => {
+    const limits = resolveLimits(readerLimits(ctx.config));
+    const decoded = await decodedBytes(await ctx.store.getStream(row.objectKey), row.name, limits);
+    await spoolTo(path, decoded.bytes, limits, decoded.file());
   });
 }

@@ -1,4 +1,5 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { localCopies } from './local-copies.ts';
 import { confirmedElement, speciesElementsOf, type SpeciesElement, type TrajectoryDto, type TrajectoryMetadata } from '../../shared/trajectory.ts';
 import { AppError } from '../errors.ts';
 import type { AppContext } from '../context.ts';
@@ -203,6 +204,8 @@ export async function deleteTrajectory(ctx: AppContext, id: number): Promise<voi
   await ctx.store.deletePrefix(prefix);
   await ctx.db.delete(trajectories).where(eq(trajectories.id, id));
   await ctx.store.deletePrefix(prefix);
+  // This process's local copy goes now; another process's goes when its cache needs the room.
+  await localCopies(ctx.config).drop(row.objectKey);
   await touchProject(ctx, row.projectId);
 }
 
