@@ -5,11 +5,13 @@ import { redisConnection } from './connection.ts';
 /** One queue carries both kinds of work so one pool of workers serves them. */
 export const QUEUE_NAME = 'ergodic-work';
 
-export type JobName = 'inspect' | 'analyse';
+export type JobName = 'inspect' | 'analyse' | 'store-frames';
 
 export interface InspectJobData { trajectoryId: number }
 export interface AnalyseJobData { runId: number }
-export type JobData = InspectJobData | AnalyseJobData;
+/** The binary frame store of a trajectory inspected before the store existed. */
+export interface StoreFramesJobData { trajectoryId: number }
+export type JobData = InspectJobData | AnalyseJobData | StoreFramesJobData;
 
 export const DEFAULT_JOB_OPTIONS: JobsOptions = {
   attempts: 3,

@@ -21,6 +21,23 @@ function clampRange(row: TrajectoryRow, range: Required<FrameRange>): Required<F
   return { from: range.from, to: Math.min(range.to, frames), stride: range.stride };
 }
 
+/** Trajectories whose store this process has asked for: one queue request each, not one per chunk. */
+const storesAskedFor = new Set<number>();
+
+/**
+ * Queues the store of a trajectory inspected before the store existed
+ * (a job id already queued or kept is not added again); never fails the
+ * request that asked.
+ */
+function queueFrameStore(ctx: AppContext, trajectoryId: number): void {
+  if (storesAskedFor.has(trajectoryId)) return;
+  storesAskedFor.add(trajectoryId);
+  ctx.queue.add('store-frames', { trajectoryId }, `store-frames-${trajectoryId}`).catch((err: Error) => {
+    storesAskedFor.delete(trajectoryId);
+    ctx.log.warn({ trajectoryId, err: err.message }, 'could not queue the frame store of an older trajectory');
+  });
+}
+
 /** A chunk of frames for the viewer, positions in Å; long requests are cut to a size the browser can take. */
 export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): Promise<Buffer> {
   assertReady(row);
@@ -36,6 +53,9 @@ export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested
     const { atoms, speciesNames, speciesIndex } = opened.index;
     return encodeFramesPayload({ atoms, speciesNames, speciesIndex, frames, positions }, toAngstrom);
   }
+  // Inspected before the store existed: the store is written once in the background, and until then
+  // the file is read (a compressed one from its first byte for every chunk).
+  queueFrameStore(ctx, row.id);
   const frames: Frame[] = [];
   for await (const frame of storedFrames(ctx, row, { ...range, to })) frames.push(frame);
   return encodeFrames(frames, toAngstrom);

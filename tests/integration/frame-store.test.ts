@@ -1,3 +1,4 @@
+import { gzipSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { trajectories } from '../../server/db/schema/index.ts';
@@ -31,6 +32,21 @@ async function analyse(trajectoryId: number, analyses: string[]) {
   const started = await owner.client.post(`/api/trajectories/${trajectoryId}/analyses`, { analyses });
   expect(started.status, JSON.stringify(started.body)).toBe(202);
   return (await pollUntil(() => owner.client.get(`/api/jobs/${started.body.job.id}`), (r) => ['done', 'failed'].includes(r.body.job.status), 120_000)).body.job;
+}
+
+/** A chunk of frames as the viewer gets it: the frame numbers and the positions, in Å. */
+async function viewerFrames(id: number, query: string): Promise<{ status: number; indices: number[]; positions: Float32Array }> {
+  const res = await owner.client.raw('get', `/api/trajectories/${id}/frames?${query}`).buffer(true).parse((r, done) => {
+    const chunks: Buffer[] = [];
+    r.on('data', (c: Buffer) => chunks.push(c));
+    r.on('end', () => done(null, Buffer.concat(chunks)));
+  });
+  if (res.status !== 200) return { status: res.status, indices: [], positions: new Float32Array() };
+  const body = res.body as Buffer;
+  const headerLength = body.readUInt32LE(0);
+  const header = JSON.parse(body.subarray(4, 4 + headerLength).toString('utf8'));
+  const positions = new Float32Array(body.buffer.slice(body.byteOffset + 4 + headerLength, body.byteOffset + body.length));
+  return { status: res.status, indices: header.frames.map((f: { index: number }) => f.index), positions };
 }
 
 beforeAll(async () => {
@@ -110,6 +126,34 @@ describe('the binary frame store written at inspection', () => {
     expect(failed.frameStoreKey).toBeNull();
     // Chunks of the 40 good frames were stored before the bad line was reached, and removed again.
     expect(await ctx.store.listKeys(frameStorePrefixFor(failed.objectKey))).toEqual([]);
+  });
+
+  it('when a compressed trajectory inspected before the store existed is viewed, then it is shown from the file and its store is written once in the background for later views', async () => {
+    const id = await uploadReady(gzipSync(liquid.bytes), 'older.extxyz.gz');
+    // As an upload from before the store: no store objects and no key.
+    const inspected = await rowOf(id);
+    await ctx.store.deletePrefix(frameStorePrefixFor(inspected.objectKey));
+    await ctx.db.update(trajectories).set({ frameStoreKey: null, frameStoreBytes: 0 }).where(eq(trajectories.id, id));
+
+    const t = liquid.run.trajectory;
+    const perFrame = t.nAtoms * 3;
+    const expectFrames = (got: Awaited<ReturnType<typeof viewerFrames>>, indices: number[]) => {
+      expect([got.status, got.indices]).toEqual([200, indices]);
+      indices.forEach((frame, k) => expect(got.positions[k * perFrame + 4]).toBeCloseTo(t.positions[frame * perFrame + 4]!, 4));
+    };
+    expectFrames(await viewerFrames(id, 'from=2&to=9&stride=3'), [2, 5, 8]);
+
+    const stored = await pollUntil(() => rowOf(id), (r) => r.frameStoreKey !== null, 60_000);
+    expect(stored.frameStoreKey).toBe(`${frameStorePrefixFor(stored.objectKey)}index.json`);
+    let bytes = 0;
+    for (const key of await ctx.store.listKeys(frameStorePrefixFor(stored.objectKey))) bytes += (await ctx.store.getBytes(key)).length;
+    expect(stored.frameStoreBytes).toBe(bytes);
+    expect((await openFrameStore(ctx.store, stored.frameStoreKey!)).index.frames).toBe(t.nFrames);
+    expect([stored.status, stored.frames]).toEqual(['ready', inspected.frames]);
+
+    // With the upload itself gone, only the new store can answer.
+    await ctx.store.delete(stored.objectKey);
+    expectFrames(await viewerFrames(id, 'from=30&to=32'), [30, 31]);
   });
 
   it('when a trajectory is deleted, then its frame store goes with it', async () => {

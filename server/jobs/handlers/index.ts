@@ -3,6 +3,7 @@ import type { AppContext } from '../../context.ts';
 import type { JobAttempt } from '../job-attempt.ts';
 import { analyseJob } from './analyse.ts';
 import { inspectJob } from './inspect.ts';
+import { storeFramesJob } from './store-frames.ts';
 
 export type JobHandler = (job: SandboxedJob, ctx: AppContext, attempt: JobAttempt) => Promise<unknown>;
 
@@ -10,4 +11,5 @@ export type JobHandler = (job: SandboxedJob, ctx: AppContext, attempt: JobAttemp
 export const jobHandlers: Record<string, JobHandler> = {
   inspect: inspectJob,
   analyse: analyseJob,
+  'store-frames': storeFramesJob,
 };
