@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { bulkMetadataBody, frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
+import { uploadPolicySchema, type UploadPolicy } from '../../shared/upload-policy.ts';
 import { authorizedProject } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
@@ -34,6 +35,17 @@ function jsonOrText(value: string): unknown {
 export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
   const limits = apiRateLimits(ctx);
   return [
+    {
+      method: 'get', path: '/upload-policy', access: { kind: 'signed-in' },
+      summary: 'The largest file an upload may carry, and the limits on reading a compressed one, so a client can refuse a file before sending it.',
+      response: wrapped('uploadPolicy', uploadPolicySchema),
+      handler: (_req, res) => {
+        const limits: UploadPolicy = {
+          fileMaxBytes: ctx.config.UPLOAD_MAX_BYTES, decompressedMaxBytes: ctx.config.DECOMPRESSED_MAX_BYTES, decompressionMaxRatio: ctx.config.DECOMPRESSION_MAX_RATIO,
+        };
+        res.json({ uploadPolicy: limits });
+      },
+    },
     {
       method: 'get', path: '/projects/:id/trajectories', access: { kind: 'project', role: 'viewer', via: 'project' },
       summary: "The project's trajectories with what inspection found and their metadata, newest first.",

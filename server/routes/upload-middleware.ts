@@ -1,11 +1,29 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { currentUser } from '../auth/authorize.ts';
+import { tooLargeMessage } from '../../shared/upload-policy.ts';
 import { AppError, badRequest } from '../errors.ts';
 import type { AppContext } from '../context.ts';
 import { isOutage, serviceUnavailable } from '../outage.ts';
 import { abandonUpload, beginUpload, touchUpload } from '../services/trajectories.ts';
 import { objectKeyFor, objectStoreStorage, UploadInterrupted } from '../services/upload-to-store.ts';
+
+/** Text fields and parts an upload may carry beside its file (multer's limits below). */
+const MAX_FIELDS = 30;
+const MAX_FIELD_BYTES = 64 * 1024;
+const MAX_PARTS = 40;
+/** busboy refuses a part whose headers are longer than this. */
+const MAX_PART_HEADER_BYTES = 16 * 1024;
+
+/**
+ * The largest body an upload within the limit can have: the file plus every
+ * field, part header and boundary it may carry. A Content-Length above it
+ * can only hold a file over the limit, so it is refused before any byte of
+ * the body is read, rather than after gigabytes have been sent.
+ */
+export function largestUploadBody(uploadMaxBytes: number): number {
+  return uploadMaxBytes + MAX_FIELDS * MAX_FIELD_BYTES + MAX_PARTS * (MAX_PART_HEADER_BYTES + 256);
+}
 
 /** Multipart upload of one `file` part, streamed to the object store. */
 export function trajectoryUpload(ctx: AppContext): RequestHandler {
@@ -18,12 +36,18 @@ export function trajectoryUpload(ctx: AppContext): RequestHandler {
     storage,
     // RFC 7578 §4.2: file names are sent as UTF-8; busboy's default would read them as Latin-1.
     defParamCharset: 'utf8',
-    limits: { fileSize: ctx.config.UPLOAD_MAX_BYTES, files: 1, fields: 30, fieldSize: 64 * 1024, parts: 40 },
+    limits: { fileSize: ctx.config.UPLOAD_MAX_BYTES, files: 1, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES, parts: MAX_PARTS },
   }).single('file');
   return (req, res, next) => {
     const type = req.get('content-type') ?? '';
     if (/^multipart\//i.test(type) && !/;\s*boundary=/i.test(type)) {
       return next(badRequest('The multipart body has no boundary: send Content-Type "multipart/form-data; boundary=…" (curl -F and browsers do this).'));
+    }
+    const declared = Number(req.get('content-length'));
+    if (declared > largestUploadBody(ctx.config.UPLOAD_MAX_BYTES)) {
+      // Answered at once and the connection closed, so the client stops sending the rest.
+      res.set('Connection', 'close');
+      return next(tooLarge(ctx, declared));
     }
     parse(req, res, (err: unknown) => {
       if (!err) return next();
@@ -35,9 +59,7 @@ export function trajectoryUpload(ctx: AppContext): RequestHandler {
 
 function uploadError(ctx: AppContext, err: unknown): unknown {
   if (err instanceof multer.MulterError) {
-    if (err.code === 'LIMIT_FILE_SIZE') {
-      return new AppError(413, 'too_large', `The file is larger than the upload limit of ${formatBytes(ctx.config.UPLOAD_MAX_BYTES)}.`);
-    }
+    if (err.code === 'LIMIT_FILE_SIZE') return tooLarge(ctx);
     if (err.code === 'LIMIT_UNEXPECTED_FILE') return badRequest(`Send the trajectory in a multipart field named "file" (got "${err.field}").`);
     return badRequest(`Upload refused: ${err.message}.`);
   }
@@ -50,13 +72,6 @@ function uploadError(ctx: AppContext, err: unknown): unknown {
   return err;
 }
 
-export function formatBytes(bytes: number): string {
-  const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
-  let value = bytes;
-  let unit = 0;
-  while (value >= 1024 && unit < units.length - 1) {
-    value /= 1024;
-    unit++;
-  }
-  return `${Number.isInteger(value) ? value : value.toFixed(1)} ${units[unit]}`;
+function tooLarge(ctx: AppContext, declaredBytes?: number): AppError {
+  return new AppError(413, 'too_large', tooLargeMessage(ctx.config.UPLOAD_MAX_BYTES, declaredBytes === undefined ? undefined : { what: 'The upload', bytes: declaredBytes }));
 }

@@ -81,10 +81,45 @@ describe('POST /api/projects/:id/trajectories (upload)', () => {
     const rowsBefore = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
     const res = await upload(null, Buffer.alloc(5 * 1024 * 1024, 65), 'huge.xyz');
     expect(res.status).toBe(413);
-    expect(res.body.error.message).toMatch(/4 MiB/);
+    expect(res.body.error.message).toMatch(/^The file is larger than the upload limit of 4\.0 MiB\. Compress it with gzip or zip/);
     await new Promise((r) => setTimeout(r, 300));
     expect(await objectKeysUnder(`projects/${projectId}/`)).toEqual(before);
     expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
+  });
+
+  it('when a request declares a body too long to hold a file within the limit, then 413 comes back before the body is sent, naming the limit and what to do', async () => {
+    const server = app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const port = (server.address() as AddressInfo).port;
+    // What the browser reads to refuse such a file before sending it.
+    expect((await owner.client.get('/api/upload-policy')).body.uploadPolicy).toEqual({ fileMaxBytes: 4 * 1024 * 1024, decompressedMaxBytes: ctx.config.DECOMPRESSED_MAX_BYTES, decompressionMaxRatio: ctx.config.DECOMPRESSION_MAX_RATIO });
+    const token = (await owner.client.post('/api/tokens', { name: 'big-file' })).body.token.token as string;
+    const rowsBefore = await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId));
+    try {
+      // 3 GiB declared, a few bytes sent: the answer can only come from the declared length.
+      const answer = await new Promise<{ status: number; body: string }>((resolve, reject) => {
+        const boundary = 'ergodic-test-boundary';
+        const req = httpRequest({
+          host: '127.0.0.1', port, method: 'POST', path: `/api/projects/${projectId}/trajectories`,
+          headers: { authorization: `Bearer ${token}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': String(3 * 1024 ** 3) },
+        }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => {
+            req.destroy();
+            resolve({ status: res.statusCode!, body: Buffer.concat(chunks).toString('utf8') });
+          });
+        });
+        req.on('error', reject);
+        req.write(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="run-3gb.extxyz"\r\nContent-Type: text/plain\r\n\r\n`);
+      });
+      expect(answer.status).toBe(413);
+      const message = JSON.parse(answer.body).error.message as string;
+      expect(message).toBe('The upload is 3.0 GiB, larger than the upload limit of 4.0 MiB. Compress it with gzip or zip (text trajectories shrink several-fold, and are read compressed), or ask the site administrator to raise UPLOAD_MAX_BYTES.');
+      expect(await ctx.db.select().from(trajectories).where(eq(trajectories.projectId, projectId))).toHaveLength(rowsBefore.length);
+    } finally {
+      server.close();
+    }
   });
 
   it('when the connection drops mid-upload, then the row seen as uploading meanwhile is gone, and no object remains', async () => {

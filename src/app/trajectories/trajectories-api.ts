@@ -1,9 +1,10 @@
 import { HttpClient, HttpEventType, HttpRequest, type HttpEvent } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import { filter, map, type Observable } from 'rxjs';
+import { catchError, filter, map, of, shareReplay, type Observable } from 'rxjs';
 import { analysisRunSchema, type AnalysisRunDto, type StartAnalysis } from '../../../shared/analysis-run';
 import { trajectorySchema, type TrajectoryDto, type TrajectoryMetadata } from '../../../shared/trajectory';
 import { runEstimateSchema, type RunEstimate } from '../../../shared/run-estimate';
+import { uploadPolicySchema, type UploadPolicy } from '../../../shared/upload-policy';
 import { unwrap, unwrapList } from '../core/api-envelope';
 
 /** Progress of one upload: bytes sent, then the stored trajectory. */
@@ -17,6 +18,20 @@ const readEstimate = unwrap('estimate', runEstimateSchema);
 @Injectable({ providedIn: 'root' })
 export class TrajectoriesApi {
   private readonly http = inject(HttpClient);
+  private limits: Observable<UploadPolicy | null> | null = null;
+
+  /** The site's upload limits, read once; null when they could not be read (the server still checks). */
+  uploadPolicy(): Observable<UploadPolicy | null> {
+    this.limits ??= this.http.get('/api/upload-policy').pipe(
+      map(unwrap('uploadPolicy', uploadPolicySchema)),
+      catchError(() => {
+        this.limits = null;
+        return of(null);
+      }),
+      shareReplay(1),
+    );
+    return this.limits;
+  }
 
   list(projectId: number): Observable<TrajectoryDto[]> {
     return this.http.get(`/api/projects/${projectId}/trajectories`).pipe(map(unwrapList('trajectories', trajectorySchema)));

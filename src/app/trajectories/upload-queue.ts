@@ -1,7 +1,8 @@
 import { inject, Injectable, signal } from '@angular/core';
-import type { Subscription } from 'rxjs';
+import { switchMap, throwError, type Subscription } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error';
 import type { TrajectoryDto, TrajectoryMetadata } from '../../../shared/trajectory';
+import { uploadRefusal } from '../../../shared/upload-policy';
 import { TrajectoriesApi } from './trajectories-api';
 
 export interface UploadItem {
@@ -16,6 +17,9 @@ export interface UploadItem {
   /** Set once the server has stored the file; its inspection is followed through the trajectory. */
   trajectoryId?: number;
 }
+
+/** A file refused before sending, with the reason to show. */
+class UploadRefused extends Error {}
 
 /**
  * Uploads in flight, each with its own progress and cancel. Kept in a root
@@ -33,7 +37,12 @@ export class UploadQueue {
     for (const file of files) {
       const key = this.nextKey++;
       this.itemsState.update((list) => [...list, { key, projectId, name: file.name, size: file.size, percent: 0, state: 'sending' }]);
-      const subscription = this.api.upload(projectId, file, metadata).subscribe({
+      // A file over the site's limit is refused here, before gigabytes go up only to be refused at the end.
+      const sent = this.api.uploadPolicy().pipe(switchMap((limits) => {
+        const refusal = limits && uploadRefusal(file, limits);
+        return refusal ? throwError(() => new UploadRefused(refusal)) : this.api.upload(projectId, file, metadata);
+      }));
+      const subscription = sent.subscribe({
         next: (event) => {
           if (event.kind === 'progress') {
             this.patch(key, { percent: event.total ? Math.min(99, Math.round((100 * event.loaded) / event.total)) : 0 });
@@ -42,10 +51,14 @@ export class UploadQueue {
             onStored(event.trajectory);
           }
         },
-        error: (err: unknown) => this.patch(key, { state: 'failed', error: apiErrorMessage(err, 'The upload failed.') }),
+        error: (err: unknown) => {
+          this.running.delete(key);
+          this.patch(key, { state: 'failed', error: err instanceof UploadRefused ? err.message : apiErrorMessage(err, 'The upload failed.') });
+        },
         complete: () => this.running.delete(key),
       });
-      this.running.set(key, subscription);
+      // A refusal from limits already read ends the subscription before this line.
+      if (!subscription.closed) this.running.set(key, subscription);
     }
   }
 
