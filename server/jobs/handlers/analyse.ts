@@ -138,7 +138,9 @@ async function loadTrajectory(ctx: AppContext, row: TrajectoryRow, selection: Fr
   let seen = 0;
   async function* counted(): AsyncGenerator<Frame> {
     for await (const frame of storedFrames(ctx, row, { from: selection.from, to: selection.to, stride: selection.stride }, tempDir)) {
-      if (++seen % 50 === 0) await progress(seen / selection.frames);
+      // Every frame: the checkpoint itself writes at most every CHECK_EVERY_MS, and a frame of a large
+      // system (or of an old upload read from its text) can take long enough that a cancel must not wait for 50.
+      await progress(++seen / selection.frames);
       yield frame;
     }
   }
