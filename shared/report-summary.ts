@@ -166,6 +166,13 @@ export interface ThermoSummary {
   densityGPerCm3: MeanWithError | null;
   degreesOfFreedom: number;
   equilibrated: boolean;
+  /**
+   * When the run drifts: the equilibration discard, ps from the start of the
+   * chosen range, after which the temperature series settles (automated
+   * equilibration detection), to give as discardPs next time; null otherwise.
+   * Absent in reports from before it was suggested.
+   */
+  suggestedDiscardPs?: number | null;
 }
 
 export interface LindemannSummary {

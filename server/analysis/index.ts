@@ -79,6 +79,8 @@ export function runAnalyses(
           densityGPerCm3: r.density ? { mean: r.density.mean, stdError: r.density.stdError } : null,
           degreesOfFreedom: r.degreesOfFreedom,
           equilibrated: r.equilibration.equilibrated,
+          // Counted from the start of the chosen range, as discardPs is, so it can be given as it stands next time.
+          suggestedDiscardPs: r.equilibration.settlesAfter ? (params.discardPs ?? 0) + r.equilibration.settlesAfter.ps : null,
         };
         const cols: [string, string, Float64Array][] = [
           ['time', 'ps', r.timesPs],

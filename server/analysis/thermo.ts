@@ -14,6 +14,10 @@
  *
  * Equilibration flag: the means of the first and last thirds (each with its
  * own blocking error) must agree within EQUILIBRATION_SIGMAS combined errors.
+ * When they do not, the temperature series is handed to the automated
+ * equilibration detection (Chodera, J. Chem. Theory Comput. 12, 1799 (2016);
+ * run-plan/equilibration-start.ts), and the time it settles after is
+ * suggested as a discard for the next run.
  */
 import { massOf } from '../../shared/elements.ts';
 import { blockAverage, type BlockAverage } from './block-average.ts';
@@ -25,6 +29,7 @@ import { BOLTZMANN_ENGINE, GRAM_PER_AMU, CM3_PER_A3, JOULE_PER_ENGINE_ENERGY, EL
 import { frameIntervalPs } from './frame-timing.ts';
 import type { Trajectory } from './trajectory.ts';
 import { vdos } from './vdos.ts';
+import { equilibrationStart } from '../run-plan/equilibration-start.ts';
 
 export const EQUILIBRATION_SIGMAS = 3;
 
@@ -67,7 +72,15 @@ export interface ThermoResult {
   numberDensityPerA3: Float64Array | null;
   temperature: BlockAverage;
   density: BlockAverage | null;
-  equilibration: { temperature: EquilibrationCheck; density: EquilibrationCheck | null; equilibrated: boolean };
+  equilibration: { temperature: EquilibrationCheck; density: EquilibrationCheck | null; equilibrated: boolean; settlesAfter: SettlesAfter | null };
+}
+
+/** Where the analysed temperature series stops relaxing, counted from the first frame analysed. */
+export interface SettlesAfter {
+  /** Frames of the analysed series (after any stride) to leave out. */
+  frames: number;
+  /** The same, as time from the first analysed frame, ps. */
+  ps: number;
 }
 
 export function degreesOfFreedomFor(nAtoms: number, options: ThermoOptions): number {
@@ -108,9 +121,11 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
   if (stated) warnings.push(stated);
   const tCheck = equilibrationCheck(temperatureK);
   const dCheck = densityGPerCm3 ? equilibrationCheck(densityGPerCm3) : null;
+  const equilibrated = tCheck.equilibrated && (dCheck?.equilibrated ?? true);
+  const timesPs = Float64Array.from(frames, (f) => traj.times[f]);
   return {
     units: { time: 'ps', kineticEnergy: 'eV', temperature: 'K', density: 'g/cm³', numberDensity: 'atoms/Å³' },
-    timesPs: Float64Array.from(frames, (f) => traj.times[f]),
+    timesPs,
     degreesOfFreedom: dof,
     degreesOfFreedomRule: counted.rule,
     statedTemperatureK: options.statedTemperatureK ?? null,
@@ -123,8 +138,17 @@ export function thermo(traj: Trajectory, options: ThermoOptions = {}, onProgress
     numberDensityPerA3,
     temperature,
     density: densityGPerCm3 ? blockAverage(densityGPerCm3) : null,
-    equilibration: { temperature: tCheck, density: dCheck, equilibrated: tCheck.equilibrated && (dCheck?.equilibrated ?? true) },
+    equilibration: { temperature: tCheck, density: dCheck, equilibrated, settlesAfter: equilibrated ? null : settlesAfter(temperatureK, frames, traj.times) },
   };
+}
+
+/** The start the temperature series settles after, or null when it is too short to judge or settled from the start. */
+function settlesAfter(temperatureK: Float64Array, frames: Int32Array, times: Float64Array): SettlesAfter | null {
+  const start = equilibrationStart(temperatureK);
+  if (!start || start.frame === 0) return null;
+  // Without velocities the series starts at the second frame: the count is of the trajectory's frames.
+  const frame = frames[start.frame]!;
+  return { frames: frame, ps: times[frame]! - times[0]! };
 }
 
 /**

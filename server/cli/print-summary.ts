@@ -38,6 +38,11 @@ export function printSummary(report: LocalReport): void {
     out.push('', `[${key}]`);
     lines(summary, '  ', out);
   }
+  const discard = report.summary.thermo?.equilibrated === false ? report.summary.thermo.suggestedDiscardPs : null;
+  if (discard) {
+    const ps = Number(discard.toPrecision(3));
+    out.push('', `The temperature drifts and settles after about ${ps} ps from the start of the range: run again with --discard-ps ${ps}.`);
+  }
   out.push('', String(report.methods['caution'] ?? ''));
   console.log(out.join('\n'));
 }

@@ -52,6 +52,15 @@ describe('headline cards', () => {
     expect(card!.detail).toContain('0.412 Å²');
   });
 
+  it('when the run drifts and the thermo check found where it settles, then the card suggests that discard for the next run', () => {
+    const drifting: ReportSummary = { thermo: { ...liquid.thermo!, equilibrated: false, suggestedDiscardPs: 2.346 } };
+    expect(headlineCards(drifting, 'a2PerPs')[0]!.warning).toBe('Temperature or density drifts between the first and last third of the run. '
+      + 'The temperature settles after about 2.35 ps from the start of the range: analyse again with “Discard for equilibration” set to 2.35 ps.');
+    const noStart: ReportSummary = { thermo: { ...liquid.thermo!, equilibrated: false, suggestedDiscardPs: null } };
+    expect(headlineCards(noStart, 'a2PerPs')[0]!.warning).toBe('Temperature or density drifts between the first and last third of the run.');
+    expect(headlineCards(liquid, 'a2PerPs').find((c) => c.id === 'thermo')!.warning).toBeNull();
+  });
+
   it('when the temperature card is built, then it names the degrees of freedom and shows density with its error', () => {
     const card = headlineCards(liquid, 'a2PerPs').find((c) => c.id === 'thermo')!;
     expect(card.value).toBe('86.5 ± 1.2');

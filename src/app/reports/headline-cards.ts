@@ -121,8 +121,14 @@ function thermoCard(s: NonNullable<ReportSummary['thermo']>): HeadlineCard {
   return {
     id: 'thermo', title: 'Mean temperature', value: formatWithError(s.temperatureK.mean, s.temperatureK.stdError), unit: 'K',
     detail: `Equipartition with ${dofText(s)}; blocking error${fromPositions(s.velocitySource, s.differenceCorrection)}${stated}${density}`,
-    warning: joined([...(s.warnings ?? []), s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.']),
+    warning: joined([...(s.warnings ?? []), s.equilibrated ? null : 'Temperature or density drifts between the first and last third of the run.', discardAdvice(s)]),
   };
+}
+
+/** The discard the thermo check suggests for a drifting run, in the words of the analysis dialog's field. */
+function discardAdvice(s: NonNullable<ReportSummary['thermo']>): string | null {
+  if (s.equilibrated || !s.suggestedDiscardPs) return null;
+  return `The temperature settles after about ${formatNumber(s.suggestedDiscardPs, 3)} ps from the start of the range: analyse again with “Discard for equilibration” set to ${formatNumber(s.suggestedDiscardPs, 3)} ps.`;
 }
 
 /** Names the temperature a harmonic quantity was evaluated at, and the stated one beside it. */

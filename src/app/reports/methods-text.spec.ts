@@ -45,6 +45,13 @@ describe('methods text', () => {
     expect(msd!.body).toContain('standard error from the spread of D over independent groups of atoms');
   });
 
+  it('when the run drifted and the thermo check found where it settles, then the temperature paragraph says so; an equilibrated run says nothing of it', () => {
+    const base = report();
+    const drifting = report({ summary: { ...base.summary, thermo: { ...base.summary.thermo!, equilibrated: false, suggestedDiscardPs: 3.4 } } });
+    expect(methodsParagraphs(drifting)[1]!.body).toContain('a significant drift was found. By automated equilibration detection (Chodera 2016) the temperature settles after about 3.4 ps from the start of the range.');
+    expect(methodsParagraphs(base)[1]!.body).not.toContain('settles');
+  });
+
   it('when the fit and plateau windows were set by hand, then the text says so and never that they were chosen automatically', () => {
     const auto = report();
     const msdGroup = { ...auto.summary.msd!.groups[0]!, fitWindowPs: { start: 2, end: 8, source: 'manual' as const } };

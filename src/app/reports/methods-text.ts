@@ -79,6 +79,7 @@ function thermoParagraph(s: NonNullable<ReportSummary['thermo']>, m: Json): Meth
       (s.statedTemperatureK ? `The simulation states ${f(s.statedTemperatureK)} K. ` : '') +
       `Errors of ensemble averages by Flyvbjerg–Petersen blocking (plateau at blocking level ${f(num(m, 'blockingPlateauLevel'), 3)}). ` +
       `Equilibration judged by comparing the first and last thirds of the run: ${s.equilibrated ? 'no significant drift' : 'a significant drift was found'}.` +
+      (!s.equilibrated && s.suggestedDiscardPs ? ` By automated equilibration detection (Chodera 2016) the temperature settles after about ${f(s.suggestedDiscardPs, 3)} ps from the start of the range.` : '') +
       warned(s.warnings),
   };
 }

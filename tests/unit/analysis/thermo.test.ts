@@ -83,6 +83,29 @@ describe('Kinetic temperature by equipartition (SCIENCE item 8)', () => {
     expect(thermo(traj).equilibration.equilibrated).toBe(false);
   });
 
+  // Where it settles: automated equilibration detection, Chodera, J. Chem. Theory Comput. 12, 1799 (2016).
+  it('when the temperature starts three times too high and relaxes, then the flag is down and the run is said to settle after the transient', () => {
+    // Speeds scale as 1 + 2·e^(−f/80): the excess temperature is over 50 % of T before frame 80 and below 2 % after 400.
+    const traj = withVelocities(64, 800, (f, _i, rng, out) => {
+      for (let c = 0; c < 3; c++) out[c] = (1 + 2 * Math.exp(-f / 80)) * rng.normal();
+    }, 3);
+    const r = thermo(traj);
+    expect(r.equilibration.equilibrated).toBe(false);
+    const settles = r.equilibration.settlesAfter!;
+    expect(settles.frames).toBeGreaterThan(80);
+    expect(settles.frames).toBeLessThan(560);
+    expect(settles.ps).toBeCloseTo(settles.frames * 0.01, 12);
+  });
+
+  it('when the run is equilibrated, then no discard is suggested', () => {
+    const traj = withVelocities(64, 400, (_f, _i, rng, out) => {
+      for (let c = 0; c < 3; c++) out[c] = rng.normal();
+    }, 4);
+    const r = thermo(traj);
+    expect(r.equilibration.equilibrated).toBe(true);
+    expect(r.equilibration.settlesAfter).toBeNull();
+  });
+
   it('when the cell is 20 Å of argon with 400 atoms, then density is 400·m_u/V in g/cm³', () => {
     const traj = { ...withVelocities(400, 2, (_f, _i, _r, out) => out.fill(0)), cells: cubicCells(2, 20) };
     const r = thermo(traj);
