@@ -76,6 +76,21 @@ test.describe('analysis runs', () => {
     await expect(row).not.toContainText('inspecting');
   });
 
+  test('when a file is over the site\'s upload limit, then it is refused before a byte is sent, naming its size, the limit and what to do', async ({ page, context }) => {
+    const trajectory = await readyTrajectory(context, 'small.extxyz', await randomWalkExtxyz({ atoms: 4, frames: 5, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 10, seed: 2 }));
+    // The site's policy as the server states it, with a limit of 1 KiB so a small file can stand for a multi-GB one.
+    await page.route('**/api/upload-policy', (route) => route.fulfill({ json: { uploadPolicy: { fileMaxBytes: 1024, decompressedMaxBytes: 1024 ** 3, decompressionMaxRatio: 1000 } } }));
+    const posted: string[] = [];
+    page.on('request', (r) => {
+      if (r.method() === 'POST' && r.url().endsWith(`/api/projects/${trajectory.projectId}/trajectories`)) posted.push(r.url());
+    });
+    await page.goto(`/projects/${trajectory.projectId}`);
+    await chooseAndUpload(page, [{ name: 'long-run.extxyz', buffer: Buffer.alloc(3 * 1024, 65) }]);
+    const row = page.getByRole('list', { name: 'Uploads' }).getByRole('listitem').filter({ hasText: 'long-run.extxyz' });
+    await expect(row.getByRole('alert')).toHaveText('long-run.extxyz is 3.0 KiB, larger than the upload limit of 1.0 KiB. Compress it with gzip or zip (text trajectories shrink several-fold, and are read compressed), or ask the site administrator to raise UPLOAD_MAX_BYTES.');
+    expect(posted).toEqual([]);
+  });
+
   test('when a run needs its start discarded, then the dialog offers the discard, estimates the run as frames are chosen, and the report names the frames used', async ({ page, context }) => {
     const trajectory = await readyTrajectory(context, 'relaxing.extxyz', await relaxingRunExtxyz());
     await page.goto(`/projects/${trajectory.projectId}`);
