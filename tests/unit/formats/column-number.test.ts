@@ -24,6 +24,15 @@ describe('numbers in fixed-width columns', () => {
     expect([parseColumnNumber(buf, 0, 8), parseColumnNumber(buf, 8, 16), parseColumnNumber(buf, 16, 24)]).toEqual([-999.999, -888.888, 777.777]);
   });
 
+  it('when digits, a point or blanks run on into the next column, then only the column\'s own part is read', () => {
+    const buf = Buffer.from('1234567812345678   12345.678-       1.000');
+    expect([parseColumnNumber(buf, 0, 8), parseColumnNumber(buf, 8, 16), parseColumnNumber(buf, 16, 24), parseColumnNumber(buf, 24, 28)]).toEqual([
+      12345678, 12345678, 12345, 0.678,
+    ]);
+    expect(parseColumnNumber(buf, 28, 36)).toBeNaN();
+    expect(parseColumnNumber(buf, 29, 35)).toBeNaN();
+  });
+
   it('when a column is blank or holds no decimal number, then the result is NaN', () => {
     for (const text of ['        ', '', '-', '+', '.', '  x.yz  ', '1 2', '1.2.3', '0x1A', '--1', '1e', 'NaN', 'Infinity', '- 1.0']) {
       expect(column(text), JSON.stringify(text)).toBeNaN();
