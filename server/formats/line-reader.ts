@@ -31,6 +31,8 @@ export class LineReader {
   readonly countLines: boolean;
   private pos = 0;
   private bufBase: number;
+  /** Input that follows `buf` directly, served once `buf` is used up (see `more`). */
+  private queued: Buffer | null = null;
   private readonly iterator: AsyncIterator<Buffer>;
 
   constructor(
@@ -58,9 +60,15 @@ export class LineReader {
 
   /** Advances to the next buffered line; false when more bytes are needed or the input is over. */
   next(): boolean {
-    const buf = this.buf;
-    const pos = this.pos;
-    if (pos >= buf.length) return false;
+    let buf = this.buf;
+    let pos = this.pos;
+    if (pos >= buf.length) {
+      if (this.queued === null) return false;
+      this.bufBase += buf.length;
+      buf = this.buf = this.queued;
+      this.queued = null;
+      pos = this.pos = 0;
+    }
     let newline = buf.indexOf(10, pos);
     if (newline < 0) {
       if (!this.eof) return false;
@@ -90,6 +98,14 @@ export class LineReader {
 
   /** Pulls more input into the buffer, keeping the unfinished line. */
   async more(): Promise<void> {
+    if (this.queued !== null) {
+      // Input is already at hand: join it to the unfinished line.
+      this.bufBase += this.pos;
+      this.buf = Buffer.concat([this.buf.subarray(this.pos), this.queued]);
+      this.pos = 0;
+      this.queued = null;
+      return;
+    }
     if (this.eof) return;
     const rest = this.buf.length - this.pos;
     if (rest > this.options.maxLineBytes) this.tooLong(this.lineNo + 1);
@@ -107,6 +123,18 @@ export class LineReader {
     }
     this.bufBase += this.pos;
     this.pos = 0;
+    if (parts.length === 2 && rest > 0) {
+      // The usual refill: the end of a line, then a whole new chunk. Only that line is
+      // joined into a buffer of its own and the chunk is served after it, rather than
+      // copying the chunk (a megabyte) behind the line's few bytes.
+      const chunk = parts[1];
+      const newline = chunk.indexOf(10);
+      if (newline >= 0 && newline + 1 < chunk.length) {
+        this.buf = Buffer.concat([parts[0], chunk.subarray(0, newline + 1)], rest + newline + 1);
+        this.queued = chunk.subarray(newline + 1);
+        return;
+      }
+    }
     this.buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, total);
   }
 
