@@ -5,8 +5,10 @@ import { analysisKeySchema } from './analysis-params.ts';
 export const runEstimateSchema = z.object({
   /** Estimated wall time on one core, s; aims at the right order, within about a factor of two. */
   seconds: z.number(),
-  /** Estimated peak memory of the job, bytes. */
+  /** Estimated peak memory of the job, bytes; coordinates beyond the site's in-memory budget wait on disk instead. */
   memoryBytes: z.number(),
+  /** Disk the job's scratch file takes in the worker's temporary folder, bytes (0 when the coordinates fit in memory). */
+  scratchBytes: z.number(),
   analyses: z.array(z.object({ key: analysisKeySchema, seconds: z.number() })),
   /** The frames the analyses will see. */
   frames: z.object({

@@ -1,3 +1,4 @@
+import { tmpdir } from 'node:os';
 import type { PlannedRun } from '../run-plan/plan-run.ts';
 import type { LocalReport } from './analyze-file.ts';
 
@@ -53,7 +54,8 @@ export function printEstimate({ selection, params, estimate }: PlannedRun): void
   const out = [
     `frames ${selection.from}–${selection.to - 1}, every ${selection.stride}${selection.autoStride ? ' (chosen for a long run)' : ''}: ${selection.frames} used` +
       (selection.discardFrames ? `, ${selection.discardFrames} discarded for equilibration` : ''),
-    `estimated time ${seconds(estimate.seconds)} (reading ${seconds(estimate.loadSeconds)}), peak memory about ${Math.round(estimate.memoryBytes / 1024 ** 2)} MiB`,
+    `estimated time ${seconds(estimate.seconds)} (reading ${seconds(estimate.loadSeconds)}), peak memory about ${Math.round(estimate.memoryBytes / 1024 ** 2)} MiB` +
+      (estimate.scratchBytes > 0 ? `, scratch file about ${Math.round(estimate.scratchBytes / 1024 ** 2)} MiB in ${tmpdir()}` : ''),
     ...estimate.analyses.map((a) => `  ${a.key.padEnd(10)} ${seconds(a.seconds)}`),
   ];
   if (params.rMaxA !== undefined) out.push(`g(r) range ${params.rMaxA} Å`);

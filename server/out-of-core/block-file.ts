@@ -21,9 +21,9 @@ import { join } from 'node:path';
 import type { CoordinateBlocks, CoordinateKind } from '../analysis/coordinate-blocks.ts';
 
 /** Bytes of one block (positions and velocities together): big enough for few reads, small beside the budget. */
-const BLOCK_BYTES = 4 * 1024 * 1024;
+export const BLOCK_BYTES = 4 * 1024 * 1024;
 /** Bytes of one atom chunk the engine holds at a time (per kind). */
-const ATOM_CHUNK_BYTES = 16 * 1024 * 1024;
+export const ATOM_CHUNK_BYTES = 16 * 1024 * 1024;
 
 /** Everything needed to open a block file again, in this process or another thread. */
 export interface BlockFileLayout {

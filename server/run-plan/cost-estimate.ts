@@ -7,6 +7,8 @@
  * actual). Estimates aim at the right order, within about a factor of two.
  */
 import type { AnalysisKey } from '../../shared/analysis-params.ts';
+import { ATOM_CHUNK_BYTES, BLOCK_BYTES } from '../out-of-core/block-file.ts';
+import { IN_MEMORY_COORDINATE_BYTES } from '../out-of-core/scratch.ts';
 
 /** Nanoseconds per work unit, measured by bench/cost-model.ts (which prints estimate against actual). */
 export const NS_PER_UNIT = {
@@ -41,6 +43,11 @@ export interface CostInput {
   halfWidthA: number | null;
   /** Pair cut-off of the interaction model (energy analysis), Å. */
   cutoffA: number | null;
+  /**
+   * Positions and velocities the job may hold in memory (ANALYSIS_IN_MEMORY_BYTES);
+   * beyond, they wait in a scratch file on disk. Default: the command line's budget.
+   */
+  inMemoryBytes?: number;
 }
 
 export interface AnalysisCost {
@@ -55,7 +62,10 @@ export interface CostEstimate {
   memoryBytes: number;
   /** Reading the frames into memory. */
   loadSeconds: number;
+  /** Memory the frames take while the analyses run: all of them, or a block and an atom chunk of the scratch file. */
   trajectoryBytes: number;
+  /** Disk the scratch file takes in the temporary folder (0 when everything fits in memory). */
+  scratchBytes: number;
   analyses: AnalysisCost[];
 }
 
@@ -115,13 +125,29 @@ function analysisCost(key: AnalysisKey, input: CostInput): AnalysisCost {
   }
 }
 
+/**
+ * What the coordinates take: in memory up to the budget; beyond, on disk,
+ * with one block of frames (written as it is transposed) and one atom chunk
+ * (read by the engine) in memory, as out-of-core/block-file.ts sizes them.
+ */
+function coordinateFootprint(input: CostInput): { memory: number; disk: number } {
+  const kinds = input.hasVelocities ? 2 : 1;
+  const bytes = input.frames * input.atoms * 12 * kinds;
+  if (bytes <= (input.inMemoryBytes ?? IN_MEMORY_COORDINATE_BYTES)) return { memory: bytes, disk: 0 };
+  const block = Math.max(BLOCK_BYTES, input.atoms * 12 * kinds);
+  const atomChunk = Math.max(ATOM_CHUNK_BYTES, input.frames * 12);
+  return { memory: block + atomChunk, disk: bytes };
+}
+
 export function estimateCost(analyses: readonly AnalysisKey[], input: CostInput): CostEstimate {
   const valuesPerFrame = input.atoms * 3 * (input.hasVelocities ? 2 : 1);
-  const trajectoryBytes = input.frames * (valuesPerFrame * 4 + 80);
+  const coordinates = coordinateFootprint(input);
+  // Times and cells stay in memory per frame either way.
+  const trajectoryBytes = coordinates.memory + input.frames * 80;
   const loadSeconds = (input.frames * valuesPerFrame * NS_PER_UNIT.load) / 1e9;
   const costs = [...new Set(analyses)].map((k) => analysisCost(k, input));
   const seconds = loadSeconds + costs.reduce((s, c) => s + c.seconds, 0);
   // Analyses run one after another, so only the largest working set adds to the trajectory.
   const working = costs.reduce((m, c) => Math.max(m, c.workingBytes), 0);
-  return { seconds, memoryBytes: BASE_MEMORY_BYTES + trajectoryBytes + working, loadSeconds, trajectoryBytes, analyses: costs };
+  return { seconds, memoryBytes: BASE_MEMORY_BYTES + trajectoryBytes + working, loadSeconds, trajectoryBytes, scratchBytes: coordinates.disk, analyses: costs };
 }

@@ -32,6 +32,8 @@ export interface PlannedRun {
   params: AnalysisParams;
   selection: FrameSelection;
   estimate: CostEstimate;
+  /** Coordinates the job may hold in memory before it uses a scratch file (undefined: the command line's budget). */
+  inMemoryBytes?: number;
 }
 
 /** A request that cannot run as asked; the message says why and what to change. */
@@ -50,7 +52,7 @@ export class ParamOutOfBounds extends PlanProblem {
   }
 }
 
-function costInput(facts: TrajectoryFacts, frames: number, params: AnalysisParams): CostInput {
+function costInput(facts: TrajectoryFacts, frames: number, params: AnalysisParams, inMemoryBytes: number | undefined): CostInput {
   const geometry = facts.cell ? cellWidths(facts.cell) : null;
   const cutoffs = params.interactionModel?.pairs.map((p) => resolvePair(p).cutoffA) ?? [];
   return {
@@ -59,10 +61,12 @@ function costInput(facts: TrajectoryFacts, frames: number, params: AnalysisParam
     halfWidthA: geometry ? Math.min(...geometry.widths) / 2 : null,
     rMaxA: params.rMaxA ?? null,
     cutoffA: cutoffs.length ? Math.max(...cutoffs) : null,
+    inMemoryBytes,
   };
 }
 
-export function planRun(facts: TrajectoryFacts, analyses: readonly AnalysisKey[], paramsInput: AnalysisParamsInput): PlannedRun {
+/** `inMemoryBytes`: the site's ANALYSIS_IN_MEMORY_BYTES (default: the command line's budget). */
+export function planRun(facts: TrajectoryFacts, analyses: readonly AnalysisKey[], paramsInput: AnalysisParamsInput, inMemoryBytes?: number): PlannedRun {
   const params = analysisParamsSchema.parse(paramsInput);
   const selection = selectFrames(facts.frames, facts.framePs, params);
   if ('problem' in selection) throw new PlanProblem(selection.problem);
@@ -73,7 +77,7 @@ export function planRun(facts: TrajectoryFacts, analyses: readonly AnalysisKey[]
     if (bounded !== undefined) params.rMaxA = Number(bounded.toPrecision(6));
   }
   if (analyses.includes('rdf') || analyses.includes('sq')) checkRdfBins(facts, params);
-  return { params, selection, estimate: estimateCost(analyses, costInput(facts, selection.frames, params)) };
+  return { params, selection, estimate: estimateCost(analyses, costInput(facts, selection.frames, params, inMemoryBytes)), inMemoryBytes };
 }
 
 /**
@@ -100,7 +104,7 @@ export function adviceFor(plan: PlannedRun, facts: TrajectoryFacts, analyses: re
   const advice: string[] = [];
   const { selection, params } = plan;
   const span = selection.to - selection.from;
-  const at = (frames: number, p: AnalysisParams = params) => estimateCost(analyses, costInput(facts, frames, p));
+  const at = (frames: number, p: AnalysisParams = params) => estimateCost(analyses, costInput(facts, frames, p, plan.inMemoryBytes));
   for (let factor = 2; factor <= 1_000_000; factor = Math.ceil(factor * 1.5)) {
     const stride = selection.stride * factor;
     const frames = Math.ceil(span / stride);
@@ -137,6 +141,7 @@ export function describeEstimate(plan: PlannedRun, limits: CostLimits, advice: s
   return {
     seconds: estimate.seconds,
     memoryBytes: estimate.memoryBytes,
+    scratchBytes: estimate.scratchBytes,
     analyses: estimate.analyses.map((a) => ({ key: a.key, seconds: a.seconds })),
     frames: { from: selection.from, to: selection.to, stride: selection.stride, used: selection.frames, discarded: selection.discardFrames, autoStride: selection.autoStride },
     rMaxA: params.rMaxA ?? null,

@@ -42,7 +42,7 @@ export async function planFor(ctx: AppContext, row: TrajectoryRow, analyses: Ana
   const facts = trajectoryFacts(row);
   let plan: PlannedRun;
   try {
-    plan = planRun(facts, analyses, { ...paramsInput, ...energy, ...(masses ? { masses } : {}) });
+    plan = planRun(facts, analyses, { ...paramsInput, ...energy, ...(masses ? { masses } : {}) }, ctx.config.ANALYSIS_IN_MEMORY_BYTES);
   } catch (err) {
     // Like a schema refusal: 400 naming the field.
     if (err instanceof ParamOutOfBounds) throw new AppError(400, 'invalid_input', err.message, [{ field: err.field, message: err.detail }]);

@@ -208,7 +208,7 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
     <div class="estimate-bar">
       @if (estimate(); as e) {
         <p class="estimate" aria-live="polite">
-          Estimated {{ durationText(e.seconds) === 'under a second' ? '' : 'about ' }}{{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory, on {{ e.frames.used }} frames
+          Estimated {{ durationText(e.seconds) === 'under a second' ? '' : 'about ' }}{{ durationText(e.seconds) }} and {{ bytesText(e.memoryBytes) }} of memory{{ e.scratchBytes > 0 ? ' (the frames wait in ' + bytesText(e.scratchBytes) + ' of scratch disk)' : '' }}, on {{ e.frames.used }} frames
           (from frame {{ e.frames.from + 1 }} to {{ e.frames.to }}{{ e.frames.stride > 1 ? ', every ' + e.frames.stride + (e.frames.autoStride ? ', chosen for a long run' : '') : '' }}){{ e.rMaxA !== null ? '; g(r) to ' + significant(e.rMaxA) + ' Å' : '' }}.
         </p>
         @if (!e.withinLimits) {

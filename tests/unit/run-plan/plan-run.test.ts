@@ -95,11 +95,36 @@ describe('the default range of g(r)', () => {
 
 describe('the cost estimate', () => {
   it('when frames double, then the time of a per-frame analysis about doubles, and memory grows with the frames held', () => {
-    const one = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 1000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null });
-    const two = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 2000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null });
+    const budget = 1024 ** 3;
+    const one = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 1000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null, inMemoryBytes: budget });
+    const two = estimateCost(['rdf', 'thermo'], { atoms: 5000, frames: 2000, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null, inMemoryBytes: budget });
     expect(two.seconds / one.seconds).toBeGreaterThan(1.8);
     expect(two.seconds / one.seconds).toBeLessThan(2.2);
+    // Coordinates, 24 bytes per atom with velocities, and the time and cell of each frame (80).
     expect(two.memoryBytes - one.memoryBytes).toBeCloseTo(1000 * (5000 * 24 + 80), -3);
+    expect([one.scratchBytes, two.scratchBytes]).toEqual([0, 0]);
+  });
+
+  it('when the coordinates outgrow the in-memory budget, then memory stays bounded as the run grows tenfold and the scratch file on disk takes the frames', () => {
+    const budget = 96 * 1024 ** 2;
+    const run = (frames: number) => estimateCost(['msd', 'vacf', 'vdos', 'rdf'], { atoms: 5000, frames, hasVelocities: true, volumePerAtomA3: 47, rMaxA: 10, halfWidthA: 30, cutoffA: null, inMemoryBytes: budget });
+    const long = run(10_000);
+    const longer = run(100_000);
+    // The whole run would be 5000 atoms × 24 bytes × 100 000 frames = 12 GB; what is held is a block and an atom chunk, plus per-frame series.
+    expect(longer.scratchBytes).toBe(5000 * 24 * 100_000);
+    expect(long.scratchBytes).toBe(5000 * 24 * 10_000);
+    expect(longer.memoryBytes).toBeLessThan(600 * 1024 ** 2);
+    expect(longer.memoryBytes / long.memoryBytes).toBeLessThan(2);
+    // Within the budget nothing goes to disk.
+    expect(run(100).scratchBytes).toBe(0);
+  });
+
+  it('when a site limits memory, then a run whose coordinates exceed that limit is still within it, because it works from its scratch file', () => {
+    const big = facts({ atoms: 20_000, frames: 20_000, hasVelocities: true, cell: cube(Math.cbrt(20_000 / 0.021)) });
+    const plan = planRun(big, ['msd', 'vacf'], {}, 96 * 1024 ** 2);
+    expect(plan.estimate.scratchBytes).toBe(20_000 * 24 * 20_000);
+    expect(plan.estimate.memoryBytes).toBeLessThan(4 * 1024 ** 3);
+    expect(plan.estimate.scratchBytes).toBeGreaterThan(4 * 1024 ** 3);
   });
 
   it('when g(r) of a large system runs to half the cell, then it costs far more than with the bounded default range', () => {
