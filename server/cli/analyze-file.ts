@@ -1,3 +1,4 @@
+import { stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { fileSha256 } from './file-sha256.ts';
 import type { AnalysisKey, AnalysisParamsInput } from '../../shared/analysis-params.ts';
@@ -87,13 +88,16 @@ function choosesFrames(params: AnalysisParamsInput): boolean {
  */
 export async function readWhole(path: string, options: AnalyzeFileOptions, spill: AssembleSpill): Promise<{ traj: Trajectory; plan: PlannedRun; info: FileInfo }> {
   const name = basename(path);
-  const opened = await openTrajectory(path, name);
+  // Assembly copies each frame at once, so the reader may refill one pair of arrays.
+  const opened = await openTrajectory(path, name, { transientFrames: true });
+  // Uncompressed text: the file size and the first frames' offsets size the arrays once.
+  const inputBytes = opened.compression === 'none' ? (await stat(path)).size : undefined;
   const timeStepPs = options.timeStep !== undefined ? options.timeStep * TIME_TO_PS[options.timeUnit] : undefined;
   let traj: Trajectory;
   try {
     traj = await assembleTrajectory(opened.frames, {
       length: options.lengthUnit, time: options.timeUnit, velocity: options.velocityUnit, timeStepPs, boundary: options.boundary,
-    }, undefined, name, spill);
+    }, undefined, name, spill, { inputBytes });
   } catch (err) {
     if (err instanceof TrajectoryFormatError && /frames carry no time/.test(err.message)) throw new Error(`${name} states no time between frames: give it with --dt-ps`);
     throw err;

@@ -45,6 +45,23 @@ export interface AssembleSpill {
   sizes?: BlockSizes;
 }
 
+/** What helps assembly size its arrays without binding it to anything. */
+export interface AssembleHints {
+  /**
+   * Size in bytes of the text the frames come from. With the byte offsets
+   * text readers give their frames, the distance between the first two
+   * frames estimates the frame count, so the arrays are allocated once
+   * instead of doubling (and being copied) a dozen times.
+   */
+  inputBytes?: number;
+}
+
+/** Room for the frames of a text input, from the first two frames' offsets, with a little slack; 0 when unknown. */
+function framesEstimate(inputBytes: number | undefined, first: number | undefined, second: number | undefined): number {
+  if (inputBytes === undefined || first === undefined || second === undefined || !(second > first)) return 0;
+  return Math.ceil(((inputBytes - first) / (second - first)) * 1.01) + 1;
+}
+
 /** An empty marker array, one per use: a trajectory's arrays may be moved to another thread. */
 const empty = () => new Float32Array(0);
 
@@ -54,6 +71,7 @@ export async function assembleTrajectory(
   expected?: AssembleExpected,
   file = 'trajectory',
   spill?: AssembleSpill,
+  hints: AssembleHints = {},
 ): Promise<Trajectory> {
   const lengthFactor = LENGTH_TO_ANGSTROM[units.length];
   const timeFactor = TIME_TO_PS[units.time];
@@ -95,6 +113,7 @@ export async function assembleTrajectory(
     return w;
   };
 
+  let firstOffset: number | undefined;
   let boundary: Trajectory['boundary'] = 'none';
   try {
     for await (const frame of frames) {
@@ -105,6 +124,7 @@ export async function assembleTrajectory(
           throw new TrajectoryFormatError(`frame has ${n} atoms but inspection found ${nAtoms}`, where);
         }
         nAtoms = n;
+        firstOffset = (frame as { byteOffset?: number }).byteOffset;
         species = frame.species.slice();
         capacity = expected ? expected.frames : 16;
         times = new Float64Array(capacity);
@@ -131,9 +151,15 @@ export async function assembleTrajectory(
         }
         lastSpecies = frame.species;
       }
-      if (count >= capacity) {
+      let wanted = count >= capacity ? capacity * 2 : capacity;
+      if (count === 1 && !expected) {
+        const estimate = framesEstimate(hints.inputBytes, firstOffset, (frame as { byteOffset?: number }).byteOffset);
+        // Only while the estimate stays within memory: spilling is decided by the frames actually read.
+        if (estimate > wanted && !(spill && coordinateBytes(estimate, velocities !== undefined) > spill.memoryBytes)) wanted = estimate;
+      }
+      if (wanted > capacity) {
         if (expected) throw new TrajectoryFormatError(`more frames than the ${expected.frames} inspection found`, where);
-        capacity *= 2;
+        capacity = wanted;
         if (!writer && spill && coordinateBytes(capacity, velocities !== undefined) > spill.memoryBytes) writer = startSpilling(spill.directory);
         if (!writer) {
           positions = grow32(positions, capacity * nAtoms * 3);
@@ -220,12 +246,14 @@ export async function assembleTrajectory(
   return trajectory;
 }
 
-function scaleInto(out: Float32Array, base: number, values: ArrayLike<number>, factor: number): void {
+function scaleInto(out: Float32Array, base: number, values: Float32Array | Float64Array, factor: number): void {
+  // A plain loop: TypedArray set() between element types converts one element at a time through a slow generic path.
+  const n = values.length;
   if (factor === 1) {
-    out.set(values as Float64Array, base);
+    for (let k = 0; k < n; k++) out[base + k] = values[k]!;
     return;
   }
-  for (let k = 0; k < values.length; k++) out[base + k] = values[k] * factor;
+  for (let k = 0; k < n; k++) out[base + k] = values[k]! * factor;
 }
 
 function grow32(array: Float32Array, length: number): Float32Array {

@@ -44,6 +44,13 @@ export function parseKeyValues(text: string, where: Where): Map<string, string> 
     if (open === '"' || open === "'" || open === '{' || open === '[') {
       const close = open === '{' ? '}' : open === '[' ? ']' : open;
       i++;
+      // Without escapes inside, the value is one slice.
+      const closeAt = text.indexOf(close, i);
+      if (closeAt >= 0 && !text.slice(i, closeAt).includes('\\')) {
+        const value = text.slice(i, closeAt);
+        i = closeAt + 1;
+        return value;
+      }
       let value = '';
       while (i < n && text[i] !== close) {
         if (text[i] === '\\' && i + 1 < n) i++;
@@ -77,13 +84,31 @@ export function parseKeyValues(text: string, where: Where): Map<string, string> 
   return out;
 }
 
+/**
+ * The last Properties= and Lattice= values one reader met and what they
+ * meant: consecutive frames usually repeat both word for word, so most
+ * frames skip parsing them. The cell is copied out, as each frame owns its own.
+ */
+export interface CommentMemo {
+  properties?: { text: string; columns: AtomColumns };
+  lattice?: { text: string; cell: Cell };
+}
+
 /** Reads the per-frame facts an extended XYZ comment line carries. */
-export function parseExtxyzComment(text: string, where: Where): FrameInfo {
+export function parseExtxyzComment(text: string, where: Where, memo: CommentMemo = {}): FrameInfo {
   const pairs = parseKeyValues(text, where);
   const properties = pairs.get('properties');
-  const columns = properties === undefined ? DEFAULT_COLUMNS : parseProperties(properties, where);
+  let columns = DEFAULT_COLUMNS;
+  if (properties !== undefined) {
+    if (memo.properties?.text !== properties) memo.properties = { text: properties, columns: parseProperties(properties, where) };
+    columns = memo.properties.columns;
+  }
   const lattice = pairs.get('lattice');
-  const cell = lattice === undefined ? null : parseLattice(lattice, where);
+  let cell: Cell | null = null;
+  if (lattice !== undefined) {
+    if (memo.lattice?.text !== lattice) memo.lattice = { text: lattice, cell: parseLattice(lattice, where) };
+    cell = memo.lattice.cell.slice();
+  }
   const pbcText = pairs.get('pbc');
   const pbc = pbcText !== undefined ? parsePbc(pbcText, where) : cell ? ([true, true, true] as [boolean, boolean, boolean]) : undefined;
   const info: FrameInfo = { columns, cell, pbc };

@@ -4,7 +4,7 @@
  * (Properties=), which may differ from frame to frame.
  */
 import { LineReader } from './line-reader.ts';
-import { parseExtxyzComment, type FrameInfo, type Where } from './extxyz-comment.ts';
+import { parseExtxyzComment, type CommentMemo, type FrameInfo, type Where } from './extxyz-comment.ts';
 import { readXyzFrames } from './xyz-frames.ts';
 import type { TextFrame, TextReadContext } from './text-frame.ts';
 
@@ -12,8 +12,9 @@ export function readExtxyz(lines: LineReader, ctx: TextReadContext): AsyncGenera
   // Consecutive frames usually repeat the comment except for Time=; the
   // column layout is reused so the hot loop keeps seeing the same roles array.
   let lastProperties: FrameInfo['columns'] | null = null;
+  const memo: CommentMemo = {};
   return readXyzFrames(lines, ctx, (comment: string, where: Where) => {
-    const info = parseExtxyzComment(comment, where);
+    const info = parseExtxyzComment(comment, where, memo);
     if (lastProperties && sameColumns(lastProperties, info.columns)) info.columns = lastProperties;
     lastProperties = info.columns;
     return info;

@@ -30,6 +30,12 @@ export interface OpenOptions extends ReaderLimits {
   startIndex?: number;
   /** Frames for which this returns false are stepped over without parsing. */
   wants?: (index: number) => boolean;
+  /**
+   * Each frame's coordinate arrays are valid only until the next frame is
+   * asked for (text formats then refill one pair of arrays): for consumers
+   * that copy them at once, such as assembly for the engine.
+   */
+  transientFrames?: boolean;
 }
 
 export interface OpenedTrajectory {
@@ -82,6 +88,7 @@ export async function openTrajectory(source: ByteSource, name: string, options: 
       firstIndex: options.startIndex ?? 0,
       totalBytes: compression === 'none' ? totalBytes : limits.maxDecompressedBytes,
       wants: options.wants,
+      transientFrames: options.transientFrames,
     };
     const lines = new LineReader(peeked.rest, {
       file,

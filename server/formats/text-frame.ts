@@ -16,6 +16,12 @@ export interface TextReadContext {
   totalBytes?: number;
   /** Frames for which this returns false are stepped over without parsing coordinates. */
   wants?: (index: number) => boolean;
+  /**
+   * The consumer copies each frame's coordinates before asking for the next
+   * (as assembly does), so one pair of arrays can be refilled frame after
+   * frame instead of a new pair per frame.
+   */
+  transientFrames?: boolean;
 }
 
 export interface TextFrame extends Frame {

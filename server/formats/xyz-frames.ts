@@ -27,6 +27,8 @@ export async function* readXyzFrames(
   let nAtoms = -1;
   const speciesCache: string[] = [];
   let lastSpecies: string[] | null = null;
+  // Refilled frame after frame when the consumer copies each frame at once.
+  const spare: { positions: Float64Array | null; velocities: Float64Array | null } = { positions: null, velocities: null };
   try {
     for (;;) {
       let found = false;
@@ -59,8 +61,9 @@ export async function* readXyzFrames(
       const { roles, hasVelocities } = info.columns;
       const firstFrame = nAtoms < 0;
       let capacity = firstFrame ? Math.min(n, INITIAL_ATOM_CAPACITY) : n;
-      let positions: Float64Array = new Float64Array(3 * capacity);
-      let velocities: Float64Array | undefined = hasVelocities ? new Float64Array(3 * capacity) : undefined;
+      // Every atom line sets x, y, z (and the velocities when the columns have them), so a reused array needs no clearing.
+      let positions: Float64Array = spare.positions?.length === 3 * n ? spare.positions : new Float64Array(3 * capacity);
+      let velocities: Float64Array | undefined = !hasVelocities ? undefined : spare.velocities?.length === 3 * n ? spare.velocities : new Float64Array(3 * capacity);
       let speciesChanged = lastSpecies === null;
       for (let a = 0; a < n; a++) {
         if (!lines.next() && !(await lines.nextLine())) throw truncated(file, index, headerLine, n, a);
@@ -109,6 +112,10 @@ export async function* readXyzFrames(
         }
       }
       if (speciesChanged) lastSpecies = speciesCache.slice(0, n);
+      if (ctx.transientFrames) {
+        spare.positions = positions;
+        if (velocities) spare.velocities = velocities;
+      }
       nAtoms = n;
       const frame: TextFrame = {
         index,
