@@ -45,9 +45,17 @@ export function isHdf5(head: Uint8Array): boolean {
 export function detectFormat(head: Uint8Array, file: string): TrajectoryFormat {
   if (head.length === 0) throw new TrajectoryFormatError('file is empty', { file });
   if (isHdf5(head)) return 'h5md';
-  const text = decodeTextHead(head, file);
-  const lines = text.split('\n').map((line) => line.replace(/\r$/, ''));
-  const firstIndex = lines.findIndex((line) => line.trim() !== '');
+  refuseBinary(head, file);
+  // Only the first non-blank line and the one after it decide, so the text is
+  // cut after the first newline past DETECT_BYTES (a head may be a whole 1 MB
+  // chunk), unless that cut leaves those two lines incomplete.
+  const cut = head.length > DETECT_BYTES ? head.indexOf(10, DETECT_BYTES) : -1;
+  let lines = textLines(cut >= 0 ? head.subarray(0, cut) : head);
+  let firstIndex = lines.findIndex((line) => line.trim() !== '');
+  if (cut >= 0 && (firstIndex < 0 || firstIndex + 1 >= lines.length)) {
+    lines = textLines(head);
+    firstIndex = lines.findIndex((line) => line.trim() !== '');
+  }
   if (firstIndex < 0) throw new TrajectoryFormatError('file holds only blank lines, no frames', { file });
   const first = lines[firstIndex];
   if (/^\s*\d+\s*$/.test(first)) {
@@ -66,7 +74,7 @@ export function detectFormat(head: Uint8Array, file: string): TrajectoryFormat {
 }
 
 /** Refuses binary content early with a clear message instead of a confusing parse error. */
-function decodeTextHead(head: Uint8Array, file: string): string {
+function refuseBinary(head: Uint8Array, file: string): void {
   let control = 0;
   for (let i = 0; i < head.length; i++) {
     const c = head[i];
@@ -76,7 +84,11 @@ function decodeTextHead(head: Uint8Array, file: string): string {
   if (control > head.length / 100 + 1) {
     throw new TrajectoryFormatError('binary data (control bytes in the text), not a text trajectory', { file });
   }
-  return Buffer.from(head.buffer, head.byteOffset, head.byteLength).toString('utf8');
+}
+
+function textLines(bytes: Uint8Array): string[] {
+  const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
+  return text.split('\n').map((line) => line.replace(/\r$/, ''));
 }
 
 /** The format a file name suggests, used only in messages and tie-breaks. */

@@ -70,5 +70,6 @@ export async function peek(
       if (!finished) await iterator.return?.();
     }
   }
-  return { head: Buffer.concat(taken, total), rest: rest() };
+  // One chunk (a file's first 1 MB read) is the head as it is, not a copy.
+  return { head: taken.length === 1 ? taken[0]! : Buffer.concat(taken, total), rest: rest() };
 }

@@ -29,6 +29,7 @@ export async function* readXyzFrames(
   let lastSpecies: string[] | null = null;
   // Refilled frame after frame when the consumer copies each frame at once.
   const spare: { positions: Float64Array | null; velocities: Float64Array | null } = { positions: null, velocities: null };
+  const atoms: AtomLoop = { speciesChanged: false };
   try {
     for (;;) {
       let found = false;
@@ -64,54 +65,24 @@ export async function* readXyzFrames(
       // Every atom line sets x, y, z (and the velocities when the columns have them), so a reused array needs no clearing.
       let positions: Float64Array = spare.positions?.length === 3 * n ? spare.positions : new Float64Array(3 * capacity);
       let velocities: Float64Array | undefined = !hasVelocities ? undefined : spare.velocities?.length === 3 * n ? spare.velocities : new Float64Array(3 * capacity);
-      let speciesChanged = lastSpecies === null;
-      for (let a = 0; a < n; a++) {
-        if (!lines.next() && !(await lines.nextLine())) throw truncated(file, index, headerLine, n, a);
+      atoms.speciesChanged = lastSpecies === null;
+      for (let a = 0; a < n; ) {
         if (a >= capacity) {
           capacity = Math.min(n, capacity * 2);
           positions = grow(positions, 3 * capacity);
           if (velocities) velocities = grow(velocities, 3 * capacity);
         }
-        const buf = lines.buf;
-        const end = lines.end;
-        let p = lines.start;
-        const base = 3 * a;
-        for (let col = 0; col < roles.length; col++) {
-          let c = buf[p];
-          // buf[end] is CR, LF or past the buffer: never a space, so the skip stops there by itself.
-          while (c === 32 || c === 9) c = buf[++p];
-          if (p >= end) throw atomLineError(lines, info.columns, index, n, a);
-          const tokenStart = p;
-          const role = roles[col];
-          if (role >= COLUMN.x) {
-            // Scanned and parsed in one pass.
-            const value = parseFieldBytes(buf, tokenStart, end);
-            p = field.end;
-            if (value - value !== 0) throw atomLineError(lines, info.columns, index, n, a);
-            if (role <= COLUMN.z) positions[base + role - COLUMN.x] = value;
-            else velocities![base + role - COLUMN.vx] = value;
-            continue;
-          }
-          while (p < end && c !== 32 && c !== 9) c = buf[++p];
-          if (role === COLUMN.species) {
-            const cached = speciesCache[a];
-            let same = cached !== undefined && cached.length === p - tokenStart;
-            if (same) {
-              for (let k = 0; k < cached.length; k++) {
-                if (cached.charCodeAt(k) !== buf[tokenStart + k]) {
-                  same = false;
-                  break;
-                }
-              }
-            }
-            if (!same) {
-              speciesCache[a] = buf.toString('utf8', tokenStart, p);
-              speciesChanged = true;
-            }
-          }
+        const stop = Math.min(n, capacity);
+        const reached = readBufferedAtoms(lines, a, stop, roles, positions, velocities, speciesCache, atoms);
+        if (reached < 0) throw atomLineError(lines, info.columns, index, n, -reached - 1);
+        a = reached;
+        if (a < stop) {
+          // The buffered lines ran out inside the frame.
+          if (lines.eof) throw truncated(file, index, headerLine, n, a);
+          await lines.more();
         }
       }
-      if (speciesChanged) lastSpecies = speciesCache.slice(0, n);
+      if (atoms.speciesChanged) lastSpecies = speciesCache.slice(0, n);
       if (ctx.transientFrames) {
         spare.positions = positions;
         if (velocities) spare.velocities = velocities;
@@ -135,6 +106,73 @@ export async function* readXyzFrames(
   } finally {
     await lines.close();
   }
+}
+
+/** What the atom-line loop reports besides where it stopped. */
+interface AtomLoop {
+  /** Set when some atom's species differs from the last frame's. */
+  speciesChanged: boolean;
+}
+
+/**
+ * Parses the atom lines a, a + 1, … before `stop` that are already
+ * buffered, and returns the index of the first atom it did not reach
+ * (`stop`, or less when the buffer ran out); for a bad line, -(atom + 1)
+ * with the reader left on that line. Kept apart from the frame loop so
+ * the engine compiles this small, hot function early and on its own.
+ */
+function readBufferedAtoms(
+  lines: LineReader,
+  a: number,
+  stop: number,
+  roles: Int8Array,
+  positions: Float64Array,
+  velocities: Float64Array | undefined,
+  speciesCache: string[],
+  loop: AtomLoop,
+): number {
+  for (; a < stop; a++) {
+    if (!lines.next()) return a;
+    const buf = lines.buf;
+    const end = lines.end;
+    let p = lines.start;
+    const base = 3 * a;
+    for (let col = 0; col < roles.length; col++) {
+      let c = buf[p];
+      // buf[end] is CR, LF or past the buffer: never a space, so the skip stops there by itself.
+      while (c === 32 || c === 9) c = buf[++p];
+      if (p >= end) return -a - 1;
+      const tokenStart = p;
+      const role = roles[col];
+      if (role >= COLUMN.x) {
+        // Scanned and parsed in one pass.
+        const value = parseFieldBytes(buf, tokenStart, end);
+        p = field.end;
+        if (value - value !== 0) return -a - 1;
+        if (role <= COLUMN.z) positions[base + role - COLUMN.x] = value;
+        else velocities![base + role - COLUMN.vx] = value;
+        continue;
+      }
+      while (p < end && c !== 32 && c !== 9) c = buf[++p];
+      if (role === COLUMN.species) {
+        const cached = speciesCache[a];
+        let same = cached !== undefined && cached.length === p - tokenStart;
+        if (same) {
+          for (let k = 0; k < cached.length; k++) {
+            if (cached.charCodeAt(k) !== buf[tokenStart + k]) {
+              same = false;
+              break;
+            }
+          }
+        }
+        if (!same) {
+          speciesCache[a] = buf.toString('utf8', tokenStart, p);
+          loop.speciesChanged = true;
+        }
+      }
+    }
+  }
+  return a;
 }
 
 function grow(array: Float64Array, length: number): Float64Array {

@@ -175,6 +175,16 @@ describe('detection without file names', () => {
     expect([xyz.format, ext.format, pdb.format]).toEqual(['xyz', 'extxyz', 'pdb']);
     await Promise.all([xyz, ext, pdb].map((o) => o.frames.return(undefined)));
   });
+
+  it('when the first lines sit past the first 64 KiB of a 1 MB read, then they still decide the format', async () => {
+    const system = makeSystem(2, 1);
+    const blanks = '\n'.repeat(70_000);
+    const longComment = `${' '.repeat(70_000)}Lattice="9 0 0 0 9 0 0 0 9" Properties=species:S:1:pos:R:3`;
+    const late = await openTrajectory(chunked(bytes(blanks + extxyzText(system)), [1 << 20]), 'upload');
+    const across = await openTrajectory(chunked(bytes(`2\n${longComment}\nO 0 0 0\nH 1 1 1\n`), [1 << 20]), 'upload');
+    expect([late.format, across.format]).toEqual(['extxyz', 'extxyz']);
+    await Promise.all([late, across].map((o) => o.frames.return(undefined)));
+  });
 });
 
 describe('assembly without a prior inspection', () => {
