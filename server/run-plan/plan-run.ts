@@ -110,7 +110,7 @@ export function adviceFor(plan: PlannedRun, facts: TrajectoryFacts, analyses: re
     const frames = Math.ceil(span / stride);
     if (frames < 2) break;
     if (within(at(frames), limits)) {
-      advice.push(`Analyse every ${stride}th frame (frame stride ${stride}): ${frames} frames instead of ${selection.frames}.`);
+      advice.push(`Analyse one frame in ${stride} (frame stride ${stride}): ${frames} frames instead of ${selection.frames}.`);
       break;
     }
   }
@@ -121,7 +121,8 @@ export function adviceFor(plan: PlannedRun, facts: TrajectoryFacts, analyses: re
       if (within(at(mid), limits)) lo = mid;
       else hi = mid;
     }
-    advice.push(`Analyse a shorter frame range: at most ${lo * selection.stride} frames at stride ${selection.stride} (for example fromFrame ${selection.from}, toFrame ${selection.from + lo * selection.stride}).`);
+    // No frame numbers: the dialog counts frames from 1 and the API from 0, and this advice reaches both.
+    advice.push(`Analyse a shorter frame range: at most ${lo * selection.stride} frames at stride ${selection.stride}.`);
   }
   const rdf = plan.estimate.analyses.find((a) => a.key === 'rdf');
   const bounded = defaultRMaxA(Math.max(facts.atoms, 2001), facts.cell);

@@ -91,6 +91,27 @@ test.describe('analysis runs', () => {
     expect(posted).toEqual([]);
   });
 
+  test('when the server estimates a run past the site\'s limits, then the dialog shows the time, memory and scratch disk, each piece of advice, and will not start it', async ({ page, context }) => {
+    const trajectory = await readyTrajectory(context, 'long-run.extxyz', await randomWalkExtxyz({ atoms: 4, frames: 50, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 10, seed: 4 }));
+    // The estimate of a run far longer than this file, as the server states one for a multi-GB upload.
+    const estimate = {
+      seconds: 9 * 3600, memoryBytes: 300 * 1024 ** 2, scratchBytes: 12 * 1024 ** 3,
+      analyses: [{ key: 'msd', seconds: 9 * 3600 }],
+      frames: { from: 0, to: 50, stride: 1, used: 50, discarded: 0, autoStride: false },
+      rMaxA: null, limits: { seconds: 4 * 3600, memoryBytes: 4 * 1024 ** 3 }, withinLimits: false,
+      advice: ['Analyse one frame in 3 (frame stride 3): 17 frames instead of 50.', 'Analyse a shorter frame range: at most 22 frames at stride 1.'],
+    };
+    await page.route('**/api/trajectories/*/analyses/estimate', (route) => route.fulfill({ json: { estimate } }));
+    await page.goto(`/projects/${trajectory.projectId}`);
+    await page.getByRole('button', { name: 'Analyse long-run.extxyz' }).click();
+    const dialog = page.getByRole('dialog');
+    await expect(dialog.getByText('Estimated about 9.0 h and 300 MiB of memory (the frames wait in 12 GiB of scratch disk), on 50 frames')).toBeVisible();
+    const refusal = dialog.getByRole('alert').filter({ hasText: 'This is past what this site runs' });
+    await expect(refusal).toContainText('This is past what this site runs (about 4.0 h and 4.0 GiB). Any one of these brings it within:');
+    await expect(refusal.getByRole('listitem')).toHaveText(estimate.advice);
+    await expect(dialog.getByRole('button', { name: 'Start analysis' })).toBeDisabled();
+  });
+
   test('when a run needs its start discarded, then the dialog offers the discard, estimates the run as frames are chosen, and the report names the frames used', async ({ page, context }) => {
     const trajectory = await readyTrajectory(context, 'relaxing.extxyz', await relaxingRunExtxyz());
     await page.goto(`/projects/${trajectory.projectId}`);
