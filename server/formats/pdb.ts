@@ -56,6 +56,7 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
   // Whether frame `wantedIndex` is to be parsed, asked once per frame rather than per atom line.
   let wantedIndex = -1;
   let wanted = true;
+  const cryst1: Cryst1Memo = { bytes: null, cell: null };
 
   const finish = (): TextFrame | null => {
     if (frameStart < 0 || atoms === 0) {
@@ -126,7 +127,7 @@ export async function* readPdb(lines: LineReader, ctx: TextReadContext): AsyncGe
         const frame = finish();
         if (frame && (!ctx.wants || ctx.wants(frame.index))) yield frame;
       } else if (record === 'CRYST1') {
-        cell = readCryst1(lines, ctx, index);
+        cell = cryst1Cell(lines, ctx, index, cryst1);
       }
     }
     const frame = finish();
@@ -248,6 +249,22 @@ function elementOf(buf: Buffer, start: number, end: number, where: { file: strin
 
 function capitalise(symbol: string): string {
   return symbol[0].toUpperCase() + symbol.slice(1).toLowerCase();
+}
+
+/** The last CRYST1 record's bytes and the cell read from them: frames of a run at constant volume repeat it byte for byte. */
+interface Cryst1Memo {
+  bytes: Buffer | null;
+  cell: Cell | null;
+}
+
+/** The cell of the current CRYST1 record, read afresh only when the record differs from the last one; each frame gets its own copy. */
+function cryst1Cell(lines: LineReader, ctx: TextReadContext, index: number, memo: Cryst1Memo): Cell | null {
+  const { buf, start, end } = lines;
+  if (memo.bytes === null || buf.compare(memo.bytes, 0, memo.bytes.length, start, end) !== 0) {
+    memo.cell = readCryst1(lines, ctx, index);
+    memo.bytes = Buffer.from(buf.subarray(start, end));
+  }
+  return memo.cell && memo.cell.slice();
 }
 
 /** CRYST1 a b c α β γ in columns 7–54; the 1 1 1 90 90 90 placeholder means "no cell". */

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { bytes, chunked, extxyzText, makeSystem, readAll } from './synthetic.ts';
 import { inspectTrajectory } from '../../../server/formats/inspect.ts';
+import { openTrajectory } from '../../../server/formats/open-trajectory.ts';
 
 const system = makeSystem(4, 3, 5);
 
@@ -142,6 +143,22 @@ describe('PDB', () => {
     const text = `CRYST1    1.000    1.000    1.000  90.00  90.00  90.00 P 1           1\n${atom('ATOM', ' O  ', 1, 2, 3, 'O')}\n`;
     const [frame] = await readAll(bytes(text), 'nmr.pdb');
     expect(frame.cell).toBeNull();
+  });
+
+  it('when models repeat or change their CRYST1 record, then each frame has its own cell with the values of the record before it', async () => {
+    const cryst1 = (a: number) => `CRYST1${a.toFixed(3).padStart(9)}${a.toFixed(3).padStart(9)}${a.toFixed(3).padStart(9)}  90.00  90.00  90.00 P 1           1`;
+    const model = (m: number, box: string) => `MODEL     ${String(m).padStart(4)}\n${box}\n${atom('ATOM', ' O  ', m, 0, 0, 'O')}\nENDMDL\n`;
+    const placeholder = 'CRYST1    1.000    1.000    1.000  90.00  90.00  90.00 P 1           1';
+    const text = [model(1, cryst1(20)), model(2, cryst1(20)), model(3, cryst1(25)), model(4, placeholder), model(5, placeholder), model(6, cryst1(20))].join('');
+    const seen: (number[] | null)[] = [];
+    const opened = await openTrajectory(chunked(bytes(text)), 'boxes.pdb');
+    for await (const frame of opened.frames) {
+      seen.push(frame.cell && Array.from(frame.cell));
+      // A consumer that scribbles on one frame's cell must not change the next frame's.
+      frame.cell?.fill(99);
+    }
+    const cube = (a: number) => [a, 0, 0, 0, a, 0, 0, 0, a];
+    expect(seen).toEqual([cube(20), cube(20), cube(25), null, null, cube(20)]);
   });
 
   it('when element columns are blank, then the element comes from the atom name, including HETATM records', async () => {
