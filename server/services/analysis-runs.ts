@@ -22,6 +22,7 @@ import { analysisRuns, reports, users } from '../db/schema/index.ts';
 import { AppError, conflict, notFound } from '../errors.ts';
 import { assertAffordable, planFor } from './run-costs.ts';
 import { getTrajectoryRow, touchProject } from './trajectories.ts';
+import { queueFrameStore } from './trajectory-frames.ts';
 
 type RunRow = typeof analysisRuns.$inferSelect;
 type NewReport = Omit<typeof reports.$inferInsert, 'id' | 'runId' | 'projectId' | 'trajectoryId' | 'createdAt'>;
@@ -63,6 +64,8 @@ export async function startRun(
     throw new AppError(503, 'queue_unavailable', 'The job queue cannot be reached right now, so the analysis was not started. Try again in a minute.');
   }
   await ctx.db.update(analysisRuns).set({ queueJobId: jobId }).where(eq(analysisRuns.id, id));
+  // Inspected before the frame store existed: this run reads the text, and the store written after it spares the next one.
+  if (!trajectory.frameStoreKey) queueFrameStore(ctx, trajectory.id);
   await touchProject(ctx, trajectory.projectId);
   return getRun(ctx, id);
 }

@@ -29,7 +29,7 @@ const storesAskedFor = new Set<number>();
  * (a job id already queued or kept is not added again); never fails the
  * request that asked.
  */
-function queueFrameStore(ctx: AppContext, trajectoryId: number): void {
+export function queueFrameStore(ctx: AppContext, trajectoryId: number): void {
   if (storesAskedFor.has(trajectoryId)) return;
   storesAskedFor.add(trajectoryId);
   ctx.queue.add('store-frames', { trajectoryId }, `store-frames-${trajectoryId}`).catch((err: Error) => {

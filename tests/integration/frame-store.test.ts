@@ -156,6 +156,25 @@ describe('the binary frame store written at inspection', () => {
     expectFrames(await viewerFrames(id, 'from=30&to=32'), [30, 31]);
   });
 
+  it('when a trajectory inspected before the store existed is analysed, then its store is written after that run, and a re-run reads the store without the text', async () => {
+    const id = await uploadReady(liquid.bytes, 'older-analysed.extxyz');
+    const inspected = await rowOf(id);
+    await ctx.store.deletePrefix(frameStorePrefixFor(inspected.objectKey));
+    await ctx.db.update(trajectories).set({ frameStoreKey: null, frameStoreBytes: 0 }).where(eq(trajectories.id, id));
+
+    const first = await analyse(id, ['thermo', 'msd']);
+    expect([first.status, first.error]).toEqual(['done', null]);
+    const stored = await pollUntil(() => rowOf(id), (r) => r.frameStoreKey !== null, 60_000);
+    expect((await openFrameStore(ctx.store, stored.frameStoreKey!)).index.frames).toBe(liquid.run.trajectory.nFrames);
+
+    // The text is gone: a re-run that parsed it again would fail.
+    await ctx.store.delete(stored.objectKey);
+    const again = await analyse(id, ['thermo', 'msd']);
+    expect([again.status, again.error]).toEqual(['done', null]);
+    const reports = await Promise.all([first, again].map(async (job) => (await owner.client.get(`/api/reports/${job.reportId}`)).body.report));
+    expect(reports[1].summary).toEqual(reports[0].summary);
+  });
+
   it('when a trajectory is deleted, then its frame store goes with it', async () => {
     const id = await uploadReady(liquid.bytes, 'doomed.extxyz');
     const row = await rowOf(id);
