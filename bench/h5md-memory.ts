@@ -5,9 +5,14 @@
  * [atoms] [frames]`); it writes a float64 H5MD of atoms × frames × 3
  * positions and velocities into a temp folder, reads it in a worker thread
  * running from source as inspection does (gzip-spooled), once with h5wasm
- * through the TypeScript loader and once kept away from it, and prints the
- * RSS after each step.
+ * through the TypeScript loader and once kept away from it, then reads a
+ * range of 40 frames from a decompressed copy as an older upload's local
+ * copy is read, and prints the RSS after each step and the peak RSS of the
+ * process. Positions are read one hyperslab of about 8 MiB of frames at a
+ * time, so the figures should not grow with the number of frames: run it
+ * with more frames to see. The peak is VmHWM on Linux (see `peakKiB`).
  */
+import { readFileSync } from 'node:fs';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -27,15 +32,17 @@ interface Job {
 async function inThread({ path, name }: Job): Promise<void> {
   // Each read spools into a folder of its own, as a job does.
   const tempDir = await mkdtemp(join(tmpdir(), 'ergodic-h5md-memory-spool-'));
-  const report = (step: string) => parentPort!.postMessage({ step, rssMiB: rss() });
+  const peak = () => Math.round(peakKiB() / 1024);
+  const report = (step: string) => parentPort!.postMessage({ step, rssMiB: rss(), peakMiB: peak() });
   report('thread started');
   const h5 = await import('h5wasm/node');
   await h5.ready;
   report('HDF5 module loaded');
   const { openTrajectory } = await import('../server/formats/open-trajectory.ts');
-  const bytes = await readFile(path);
+  const { createReadStream } = await import('node:fs');
+  // Streamed from disk as an upload arrives, so the compressed file is not held here and the figures are the reader's.
   async function* stream() {
-    for (let at = 0; at < bytes.length; at += 64 * 1024) yield bytes.subarray(at, at + 64 * 1024);
+    yield* createReadStream(path, { highWaterMark: 64 * 1024 }) as AsyncIterable<Buffer>;
   }
   const opened = await openTrajectory(stream(), name, { tempDir });
   let frames = 0;
@@ -48,7 +55,36 @@ async function inThread({ path, name }: Job): Promise<void> {
   const again = await openTrajectory(stream(), name, { tempDir });
   for await (const frame of again.frames) void frame;
   report('second file read in the same thread');
+  // Decompressed by streaming, as the local copy is made, so the copy itself costs no memory here.
+  const { createGunzip } = await import('node:zlib');
+  const { createWriteStream } = await import('node:fs');
+  const { pipeline } = await import('node:stream/promises');
+  const copy = join(tempDir, 'local-copy.h5');
+  await pipeline(createReadStream(path), createGunzip(), createWriteStream(copy));
+  const { readFrames } = await import('../server/formats/read-frames.ts');
+  const from = Math.floor(frames / 4);
+  let ranged = 0;
+  for await (const frame of readFrames(copy, { from, to: from + 40 })) {
+    ranged++;
+    void frame;
+  }
+  report(`frames [${from}, ${from + ranged}) of a local copy`);
   await rm(tempDir, { recursive: true, force: true });
+}
+
+/**
+ * The highest RSS of this process so far, in KiB. On Linux from VmHWM, which
+ * starts afresh at exec: getrusage's maxRSS keeps the high mark of the
+ * process that spawned this one (here the sample writer) across exec.
+ */
+function peakKiB(): number {
+  try {
+    const line = readFileSync('/proc/self/status', 'utf8').split('\n').find((l) => l.startsWith('VmHWM:'));
+    if (line) return Number(line.replace(/\D+/g, ''));
+  } catch {
+    // No /proc: fall back to getrusage below.
+  }
+  return process.resourceUsage().maxRSS;
 }
 
 async function writeSample(dir: string, atoms: number, frames: number): Promise<string> {
@@ -101,7 +137,9 @@ async function readInWorker(path: string, guard: boolean): Promise<void> {
   const before = rss();
   console.log(`process before the thread: ${before} MiB`);
   const worker = new Worker(new URL('./h5md-memory-thread.mjs', import.meta.url), { workerData: { path, name: 'sample.h5.gz', guard } satisfies Job });
-  worker.on('message', (m: { step: string; rssMiB: number }) => console.log(`${m.step.padEnd(40)} ${String(m.rssMiB).padStart(6)} MiB  (+${m.rssMiB - before})`));
+  // The peak (maxRSS, of the whole process) is the highest RSS so far, between steps included.
+  worker.on('message', (m: { step: string; rssMiB: number; peakMiB: number }) =>
+    console.log(`${m.step.padEnd(40)} ${String(m.rssMiB).padStart(6)} MiB  (+${m.rssMiB - before})  peak so far ${m.peakMiB} MiB`));
   await new Promise((resolve, reject) => worker.once('exit', resolve).once('error', reject));
 }
 
