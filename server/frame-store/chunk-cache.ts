@@ -4,7 +4,9 @@
  * through one trajectory then cost one object-store read per chunk instead
  * of a few ranged reads per request. Objects under a frame-store key never
  * change (a key names one trajectory's folder for good), so an entry is
- * never stale; one removed with its trajectory simply ages out.
+ * never stale; one removed with its trajectory simply ages out. Bytes made
+ * from such objects (the frames API's encoded answers) are kept in the same
+ * budget, under keys of their own, so one setting bounds both.
  */
 import type { ObjectSource } from './reader.ts';
 
@@ -17,6 +19,18 @@ export class ChunkCache {
 
   /** The object, read once and shared by every caller until it is pushed out. */
   get(key: string): Promise<Uint8Array> {
+    return this.held(`object:${key}`, () => this.source.getBytes(key));
+  }
+
+  /**
+   * Bytes made from immutable objects, made once and shared like an object.
+   * `key` must name everything the bytes depend on: an entry is never remade.
+   */
+  made<T extends Uint8Array>(key: string, make: () => Promise<T>): Promise<T> {
+    return this.held(`made:${key}`, make) as Promise<T>;
+  }
+
+  private held(key: string, load: () => Promise<Uint8Array>): Promise<Uint8Array> {
     const hit = this.entries.get(key);
     if (hit) {
       // Map order is insertion order: re-inserting marks it most recently used.
@@ -24,7 +38,7 @@ export class ChunkCache {
       this.entries.set(key, hit);
       return hit;
     }
-    const loading = this.source.getBytes(key);
+    const loading = load();
     this.entries.set(key, loading);
     loading.then((bytes) => {
       if (this.entries.get(key) !== loading) return;

@@ -8,7 +8,7 @@ import { badRequest } from '../errors.ts';
 import {
   abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata, updateMetadataOfMany,
 } from '../services/trajectories.ts';
-import { cutFileName, extxyzCut, framesChunk } from '../services/trajectory-frames.ts';
+import { cutFileName, extxyzCut, framesAnswer } from '../services/trajectory-frames.ts';
 import { body, idField, params, query } from './request-parts.ts';
 import { download, noContent, wrapped, type RouteDef } from './route-table.ts';
 import { trajectoryUpload } from './upload-middleware.ts';
@@ -132,9 +132,15 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const { id } = params(req, { id: idField });
         const row = await getTrajectoryRow(ctx, id);
-        const payload = await framesChunk(ctx, row, query(req, frameRangeQuery));
+        const answer = framesAnswer(ctx, row, query(req, frameRangeQuery));
         res.type('application/octet-stream').setHeader('Cache-Control', 'private, max-age=3600');
-        res.send(payload);
+        // Set before sending, so Express does not hash the body for one; a browser revalidating gets a 304 without it.
+        res.setHeader('ETag', answer.etag);
+        if (req.fresh) {
+          res.status(304).end();
+          return;
+        }
+        res.send(await answer.payload());
       },
     },
     {

@@ -60,6 +60,16 @@ export function frameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<Frame
 const viewerCaches = new WeakMap<AppContext['store'], ChunkCache>();
 const viewerStores = new Map<string, Promise<FrameStore>>();
 
+/** The frame viewer's cache (FRAME_CACHE_BYTES) of frame-store objects and the answers made from them. */
+export function viewerCacheOf(ctx: AppContext): ChunkCache {
+  let cache = viewerCaches.get(ctx.store);
+  if (!cache) {
+    cache = new ChunkCache(ctx.store, ctx.config.FRAME_CACHE_BYTES);
+    viewerCaches.set(ctx.store, cache);
+  }
+  return cache;
+}
+
 /**
  * The trajectory's frame store read through the viewer's cache of whole
  * chunks, or null for an upload inspected before the store existed.
@@ -67,11 +77,7 @@ const viewerStores = new Map<string, Promise<FrameStore>>();
 export function viewerFrameStoreOf(ctx: AppContext, row: TrajectoryRow): Promise<FrameStore> | null {
   const key = row.frameStoreKey;
   if (!key) return null;
-  let cache = viewerCaches.get(ctx.store);
-  if (!cache) {
-    cache = new ChunkCache(ctx.store, ctx.config.FRAME_CACHE_BYTES);
-    viewerCaches.set(ctx.store, cache);
-  }
+  const cache = viewerCacheOf(ctx);
   let opened = viewerStores.get(key);
   if (!opened) {
     opened = openFrameStore(cache.asSource(), key);

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { AppContext } from '../context.ts';
 import type { TrajectoryRow } from '../db/schema/index.ts';
 import type { Frame } from '../formats/frame.ts';
@@ -6,7 +7,7 @@ import { LENGTH_TO_ANGSTROM, type LengthUnit } from '../formats/units.ts';
 import { writeExtxyz } from '../formats/write-extxyz.ts';
 import { badRequest, conflict } from '../errors.ts';
 import { encodeFrames, encodeFramesPayload } from './frames-payload.ts';
-import { storedFrames, viewerFrameStoreOf } from './stored-trajectory.ts';
+import { storedFrames, viewerCacheOf, viewerFrameStoreOf } from './stored-trajectory.ts';
 
 /** Most coordinates one frames request returns (16 MB of Float32). */
 const MAX_VALUES_PER_REQUEST = 4_000_000;
@@ -38,26 +39,48 @@ export function queueFrameStore(ctx: AppContext, trajectoryId: number): void {
   });
 }
 
-/** A chunk of frames for the viewer, positions in Å; long requests are cut to a size the browser can take. */
-export async function framesChunk(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): Promise<Buffer> {
+/** What the frames API answers: a validator known before any frame is read, and the payload. */
+export interface FramesAnswer {
+  /** A strong ETag, the same for good for the same stored frames, range and unit. */
+  etag: string;
+  payload(): Promise<Buffer>;
+}
+
+/** The payload layout (frames-payload.ts) is part of every ETag, so a browser never reuses an answer of another layout. */
+const PAYLOAD_LAYOUT = 1;
+
+/**
+ * A chunk of frames for the viewer, positions in Å; long requests are cut
+ * to a size the browser can take. Stored frames never change (a frame
+ * store or upload key names one trajectory's objects for good), so the
+ * encoded payload is made once per trajectory, range and unit and kept in
+ * the viewer's cache: many people watching one trajectory share it.
+ */
+export function framesAnswer(ctx: AppContext, row: TrajectoryRow, requested: Required<FrameRange>): FramesAnswer {
   assertReady(row);
   const range = clampRange(row, requested);
   const perFrame = Math.max(1, (row.atoms ?? 1) * 3);
   const maxFrames = Math.max(1, Math.floor(MAX_VALUES_PER_REQUEST / perFrame));
-  const to = Math.min(range.to, range.from + maxFrames * range.stride);
+  const cut = { ...range, to: Math.min(range.to, range.from + maxFrames * range.stride) };
   const toAngstrom = LENGTH_TO_ANGSTROM[row.lengthUnit as LengthUnit] ?? 1;
+  const key = [row.frameStoreKey ?? `text:${row.objectKey}`, cut.from, cut.to, cut.stride, toAngstrom].join('|');
+  const etag = `"${createHash('sha256').update(`${PAYLOAD_LAYOUT}|${key}`).digest('base64url')}"`;
+  // Inspected before the store existed: the store is written once in the background, and until then
+  // the file is read (a compressed one from its first byte for every chunk).
+  if (!row.frameStoreKey) queueFrameStore(ctx, row.id);
+  return { etag, payload: () => viewerCacheOf(ctx).made(key, () => encodeChunk(ctx, row, cut, toAngstrom)) };
+}
+
+async function encodeChunk(ctx: AppContext, row: TrajectoryRow, range: Required<FrameRange>, toAngstrom: number): Promise<Buffer> {
   const store = viewerFrameStoreOf(ctx, row);
   if (store) {
     const opened = await store;
-    const { frames, positions } = await opened.readPositions({ ...range, to });
+    const { frames, positions } = await opened.readPositions(range);
     const { atoms, speciesNames, speciesIndex } = opened.index;
     return encodeFramesPayload({ atoms, speciesNames, speciesIndex, frames, positions }, toAngstrom);
   }
-  // Inspected before the store existed: the store is written once in the background, and until then
-  // the file is read (a compressed one from its first byte for every chunk).
-  queueFrameStore(ctx, row.id);
   const frames: Frame[] = [];
-  for await (const frame of storedFrames(ctx, row, { ...range, to })) frames.push(frame);
+  for await (const frame of storedFrames(ctx, row, range)) frames.push(frame);
   return encodeFrames(frames, toAngstrom);
 }
 

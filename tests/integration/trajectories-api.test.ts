@@ -2,9 +2,10 @@ import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { request as httpRequest } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { gzipSync } from 'node:zlib';
+import supertest from 'supertest';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { trajectories } from '../../server/db/schema/index.ts';
+import { projectMembers, trajectories } from '../../server/db/schema/index.ts';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
 import { dropStaleUploads } from '../../server/services/trajectories.ts';
 import { decodeFramesPayload } from '../../src/app/viewer/frames-payload-decoder.ts';
@@ -246,6 +247,68 @@ describe('trajectory metadata, frames and cuts', () => {
       // The file holds decimal text; Float32 round trip to 1e-4 Å is ample for a viewer.
       for (let i = 0; i < n3; i += 37) expect(got[i]).toBeCloseTo(expected[i]!, 3);
     }
+  });
+
+  /** The frames payload as bytes, with the response's status and headers. */
+  async function framesOf(client: ApiClient, query: string, headers: Record<string, string> = {}) {
+    let req = client.raw('get', `/api/trajectories/${id}/frames?${query}`);
+    for (const [name, value] of Object.entries(headers)) req = req.set(name, value);
+    return req.buffer(true).parse((response, done) => {
+      const chunks: Buffer[] = [];
+      response.on('data', (c: Buffer) => chunks.push(c));
+      response.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+  }
+
+  it('when the viewer asks again for frames it holds, then an ETag names them, a revalidation gets 304 without a body, and another range or unit has another ETag', async () => {
+    const first = await framesOf(script, 'from=3&to=5');
+    expect(first.status).toBe(200);
+    const etag = first.headers['etag'] as string;
+    expect(etag).toMatch(/^"[A-Za-z0-9_-]+"$/);
+    expect(first.headers['cache-control']).toBe('private, max-age=3600');
+    // Asked again (now from the server's cache), the same bytes under the same name.
+    const again = await framesOf(script, 'from=3&to=5');
+    expect(again.headers['etag']).toBe(etag);
+    expect(Buffer.compare(again.body as Buffer, first.body as Buffer)).toBe(0);
+    const revalidated = await framesOf(script, 'from=3&to=5', { 'If-None-Match': etag });
+    expect(revalidated.status).toBe(304);
+    expect((revalidated.body as Buffer).length).toBe(0);
+    expect((await framesOf(script, 'from=4&to=6')).headers['etag']).not.toBe(etag);
+    // Stated in nm instead, the same stored numbers are ten times as many Å: a new ETag and new positions.
+    const unit = (await script.get(`/api/trajectories/${id}`)).body.trajectory.lengthUnit as string;
+    expect(unit).toBe('angstrom');
+    expect((await script.patch(`/api/trajectories/${id}`, { lengthUnit: 'nm' })).status).toBe(200);
+    try {
+      const inNm = await framesOf(script, 'from=3&to=5', { 'If-None-Match': etag });
+      expect(inNm.status).toBe(200);
+      expect(inNm.headers['etag']).not.toBe(etag);
+      const positions = (res: { body: unknown }) => {
+        const body = res.body as Buffer;
+        return decodeFramesPayload(body.buffer.slice(body.byteOffset, body.byteOffset + body.byteLength) as ArrayBuffer).frames[0]!.positions;
+      };
+      const before = positions(first);
+      const after = positions(inNm);
+      for (let i = 0; i < before.length; i += 29) expect(after[i]).toBeCloseTo(before[i]! * 10, 3);
+    } finally {
+      await script.patch(`/api/trajectories/${id}`, { lengthUnit: unit });
+    }
+  });
+
+  it('when a member is removed or signs out, then their next frames request is refused at once, right after one that was served', async () => {
+    const member = await signUp(app, 'watcher');
+    await ctx.db.insert(projectMembers).values({ projectId, userId: member.id, role: 'viewer' });
+    expect((await framesOf(member.client, 'from=0&to=1')).status).toBe(200);
+    expect((await owner.client.delete(`/api/projects/${projectId}/members/${member.id}`)).status).toBe(204);
+    expect((await framesOf(member.client, 'from=0&to=1')).status).toBe(404);
+
+    const leaving = await signUp(app, 'leaver');
+    await ctx.db.insert(projectMembers).values({ projectId, userId: leaving.id, role: 'viewer' });
+    const served = await framesOf(leaving.client, 'from=0&to=1');
+    expect(served.status).toBe(200);
+    const sessionCookie = ([] as string[]).concat(served.headers['set-cookie'] ?? []).find((c) => c.startsWith('ergodic.sid='))!.split(';')[0]!;
+    expect((await leaving.client.post('/api/auth/logout')).status).toBe(204);
+    // The cookie of the ended session, sent again as a stale tab would.
+    expect((await supertest(app).get(`/api/trajectories/${id}/frames?from=0&to=1`).set('Cookie', sessionCookie)).status).toBe(401);
   });
 
   it('when a range starts past the last frame, then it says how many frames there are', async () => {

@@ -51,4 +51,22 @@ describe('the frame viewer cache of frame-store objects', () => {
     expect(source.reads).toEqual(['missing', 'missing']);
     expect(cache.heldBytes).toBe(0);
   });
+
+  it('when many requests want the same made bytes at once, then they are made once, share the budget with objects, and a failure is not kept', async () => {
+    const source = countingSource({ a: filled(60, 1) });
+    const cache = new ChunkCache(source, 100);
+    let makings = 0;
+    const make = async () => { makings++; return filled(30, 7); };
+    const all = await Promise.all(Array.from({ length: 10 }, () => cache.made('payload of a', make)));
+    expect(makings).toBe(1);
+    all.forEach((bytes) => expect(bytes).toBe(all[0]));
+    await cache.get('a');
+    expect(cache.heldBytes).toBe(90);
+    // A made entry never stands in for the object of the same name, or the other way round.
+    expect(await cache.made('a', make)).toHaveLength(30);
+    expect(makings).toBe(2);
+    expect(cache.heldBytes).toBeLessThanOrEqual(100);
+    await expect(cache.made('broken', async () => { throw new Error('could not make it'); })).rejects.toThrow(/could not make it/);
+    expect(await cache.made('broken', make)).toHaveLength(30);
+  });
 });
