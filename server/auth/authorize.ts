@@ -1,11 +1,10 @@
 import type {} from 'passport';
 import type { Request, RequestHandler, Response } from 'express';
-import { and, eq } from 'drizzle-orm';
 import type { AppContext } from '../context.ts';
-import { projectMembers, projects, type ProjectRole } from '../db/schema/index.ts';
+import type { ProjectRole } from '../db/schema/index.ts';
 import { forbidden, notFound, unauthorized } from '../errors.ts';
 import type { Access } from '../routes/route-table.ts';
-import { projectOf } from './project-of.ts';
+import { membershipVia } from './project-of.ts';
 
 const RANK: Record<ProjectRole, number> = { viewer: 1, editor: 2, owner: 3 };
 
@@ -60,16 +59,12 @@ export function authorize(ctx: AppContext, access: Access): RequestHandler {
     const id = idParam(raw);
     const what = access.via[0]!.toUpperCase() + access.via.slice(1);
     if (id === null) throw notFound(what);
-    const projectId = await projectOf(ctx.db, access.via, id);
-    if (projectId === null) throw notFound(what);
-    const [membership] = await ctx.db.select({ role: projectMembers.role }).from(projectMembers)
-      .innerJoin(projects, eq(projects.id, projectMembers.projectId))
-      .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, user.id)));
+    const membership = await membershipVia(ctx.db, access.via, id, user.id);
     if (!membership) throw notFound(what);
     if (RANK[membership.role] < RANK[access.role]) {
       throw forbidden(`This needs the ${access.role} role in the project; you are ${membership.role === 'editor' ? 'an' : 'a'} ${membership.role}.`);
     }
-    res.locals['projectId'] = projectId;
+    res.locals['projectId'] = membership.projectId;
     res.locals['projectRole'] = membership.role;
     next();
   };

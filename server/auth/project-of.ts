@@ -1,28 +1,26 @@
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { Database } from '../db/client.ts';
-import { analysisRuns, reports, series, trajectories } from '../db/schema/index.ts';
+import { analysisRuns, projectMembers, reports, series, trajectories, type ProjectRole } from '../db/schema/index.ts';
 import type { ResourceKind } from '../routes/route-table.ts';
 
-/** The project a resource belongs to, or null when the resource does not exist. */
-export async function projectOf(db: Database, kind: ResourceKind, id: number): Promise<number | null> {
-  switch (kind) {
-    case 'project':
-      return id;
-    case 'trajectory': {
-      const [row] = await db.select({ p: trajectories.projectId }).from(trajectories).where(eq(trajectories.id, id));
-      return row?.p ?? null;
-    }
-    case 'report': {
-      const [row] = await db.select({ p: reports.projectId }).from(reports).where(eq(reports.id, id));
-      return row?.p ?? null;
-    }
-    case 'job': {
-      const [row] = await db.select({ p: analysisRuns.projectId }).from(analysisRuns).where(eq(analysisRuns.id, id));
-      return row?.p ?? null;
-    }
-    case 'series': {
-      const [row] = await db.select({ p: series.projectId }).from(series).where(eq(series.id, id));
-      return row?.p ?? null;
-    }
+/** Tables of resources that belong to a project, by the kind a route names. */
+const RESOURCE_TABLES = { trajectory: trajectories, report: reports, job: analysisRuns, series } as const;
+
+/**
+ * The project a resource belongs to and the user's role in it, in one
+ * query; null when the resource does not exist or the user is not a member
+ * (the caller answers both alike). Read afresh on every request, so a
+ * removed member or a lowered role counts at once.
+ */
+export async function membershipVia(db: Database, kind: ResourceKind, id: number, userId: number): Promise<{ projectId: number; role: ProjectRole } | null> {
+  if (kind === 'project') {
+    const [row] = await db.select({ projectId: projectMembers.projectId, role: projectMembers.role }).from(projectMembers)
+      .where(and(eq(projectMembers.projectId, id), eq(projectMembers.userId, userId)));
+    return row ?? null;
   }
+  const table = RESOURCE_TABLES[kind];
+  const [row] = await db.select({ projectId: table.projectId, role: projectMembers.role }).from(table)
+    .innerJoin(projectMembers, and(eq(projectMembers.projectId, table.projectId), eq(projectMembers.userId, userId)))
+    .where(eq(table.id, id));
+  return row ?? null;
 }
