@@ -40,27 +40,52 @@ export class Autocorrelator {
     this.power = new Float64Array(this.fftLength);
   }
 
+  /** Length of the one-sided power spectra `addPower` fills and `lagSumsOf` reads: L/2 + 1. */
+  get powerLength(): number {
+    return (this.fftLength >>> 1) + 1;
+  }
+
   /** Writes the raw lag sums for lags 0..out.length−1 (out.length ≤ length). */
   correlate(x: ArrayLike<number>, out: Float64Array, offset = 0): Float64Array {
+    const power = this.power;
+    power.fill(0, 0, this.powerLength);
+    this.addPower(x, power, offset);
+    return this.lagSumsOf(power, out);
+  }
+
+  /**
+   * Adds weight·|X_k|² (k = 0..L/2) of x[offset, offset + length), zero
+   * padded, into `into`. The transform is linear, so the lag sums of many
+   * series add up to `lagSumsOf` their summed powers: one inverse transform
+   * for a whole group instead of one per series.
+   */
+  addPower(x: ArrayLike<number>, into: Float64Array, offset = 0, weight = 1): void {
     const n = this.length;
-    const L = this.fftLength;
     const input = this.input;
     for (let i = 0; i < n; i++) input[i] = x[offset + i];
     input.fill(0, n);
     const spec = this.spectrum;
     this.fft.realTransform(spec, input);
-    const power = this.power;
-    const half = L >>> 1;
-    for (let k = 0; k <= half; k++) {
-      const re = spec[2 * k];
-      const im = spec[2 * k + 1];
-      power[k] = re * re + im * im;
+    const half = this.fftLength >>> 1;
+    if (weight === 1) {
+      for (let k = 0; k <= half; k++) into[k] += spec[2 * k] * spec[2 * k] + spec[2 * k + 1] * spec[2 * k + 1];
+    } else {
+      for (let k = 0; k <= half; k++) into[k] += weight * (spec[2 * k] * spec[2 * k] + spec[2 * k + 1] * spec[2 * k + 1]);
     }
-    for (let k = 1; k < half; k++) power[L - k] = power[k];
+  }
+
+  /** The raw lag sums for lags 0..out.length−1 of the series whose powers were added into `power` (length L/2 + 1). */
+  lagSumsOf(power: Float64Array, out: Float64Array): Float64Array {
+    const L = this.fftLength;
+    const half = L >>> 1;
+    const full = this.power;
+    if (full !== power) full.set(power.subarray(0, half + 1));
+    for (let k = 1; k < half; k++) full[L - k] = full[k];
     // The power spectrum is real and even, so a forward real transform gives
     // L times the inverse transform.
-    this.fft.realTransform(spec, power);
-    const m = Math.min(out.length, n);
+    const spec = this.spectrum;
+    this.fft.realTransform(spec, full);
+    const m = Math.min(out.length, this.length);
     const scale = 1 / L;
     for (let i = 0; i < m; i++) out[i] = spec[2 * i] * scale;
     return out;

@@ -76,46 +76,48 @@ export function msd(traj: Trajectory, options: MsdOptions = {}, onProgress?: (fr
   const lagPs = Float64Array.from({ length: nLags }, (_, m) => m * dt);
   const engine = new FftMsd(T, nLags, { zeroPad: options.zeroPad });
   const series = new Float64Array(3 * T);
-  const perAtom = new Float64Array(nLags);
-  const perAxis = [0, 1, 2].map(() => new Float64Array(nLags)) as [Float64Array, Float64Array, Float64Array];
-  const component = new Float64Array(nLags);
+  // Each atom's power spectra and running sums go into its groups, blocks
+  // and axes; one inverse transform per sum at the end gives their MSDs.
+  const perAtom = engine.newSum();
+  const component = engine.newSum();
+  const perAxisSums = slab ? [0, 1, 2].map(() => engine.newSum()) : [];
 
   const groupOf = new Map<number, number[]>();
   sel.groups.forEach((g, gi) => g.atoms.forEach((a) => groupOf.set(a, [...(groupOf.get(a) ?? []), gi])));
-  const sums = sel.groups.map(() => new Float64Array(nLags));
+  const groupSums = sel.groups.map(() => engine.newSum());
   const blockPlans = sel.groups.map((g) => atomBlockIndex(g.atoms.length));
-  const blocks = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => new Float64Array(nLags)));
+  const blockSums = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => engine.newSum()));
   const blockCount = blockPlans.map((plan) => new Float64Array(plan?.blocks ?? 0));
   const seen = sel.groups.map(() => 0);
 
   sel.atoms.forEach((atom, k) => {
     reader.unwrapped(atom, series);
-    perAtom.fill(0);
+    perAtom.clear();
     if (slab) {
       // Each direction on its own, so a slab's in-plane and normal motion can be told apart.
       for (let c = 0; c < 3; c++) {
-        component.fill(0);
-        engine.accumulate(series, c * T, component);
-        const axis = perAxis[c]!;
-        for (let m = 0; m < nLags; m++) axis[m] += component[m];
-        if (dims.includes(c)) for (let m = 0; m < nLags; m++) perAtom[m] += component[m];
+        component.clear();
+        engine.addTo(series, c * T, component);
+        perAxisSums[c]!.add(component);
+        if (dims.includes(c)) perAtom.add(component);
       }
     } else {
-      for (const c of dims) engine.accumulate(series, c * T, perAtom);
+      for (const c of dims) engine.addTo(series, c * T, perAtom);
     }
     for (const gi of groupOf.get(atom) ?? []) {
-      const sum = sums[gi];
-      for (let m = 0; m < nLags; m++) sum[m] += perAtom[m];
+      groupSums[gi]!.add(perAtom);
       const plan = blockPlans[gi];
       const member = seen[gi]++;
       if (!plan) continue;
       const b = plan.of(member);
-      const block = blocks[gi][b];
-      for (let m = 0; m < nLags; m++) block[m] += perAtom[m];
+      blockSums[gi]![b]!.add(perAtom);
       blockCount[gi][b]++;
     }
     onProgress?.((k + 1) / sel.atoms.length);
   });
+  const sums = groupSums.map((sum) => engine.curveOf(sum));
+  const blocks = blockSums.map((group) => group.map((sum) => engine.curveOf(sum)));
+  const perAxis = (slab ? perAxisSums.map((sum) => engine.curveOf(sum)) : [0, 1, 2].map(() => new Float64Array(nLags))) as [Float64Array, Float64Array, Float64Array];
 
   // Origins thin out at long lags; a quarter of the run keeps ≥ 3/4 of them.
   const endIndex = Math.min(nLags - 1, Math.floor((T - 1) / AUTO_FIT_END_FRACTION_INVERSE));

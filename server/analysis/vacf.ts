@@ -88,48 +88,56 @@ export function vacf(traj: Trajectory, options: VacfOptions = {}, onProgress?: (
   const correlator = new Autocorrelator(L);
   const velocities = new Float64Array(3 * L);
   const scratch = new Float64Array(3 * traj.nFrames);
-  const lagSums = new Float64Array(nLags);
-  const perAtom = new Float64Array(nLags);
+  // Each atom's power spectrum (over the components) goes into its group's
+  // plain and mass-weighted sums and its block; one inverse transform per sum
+  // at the end gives Σ⟨v(0)·v(t)⟩, as the transform is linear.
+  const P = correlator.powerLength;
+  const perAtom = new Float64Array(P);
 
-  const sums = sel.groups.map(() => new Float64Array(nLags));
-  const weighted = sel.groups.map(() => new Float64Array(nLags));
+  const sums = sel.groups.map(() => new Float64Array(P));
+  const weighted = sel.groups.map(() => new Float64Array(P));
   const memberOf = sel.groups.map((g) => new Set(g.atoms));
   const blockPlans = sel.groups.map((g) => atomBlockIndex(g.atoms.length));
-  const blockSums = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => new Float64Array(nLags)));
+  const blockPowers = blockPlans.map((plan) => Array.from({ length: plan?.blocks ?? 0 }, () => new Float64Array(P)));
   const blockCount = blockPlans.map((plan) => new Float64Array(plan?.blocks ?? 0));
   const seen = sel.groups.map(() => 0);
 
   sel.atoms.forEach((atom, k) => {
     reader.velocities(atom, velocities, dt, scratch);
     perAtom.fill(0);
-    for (const c of dims) {
-      correlator.correlate(velocities, lagSums, c * L);
-      for (let m = 0; m < nLags; m++) perAtom[m] += lagSums[m] / (L - m);
-    }
+    for (const c of dims) correlator.addPower(velocities, perAtom, c * L);
     const mass = sel.masses[atom];
     sel.groups.forEach((_, gi) => {
       if (!memberOf[gi].has(atom)) return;
       const s = sums[gi], w = weighted[gi];
-      for (let m = 0; m < nLags; m++) {
-        s[m] += perAtom[m];
-        w[m] += mass * perAtom[m];
+      for (let q = 0; q < P; q++) {
+        s[q] += perAtom[q];
+        w[q] += mass * perAtom[q];
       }
       const plan = blockPlans[gi];
       const member = seen[gi]++;
       if (plan) {
         const b = plan.of(member);
-        const block = blockSums[gi][b];
-        for (let m = 0; m < nLags; m++) block[m] += perAtom[m];
+        const block = blockPowers[gi][b];
+        for (let q = 0; q < P; q++) block[q] += perAtom[q];
         blockCount[gi][b]++;
       }
     });
     onProgress?.((k + 1) / sel.atoms.length);
   });
+  /** Σ over the summed series of ⟨v(0)·v(t)⟩ for lags 0..nLags−1. */
+  const lagMeans = (power: Float64Array): Float64Array => {
+    const out = correlator.lagSumsOf(power, new Float64Array(nLags));
+    for (let m = 0; m < nLags; m++) out[m] /= L - m;
+    return out;
+  };
+  const blockSums = blockPowers.map((group) => group.map(lagMeans));
+  const weightedSums = weighted.map(lagMeans);
 
   const end = Math.min(nLags - 1, Math.floor((L - 1) / 4));
   const groups = sel.groups.map((g, gi): VacfGroupResult => {
     const n = g.atoms.length;
-    const c = sums[gi].map((v) => v / n);
+    const c = lagMeans(sums[gi]).map((v) => v / n);
     const c0 = c[0];
     const normalised = c.map((v) => (c0 > 0 ? v / c0 : 0));
     const running = runningIntegral(c, dt, dims.length);
@@ -150,7 +158,7 @@ export function vacf(traj: Trajectory, options: VacfOptions = {}, onProgress?: (
         d: gk.d, dSpread: gk.dSpread, window: gk.window, converged: gk.converged,
         dStdError: error ? diffusionUnits(error.se) : null, uncertaintyMethod: error?.method ?? 'none', uncertaintyBlocks: error?.blocks ?? 0,
       },
-      massWeightedSum: weighted[gi],
+      massWeightedSum: weightedSums[gi],
       totalMassU: totalMass,
     };
   });
