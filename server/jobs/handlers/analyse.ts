@@ -6,7 +6,7 @@ import type { AppContext } from '../../context.ts';
 import type { TrajectoryRow } from '../../db/schema/index.ts';
 import { TrajectoryFormatError, type Frame } from '../../formats/frame.ts';
 import { assembleTrajectory, type AssembleSpill } from '../../formats/assemble.ts';
-import { withScratch } from '../../out-of-core/scratch.ts';
+import { ScratchTooSmall, withScratch } from '../../out-of-core/scratch.ts';
 import { TIME_TO_PS, type LengthUnit, type TimeUnit, type VelocityUnit } from '../../formats/units.ts';
 import { claimRun, completeRun, failRun, recordProgress, releaseRun, RunLost, runLostReason } from '../../services/analysis-runs.ts';
 import { trajectoryFacts } from '../../services/run-costs.ts';
@@ -61,6 +61,7 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
     const facts = { statedTemperatureK: trajectory.temperatureK, constraints: trajectory.constraints };
     // Coordinates beyond the memory budget wait in a scratch file for the engine, removed once it is done
     // (inside the job's own temp folder, so even a job whose process dies leaves nothing for long).
+    const coordinateBytes = selection.frames * (trajectory.atoms ?? 0) * 12 * (trajectory.hasVelocities ? 2 : 1);
     const result = await withScratch(ctx.config.ANALYSIS_IN_MEMORY_BYTES, async (spill) => {
       const traj = await loadTrajectory(ctx, trajectory, selection, (f) => checkpoint(LOAD_SHARE * f), spill, attempt.tempDir);
       // The engine runs in its own thread; this one checks for a cancel or a
@@ -70,7 +71,7 @@ export async function analyseJob(job: SandboxedJob, ctx: AppContext, attempt: Jo
         signal: attempt.signal,
         check: (f) => checkpoint(LOAD_SHARE + (100 - LOAD_SHARE - 5) * f, true),
       });
-    }, attempt.tempDir);
+    }, attempt.tempDir, coordinateBytes);
     await checkpoint(96, true);
     curvesKey = curvesKeyFor(trajectory.objectKey, runId);
     await ctx.store.putBytes(curvesKey, encodeCurves(result.curves), 'application/gzip');
@@ -113,7 +114,7 @@ async function settleFailure(err: unknown, { job, ctx, runId, claim, attempt }: 
     return { stopped: 'released' };
   }
   // The engine is deterministic: an error there will not go away on a retry, while a lost connection might.
-  const plain = err instanceof EngineFailure || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError;
+  const plain = err instanceof EngineFailure || err instanceof TrajectoryFormatError || err instanceof RangeError || err instanceof UnrecoverableError || err instanceof ScratchTooSmall;
   const message = err instanceof Error ? err.message : String(err);
   // A retry will claim the run again; only the last attempt (or a hopeless error) marks it failed.
   if (plain || job.attemptsMade + 1 >= (job.opts.attempts ?? 1)) await failRun(ctx, runId, claim, message);
