@@ -31,7 +31,7 @@ export function trajectoryUpload(ctx: AppContext): RequestHandler {
     begin: (req, file, objectKey) => beginUpload(ctx, Number(req.params['id']), currentUser(req).id, file.originalname, objectKey),
     heartbeat: (id) => touchUpload(ctx, id),
     abandon: (id, objectKey) => abandonUpload(ctx, id, objectKey),
-  });
+  }, ctx.config.UPLOAD_MAX_BYTES);
   const parse = multer({
     storage,
     // RFC 7578 §4.2: file names are sent as UTF-8; busboy's default would read them as Latin-1.

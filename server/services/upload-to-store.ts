@@ -59,7 +59,7 @@ const HEARTBEAT_MS = 15_000;
  * when the client gets its error nothing is left `uploading`.
  */
 export function objectStoreStorage(
-  store: ObjectStore, keyFor: (req: Request, file: Express.Multer.File) => string, record: UploadRecord,
+  store: ObjectStore, keyFor: (req: Request, file: Express.Multer.File) => string, record: UploadRecord, largestBytes = 0,
 ): StorageEngine & { settled(req: Request): Promise<void> } {
   // Multer may report a failed part before this engine has cleaned up after it; callers wait on this.
   const pending = new WeakMap<Request, Promise<void>>();
@@ -84,7 +84,7 @@ export function objectStoreStorage(
         (trajectoryId) => {
           stream.off('error', noteEarly);
           stream.off('close', onEarlyClose);
-          streamToStore(store, record, req, file, { objectKey, trajectoryId, early }, callback);
+          streamToStore(store, record, req, file, { objectKey, trajectoryId, early, largestBytes }, callback);
         },
         (err: Error) => {
           stream.resume();
@@ -104,6 +104,8 @@ interface Begun {
   trajectoryId: number;
   /** A failure seen while the row was being recorded. */
   early: Error | null;
+  /** The largest file the upload may carry, which sizes its parts. */
+  largestBytes: number;
 }
 
 function streamToStore(
@@ -122,7 +124,7 @@ function streamToStore(
     },
   });
   const body = new PassThrough();
-  const upload = store.streamUpload(objectKey, body);
+  const upload = store.streamUpload(objectKey, body, undefined, begun.largestBytes);
   const heartbeat = setInterval(() => void record.heartbeat(trajectoryId).catch(() => {}), HEARTBEAT_MS);
   heartbeat.unref();
   let settled = false;

@@ -6,6 +6,19 @@ import type { Readable } from 'node:stream';
 import type { Config } from '../config.ts';
 
 /** The S3-compatible store holding uploaded trajectories and report curves. */
+/** S3 and compatible stores take at most this many parts in one multipart upload. */
+export const MAX_UPLOAD_PARTS = 10_000;
+const DEFAULT_PART_BYTES = 8 * 1024 * 1024;
+
+/**
+ * Bytes per part of a multipart upload: 8 MiB, or more when the largest
+ * allowed file would otherwise need more parts than the store accepts
+ * (8 MiB parts reach only 78 GiB).
+ */
+export function uploadPartBytes(largestBytes: number): number {
+  return Math.max(DEFAULT_PART_BYTES, Math.ceil(largestBytes / MAX_UPLOAD_PARTS / 1024 ** 2) * 1024 ** 2);
+}
+
 export class ObjectStore {
   readonly client: S3Client;
 
@@ -37,13 +50,16 @@ export class ObjectStore {
     await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: body, ContentType: contentType }));
   }
 
-  /** Multipart upload of a stream of unknown length; abort() removes the parts already sent. */
-  streamUpload(key: string, body: Readable, contentType = 'application/octet-stream'): Upload {
+  /**
+   * Multipart upload of a stream of unknown length, at most `largestBytes`
+   * long; abort() removes the parts already sent.
+   */
+  streamUpload(key: string, body: Readable, contentType = 'application/octet-stream', largestBytes = 0): Upload {
     return new Upload({
       client: this.client,
       params: { Bucket: this.bucket, Key: key, Body: body, ContentType: contentType },
       queueSize: 2,
-      partSize: 8 * 1024 * 1024,
+      partSize: uploadPartBytes(largestBytes),
       leavePartsOnError: false,
     });
   }
