@@ -1,10 +1,15 @@
+import { mkdtemp, readFile, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { trajectories } from '../../server/db/schema/index.ts';
 import { openFrameStore } from '../../server/frame-store/reader.ts';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker.ts';
+import { localCopies } from '../../server/services/local-copies.ts';
 import { frameStorePrefixFor } from '../../server/storage/object-keys.ts';
+import { makeSystem, writeH5md } from '../unit/formats/synthetic.ts';
 import { signUp, type TestAccount } from '../support/accounts.ts';
 import { lennardJonesExtxyz } from '../support/fixtures.ts';
 import { pollUntil } from '../support/poll.ts';
@@ -173,6 +178,27 @@ describe('the binary frame store written at inspection', () => {
     expect([again.status, again.error]).toEqual(['done', null]);
     const reports = await Promise.all([first, again].map(async (job) => (await owner.client.get(`/api/reports/${job.reportId}`)).body.report));
     expect(reports[1].summary).toEqual(reports[0].summary);
+  });
+
+  it('when an H5MD inspected before the store existed is viewed and then deleted, then it was read from a local copy that goes with it', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'ergodic-h5md-older-'));
+    const system = makeSystem(5, 12, 21);
+    await writeH5md(join(dir, 'older.h5'), system);
+    const id = await uploadReady(gzipSync(await readFile(join(dir, 'older.h5'))), 'older.h5.gz');
+    await rm(dir, { recursive: true, force: true });
+    const inspected = await rowOf(id);
+    await ctx.store.deletePrefix(frameStorePrefixFor(inspected.objectKey));
+    await ctx.db.update(trajectories).set({ frameStoreKey: null, frameStoreBytes: 0 }).where(eq(trajectories.id, id));
+
+    const got = await viewerFrames(id, 'from=7&to=9');
+    expect([got.status, got.indices]).toEqual([200, [7, 8]]);
+    expect(Array.from(got.positions.subarray(0, 3))).toEqual(Array.from(Float32Array.from(system.positions[7]!.subarray(0, 3))));
+    const copies = localCopies(testApp.config);
+    expect(await copies.has(inspected.objectKey)).toBe(true);
+    // The background store is written from the same local copy; it is done before the deletion.
+    expect((await pollUntil(() => rowOf(id), (r) => r.frameStoreKey !== null, 60_000)).frameStoreKey).not.toBeNull();
+    expect((await owner.client.delete(`/api/trajectories/${id}`)).status).toBe(204);
+    expect(await copies.has(inspected.objectKey)).toBe(false);
   });
 
   it('when a trajectory is deleted, then its frame store goes with it', async () => {
