@@ -30,8 +30,8 @@ const configSchema = z.object({
   MAIL_FROM: z.string().default('Ergodic <no-reply@ergodic.invalid>'),
   /** Where the SMTP fake keeps messages; enables the admin dev mail page. */
   MAIL_FAKE_DIR: z.string().optional(),
-  UPLOAD_MAX_BYTES: bytes.default(2 * 1024 ** 3),
-  DECOMPRESSED_MAX_BYTES: bytes.default(20 * 1024 ** 3),
+  UPLOAD_MAX_BYTES: bytes.default(16 * 1024 ** 3),
+  DECOMPRESSED_MAX_BYTES: bytes.default(64 * 1024 ** 3),
   DECOMPRESSION_MAX_RATIO: z.coerce.number().positive().default(1000),
   /**
    * Where jobs keep temporary files (H5MD arriving as a stream or inside

@@ -26,7 +26,7 @@ export type ResolvedLimits = Required<Omit<ReaderLimits, 'tempDir'>> & { tempDir
 
 export const DEFAULT_LIMITS: ResolvedLimits = {
   maxAtoms: 50_000_000,
-  maxDecompressedBytes: 20 * 1024 ** 3,
+  maxDecompressedBytes: 64 * 1024 ** 3,
   maxCompressionRatio: 1000,
   maxLineBytes: 4 * 1024 ** 2,
   maxTempFileBytes: 4 * 1024 ** 3,

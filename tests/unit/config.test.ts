@@ -5,7 +5,7 @@ describe('configuration', () => {
   it('when nothing is set, then local development defaults apply', () => {
     const config = loadConfig({});
     expect(config.PORT).toBe(4300);
-    expect(config.UPLOAD_MAX_BYTES).toBe(2 * 1024 ** 3);
+    expect(config.UPLOAD_MAX_BYTES).toBe(16 * 1024 ** 3);
   });
 
   it('when values are wrong, then start-up fails naming every bad variable', () => {

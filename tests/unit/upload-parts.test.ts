@@ -5,7 +5,8 @@ const MiB = 1024 ** 2;
 const GiB = 1024 ** 3;
 
 describe('parts of a multipart upload to the object store', () => {
-  it('when the upload limit is the default 2 GiB, then parts are 8 MiB', () => {
+  it('when the upload limit is the default 16 GiB or less, then parts are 8 MiB', () => {
+    expect(uploadPartBytes(16 * GiB)).toBe(8 * MiB);
     expect(uploadPartBytes(2 * GiB)).toBe(8 * MiB);
     expect(uploadPartBytes(0)).toBe(8 * MiB);
   });
