@@ -60,6 +60,7 @@ export async function* readXyzFrames(
       }
       const info = readComment(lines.text(), { file, frame: index, line: lines.line });
       const { roles, hasVelocities } = info.columns;
+      const speciesFirst = isSpeciesFirst(roles, hasVelocities);
       const firstFrame = nAtoms < 0;
       let capacity = firstFrame ? Math.min(n, INITIAL_ATOM_CAPACITY) : n;
       // Every atom line sets x, y, z (and the velocities when the columns have them), so a reused array needs no clearing.
@@ -73,7 +74,9 @@ export async function* readXyzFrames(
           if (velocities) velocities = grow(velocities, 3 * capacity);
         }
         const stop = Math.min(n, capacity);
-        const reached = readBufferedAtoms(lines, a, stop, roles, positions, velocities, speciesCache, atoms);
+        const reached = speciesFirst
+          ? readSpeciesFirstAtoms(lines, a, stop, positions, velocities, speciesCache, atoms)
+          : readBufferedAtoms(lines, a, stop, roles, positions, velocities, speciesCache, atoms);
         if (reached < 0) throw atomLineError(lines, info.columns, index, n, -reached - 1);
         a = reached;
         if (a < stop) {
@@ -170,6 +173,78 @@ function readBufferedAtoms(
           loop.speciesChanged = true;
         }
       }
+    }
+  }
+  return a;
+}
+
+/** True for the usual columns, species x y z with or without vx vy vz right after: read by the straight-line loop. */
+function isSpeciesFirst(roles: Int8Array, hasVelocities: boolean): boolean {
+  const want = hasVelocities ? SPECIES_POSITIONS_VELOCITIES : SPECIES_POSITIONS;
+  return roles.length === want.length && want.every((role, k) => roles[k] === role);
+}
+
+const SPECIES_POSITIONS = [COLUMN.species, COLUMN.x, COLUMN.y, COLUMN.z];
+const SPECIES_POSITIONS_VELOCITIES = [...SPECIES_POSITIONS, COLUMN.vx, COLUMN.vy, COLUMN.vz];
+
+/**
+ * readBufferedAtoms for species x y z [vx vy vz], the columns nearly every
+ * file has, written out column by column: no per-column dispatch on roles.
+ * Same results and the same return convention.
+ */
+function readSpeciesFirstAtoms(
+  lines: LineReader,
+  a: number,
+  stop: number,
+  positions: Float64Array,
+  velocities: Float64Array | undefined,
+  speciesCache: string[],
+  loop: AtomLoop,
+): number {
+  for (; a < stop; a++) {
+    if (!lines.next()) return a;
+    const buf = lines.buf;
+    const end = lines.end;
+    let p = lines.start;
+    let c = buf[p];
+    // buf[end] is CR, LF or past the buffer: never a space, so the skips stop there by themselves.
+    while (c === 32 || c === 9) c = buf[++p];
+    if (p >= end) return -a - 1;
+    const tokenStart = p;
+    while (p < end && c !== 32 && c !== 9) c = buf[++p];
+    const cached = speciesCache[a];
+    let same = cached !== undefined && cached.length === p - tokenStart;
+    if (same) {
+      for (let k = 0; k < cached.length; k++) {
+        if (cached.charCodeAt(k) !== buf[tokenStart + k]) {
+          same = false;
+          break;
+        }
+      }
+    }
+    if (!same) {
+      speciesCache[a] = buf.toString('utf8', tokenStart, p);
+      loop.speciesChanged = true;
+    }
+    const base = 3 * a;
+    for (let k = 0; k < 3; k++) {
+      while (c === 32 || c === 9) c = buf[++p];
+      if (p >= end) return -a - 1;
+      const value = parseFieldBytes(buf, p, end);
+      p = field.end;
+      c = buf[p];
+      if (value - value !== 0) return -a - 1;
+      positions[base + k] = value;
+    }
+    if (!velocities) continue;
+    for (let k = 0; k < 3; k++) {
+      while (c === 32 || c === 9) c = buf[++p];
+      if (p >= end) return -a - 1;
+      const value = parseFieldBytes(buf, p, end);
+      p = field.end;
+      c = buf[p];
+      if (value - value !== 0) return -a - 1;
+      velocities[base + k] = value;
     }
   }
   return a;
