@@ -1,7 +1,7 @@
 import type {} from 'passport';
 import type { Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context.ts';
-import type { ProjectRole } from '../db/schema/index.ts';
+import type { ProjectRole, TrajectoryRow } from '../db/schema/index.ts';
 import { forbidden, notFound, unauthorized } from '../errors.ts';
 import type { Access } from '../routes/route-table.ts';
 import { membershipVia } from './project-of.ts';
@@ -66,6 +66,7 @@ export function authorize(ctx: AppContext, access: Access): RequestHandler {
     }
     res.locals['projectId'] = membership.projectId;
     res.locals['projectRole'] = membership.role;
+    if (membership.trajectory) res.locals['trajectory'] = membership.trajectory;
     next();
   };
 }
@@ -84,4 +85,11 @@ export function authorizedProject(res: Response): { projectId: number; role: Pro
     throw new Error('authorizedProject() used on a route without a project access rule');
   }
   return { projectId, role: role as ProjectRole };
+}
+
+/** The trajectory a route reached via one was authorized for, read in the same query as the caller's role. */
+export function authorizedTrajectory(res: Response): TrajectoryRow {
+  const row: unknown = res.locals['trajectory'];
+  if (!row || typeof row !== 'object') throw new Error('authorizedTrajectory() used on a route without a trajectory access rule');
+  return row as TrajectoryRow;
 }

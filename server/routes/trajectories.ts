@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import { bulkMetadataBody, frameRangeQuery, trajectoryMetadataSchema, trajectorySchema } from '../../shared/trajectory.ts';
 import { uploadPolicySchema, type UploadPolicy } from '../../shared/upload-policy.ts';
-import { authorizedProject } from '../auth/authorize.ts';
+import { authorizedProject, authorizedTrajectory } from '../auth/authorize.ts';
 import { apiRateLimits } from '../auth/rate-limits.ts';
 import type { AppContext } from '../context.ts';
 import { badRequest } from '../errors.ts';
 import {
-  abandonUpload, completeUpload, deleteTrajectory, getTrajectory, getTrajectoryRow, listTrajectories, updateMetadata, updateMetadataOfMany,
+  abandonUpload, completeUpload, deleteTrajectory, getTrajectory, listTrajectories, updateMetadata, updateMetadataOfMany,
 } from '../services/trajectories.ts';
 import { cutFileName, extxyzCut, framesAnswer } from '../services/trajectory-frames.ts';
 import { body, idField, params, query } from './request-parts.ts';
@@ -130,8 +130,7 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
       response: download('application/octet-stream',
         'A uint32 LE header length, a JSON header (atoms, species, per-frame index, time and cell), then Float32 LE positions in Å.'),
       handler: async (req, res) => {
-        const { id } = params(req, { id: idField });
-        const row = await getTrajectoryRow(ctx, id);
+        const row = authorizedTrajectory(res);
         const answer = framesAnswer(ctx, row, query(req, frameRangeQuery));
         res.type('application/octet-stream').setHeader('Cache-Control', 'private, max-age=3600');
         // Set before sending, so Express does not hash the body for one; a browser revalidating gets a 304 without it.
@@ -149,8 +148,7 @@ export function trajectoryRoutes(ctx: AppContext): RouteDef[] {
       request: { query: frameRangeQuery },
       response: download('text/plain', 'Extended XYZ: one block per frame, with the cell in Lattice= and velocities when the file has them.'),
       handler: async (req, res) => {
-        const { id } = params(req, { id: idField });
-        const row = await getTrajectoryRow(ctx, id);
+        const row = authorizedTrajectory(res);
         const range = query(req, frameRangeQuery);
         const chunks = extxyzCut(ctx, row, range);
         const first = await chunks.next();
