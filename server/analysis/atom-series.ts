@@ -77,9 +77,7 @@ export class AtomSeriesReader {
    */
   velocities(atom: number, out: Float64Array, dtPs: number, scratch: Float64Array): Float64Array {
     if (this.traj.velocities) {
-      this.rawVelocities(atom, out);
-      const com = this.comVelocities;
-      if (com) for (let i = 0; i < 3 * this.nFrames; i++) out[i] -= com[i];
+      this.rawVelocities(atom, out, this.comVelocities);
       return out;
     }
     this.unwrapped(atom, scratch);
@@ -92,13 +90,15 @@ export class AtomSeriesReader {
     return out;
   }
 
-  private rawVelocities(atom: number, out: Float64Array): void {
+  /** Stored velocities of one atom, component-major, with the COM velocity subtracted in the same pass when given. */
+  private rawVelocities(atom: number, out: Float64Array, com: Float64Array | null): void {
     const { data: v, base: p0, stride } = this.velocityCursor!.at(atom);
     const T = this.nFrames;
     for (let c = 0; c < 3; c++) {
       let p = p0 + c;
       const base = c * T;
-      for (let t = 0; t < T; t++, p += stride) out[base + t] = v[p];
+      if (com) for (let t = 0; t < T; t++, p += stride) out[base + t] = v[p] - com[base + t];
+      else for (let t = 0; t < T; t++, p += stride) out[base + t] = v[p];
     }
   }
 

@@ -84,14 +84,20 @@ export class AtomCursor {
   }
 }
 
-/** Atoms [from, to) of a frame-major array, atom-major: out[(a − from)·3T + 3t + c]. */
+/**
+ * Atoms [from, to) of a frame-major array, atom-major: out[(a − from)·3T + 3t + c].
+ * Atom by atom, so the writes run straight through the output: the first
+ * atom brings the chunk's few cache lines of each frame in, and the
+ * chunk's other atoms find them still cached.
+ */
 function gatherAtoms(x: Float32Array, N: number, T: number, from: number, to: number): Float32Array {
   const atoms = to - from;
   const out = new Float32Array(atoms * 3 * T);
-  for (let t = 0; t < T; t++) {
-    let p = 3 * (N * t + from);
-    for (let a = 0; a < atoms; a++, p += 3) {
-      const o = a * 3 * T + 3 * t;
+  const stride = 3 * N;
+  for (let a = 0; a < atoms; a++) {
+    let p = 3 * (from + a);
+    let o = a * 3 * T;
+    for (let t = 0; t < T; t++, p += stride, o += 3) {
       out[o] = x[p];
       out[o + 1] = x[p + 1];
       out[o + 2] = x[p + 2];
