@@ -60,9 +60,7 @@ export class AtomSeriesReader {
 
   /** Unwrapped positions of one atom, component-major: out[c·T + t], COM removed when asked. */
   unwrapped(atom: number, out: Float64Array): Float64Array {
-    this.rawUnwrapped(atom, out);
-    const com = this.comPositions;
-    if (com) for (let i = 0; i < 3 * this.nFrames; i++) out[i] -= com[i];
+    this.rawUnwrapped(atom, out, this.comPositions);
     return out;
   }
 
@@ -102,23 +100,32 @@ export class AtomSeriesReader {
     }
   }
 
-  private rawUnwrapped(atom: number, out: Float64Array): void {
+  /**
+   * Unwrapped positions of one atom, component-major, with the COM position
+   * subtracted in the same pass when given. The running sums are kept apart
+   * from the output so each value is the unwrapped position minus the COM,
+   * exactly as subtracting afterwards would give.
+   */
+  private rawUnwrapped(atom: number, out: Float64Array, com: Float64Array | null): void {
     const { data: x, base: p0, stride } = this.positionCursor.at(atom);
     const T = this.nFrames;
     const geom = this.geometry;
-    out[0] = x[p0];
-    out[T] = x[p0 + 1];
-    out[2 * T] = x[p0 + 2];
     if (!geom) {
       for (let c = 0; c < 3; c++) {
         let p = p0 + c;
-        for (let t = 0; t < T; t++, p += stride) out[c * T + t] = x[p];
+        const base = c * T;
+        if (com) for (let t = 0; t < T; t++, p += stride) out[base + t] = x[p] - com[base + t];
+        else for (let t = 0; t < T; t++, p += stride) out[base + t] = x[p];
       }
       return;
     }
     const H = geom.cells;
     const [px, py, pz] = geom.periodic;
     const d = this.d;
+    let ux = x[p0], uy = x[p0 + 1], uz = x[p0 + 2];
+    out[0] = com ? ux - com[0] : ux;
+    out[T] = com ? uy - com[T] : uy;
+    out[2 * T] = com ? uz - com[2 * T] : uz;
     let prev = p0;
     for (let t = 1; t < T; t++) {
       const p = prev + stride;
@@ -140,9 +147,18 @@ export class AtomSeriesReader {
         dy = d[1];
         dz = d[2];
       }
-      out[t] = out[t - 1] + dx;
-      out[T + t] = out[T + t - 1] + dy;
-      out[2 * T + t] = out[2 * T + t - 1] + dz;
+      ux += dx;
+      uy += dy;
+      uz += dz;
+      if (com) {
+        out[t] = ux - com[t];
+        out[T + t] = uy - com[T + t];
+        out[2 * T + t] = uz - com[2 * T + t];
+      } else {
+        out[t] = ux;
+        out[T + t] = uy;
+        out[2 * T + t] = uz;
+      }
       prev = p;
     }
   }
@@ -169,7 +185,21 @@ export class AtomSeriesReader {
     for (let t = 0; t < T; t++) {
       const here = cursor.frame(t);
       const x = here.data, o = here.offset;
-      if (!geom || !previous) {
+      if (!geom) {
+        // Nothing to unwrap: the frame's own values are summed, no copy needed.
+        let sx = 0, sy = 0, sz = 0;
+        for (let i = 0; i < N; i++) {
+          const m = this.masses[i], p = o + 3 * i;
+          sx += m * x[p];
+          sy += m * x[p + 1];
+          sz += m * x[p + 2];
+        }
+        sum[t] = sx / total;
+        sum[T + t] = sy / total;
+        sum[2 * T + t] = sz / total;
+        continue;
+      }
+      if (!previous) {
         for (let k = 0; k < 3 * N; k++) u[k] = x[o + k];
       } else {
         const y = previous.data, q = previous.offset;
