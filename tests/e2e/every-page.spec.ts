@@ -43,10 +43,17 @@ test('when every page and dialog is opened at 1440 and 390 px, then none is wide
     const dialog = page.getByRole('dialog', { name: 'New project' });
     await expect(dialog).toBeVisible();
     // Name and description stack at the dialog's full width, the description's hint shown whole.
-    const name = await dialog.getByLabel('Project name').boundingBox();
-    const description = await dialog.getByLabel('Description').boundingBox();
-    expect(description!.y).toBeGreaterThan(name!.y + name!.height);
-    expect(Math.abs(description!.width - name!.width)).toBeLessThan(2);
+    // Polled: while the dialog's opening animation runs, the two boxes may be read at different scales.
+    const boxes = async () => ({
+      name: (await dialog.getByLabel('Project name').boundingBox())!,
+      description: (await dialog.getByLabel('Description').boundingBox())!,
+    });
+    await expect.poll(async () => {
+      const { name, description } = await boxes();
+      return Math.abs(description.width - name.width);
+    }).toBeLessThan(2);
+    const { name, description } = await boxes();
+    expect(description.y).toBeGreaterThan(name.y + name.height);
     await expect(dialog.getByText('Optional: the system, the question, the people.')).toBeVisible();
     await captureAtBothSizes(page, 'new-project-dialog', { within: dialog });
     await page.keyboard.press('Escape');
