@@ -7,15 +7,19 @@
  * Each reader holds a lease: a hard link to the copy, so the copy's bytes
  * stay readable until the lease is released even if it is evicted
  * meanwhile. Copies no one holds are evicted least recently used first
- * once the folder passes its byte budget. The job threads of one process
- * share the folder (a copy made by one thread is found by the next); only
- * downloads in the same thread are merged, so two threads asking for the
- * same new key at the same moment may both download it.
+ * once the folder passes its byte budget. Held is judged from the disk
+ * (the copy's link count), so a copy another thread reads is never chosen.
+ *
+ * The job threads of one process share the folder, and a key is downloaded
+ * once per process: askers in this thread join the download in flight, and
+ * askers in other threads wait on its lock file (see fill-lock.ts). A copy
+ * appears under its name only complete (written aside, then renamed), and a
+ * failed download leaves nothing behind, so the next asker starts afresh.
  */
-import { createHash } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import { link, mkdir, readdir, rename, rm, stat, unlink, utimes } from 'node:fs/promises';
 import { join } from 'node:path';
-import { threadId } from 'node:worker_threads';
+import { FillLocks } from './fill-lock.ts';
 
 export interface LocalCopy {
   /** A file holding the copy, readable until `release`. */
@@ -27,15 +31,18 @@ export interface LocalCopy {
 export type Fill = (path: string) => Promise<void>;
 
 const COPY = '.copy';
-/** A reader that finds its copy evicted between two steps downloads again, at most this many times. */
-const MAX_ATTEMPTS = 3;
+/**
+ * A reader that finds no copy after a download (evicted in between, or
+ * another thread's download failed) tries again, at most this many times.
+ */
+const MAX_ATTEMPTS = 5;
 
 export class LocalCopyCache {
-  /** Downloads started, readers that joined one already running, and readers that found a copy. */
+  /** Downloads this object ran, waits for one already running (in this thread or another), and reads that found a copy. */
   readonly stats = { fills: 0, joins: 0, hits: 0 };
   private readonly leases: string;
   private readonly filling = new Map<string, Promise<void>>();
-  private leaseCount = 0;
+  private readonly locks: FillLocks;
   /** Last use stamped, in ms: strictly increasing, so two uses in one millisecond still keep their order. */
   private clock = 0;
   private evicting: Promise<void> = Promise.resolve();
@@ -44,6 +51,7 @@ export class LocalCopyCache {
   constructor(readonly dir: string, readonly budgetBytes: number) {
     if (!(budgetBytes > 0)) throw new RangeError(`the local copy budget must be a positive number of bytes, got ${budgetBytes}`);
     this.leases = join(dir, 'leases');
+    this.locks = new FillLocks(`ergodic-local-copies:${dir}`);
   }
 
   /** The copy of `key`, made by `fill` when this process has none. */
@@ -53,11 +61,14 @@ export class LocalCopyCache {
     const copy = this.copyPath(key);
     let filled = false;
     for (let attempt = 1; ; attempt++) {
-      const lease = join(this.leases, `${this.nameOf(key)}-${threadId}-${++this.leaseCount}`);
+      const lease = join(this.leases, `${this.nameOf(key)}-${unique()}`);
       try {
         await link(copy, lease);
       } catch (error) {
-        if ((error as NodeJS.ErrnoException).code !== 'ENOENT' || attempt > MAX_ATTEMPTS) throw error;
+        if ((error as NodeJS.ErrnoException).code !== 'ENOENT') throw error;
+        if (attempt > MAX_ATTEMPTS) {
+          throw new Error(`no local copy of ${key} could be kept in ${this.dir} after ${MAX_ATTEMPTS} downloads (evicted or failed each time)`);
+        }
         await this.fillOnce(key, copy, fill);
         filled = true;
         continue;
@@ -110,24 +121,32 @@ export class LocalCopyCache {
     return join(this.dir, `${this.nameOf(key)}${COPY}`);
   }
 
-  /** One download per key at a time in this thread; the file appears under its name only when complete. */
+  /**
+   * One download per key at a time: askers in this object join the one in
+   * flight; across threads the lock file decides who downloads. The file
+   * appears under its name only when complete.
+   */
   private fillOnce(key: string, copy: string, fill: Fill): Promise<void> {
     let pending = this.filling.get(key);
-    if (pending) this.stats.joins++;
-    else {
-      this.stats.fills++;
-      const partial = `${copy}.${threadId}.${++this.leaseCount}.part`;
-      pending = (async () => {
+    if (pending) {
+      this.stats.joins++;
+      return pending;
+    }
+    pending = (async () => {
+      await this.locks.run(`${copy}.lock`, async () => {
+        // Another thread may have finished between our missing link and winning the lock.
+        if (await stat(copy).then(() => true, () => false)) return;
+        this.stats.fills++;
+        const partial = `${copy}.${unique()}.part`;
         try {
           await fill(partial);
           await rename(partial, copy);
         } finally {
           await rm(partial, { force: true });
-          this.filling.delete(key);
         }
-      })();
-      this.filling.set(key, pending);
-    }
+      }, () => this.stats.joins++);
+    })().finally(() => this.filling.delete(key));
+    this.filling.set(key, pending);
     return pending;
   }
 
@@ -162,4 +181,9 @@ export class LocalCopyCache {
     }).catch(() => undefined);
     return this.evicting;
   }
+}
+
+/** A name part no other thread or object of this process picks. */
+function unique(): string {
+  return randomBytes(8).toString('hex');
 }
