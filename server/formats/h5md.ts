@@ -72,7 +72,8 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
     }
     const { frames, atoms } = layout;
     const valuesPerFrame = atoms * 3;
-    // Each block is one hyperslab of whole frames, so memory follows the block, not the file.
+    // Each block is one hyperslab of whole frames, so memory follows the block, not the file; a strided
+    // selection (every n-th frame) is one strided hyperslab per block rather than one read per frame.
     const block = Math.max(1, Math.floor((options.blockBytes ?? BLOCK_BYTES) / (valuesPerFrame * 8)));
     const wants = options.wants ?? (() => true);
     for (let t = options.firstIndex ?? 0; t < frames; ) {
@@ -80,12 +81,12 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
         t++;
         continue;
       }
-      let end = t + 1;
-      while (end < frames && end - t < block && wants(end)) end++;
-      const positions = readBlock(layout.position, t, end, valuesPerFrame, options.file);
-      const velocities = layout.velocity ? readBlock(layout.velocity, t, end, valuesPerFrame, options.file) : undefined;
-      for (let i = t; i < end; i++) {
-        const k = i - t;
+      const { step: stride, count } = evenRun(t, frames, block, wants);
+      const slab: Hyperslab = { from: t, step: stride, count };
+      const positions = readBlock(layout.position, slab, valuesPerFrame, options.file);
+      const velocities = layout.velocity ? readBlock(layout.velocity, slab, valuesPerFrame, options.file) : undefined;
+      for (let k = 0; k < count; k++) {
+        const i = t + k * stride;
         const frame: Frame = {
           index: i,
           positions: positions.slice(k * valuesPerFrame, (k + 1) * valuesPerFrame),
@@ -106,7 +107,7 @@ export async function* readH5md(path: string, options: H5mdReadOptions): AsyncGe
         if (values) frame.values = values;
         yield frame;
       }
-      t = end;
+      t += (count - 1) * stride + 1;
     }
   } finally {
     try {
@@ -414,14 +415,50 @@ function cellFromEdges(values: Float64Array, shape: number[], path: string, file
   return cell;
 }
 
-function readBlock(dataset: Dataset, from: number, to: number, valuesPerFrame: number, file: string): Numeric {
-  const data = dataset.slice([[from, to]]);
-  if (data instanceof Float32Array || data instanceof Float64Array) return data;
-  const numbers = numbersOf(data, dataset.path, file);
-  if (numbers.length !== (to - from) * valuesPerFrame) {
+/** Frames from, from + step, … (count of them) of a dataset whose first axis is the frame. */
+interface Hyperslab {
+  from: number;
+  step: number;
+  count: number;
+}
+
+/** A gap between wanted frames longer than this is not looked for: such frames are read one at a time. */
+const MAX_STEP = 65_536;
+
+/**
+ * The wanted frames from `t` (itself wanted) on at one even step with none
+ * wanted in between, at most `block` of them: what one strided hyperslab
+ * reads. Contiguous frames are the step-1 case.
+ */
+function evenRun(t: number, frames: number, block: number, wants: (i: number) => boolean): { step: number; count: number } {
+  let next = t + 1;
+  const limit = Math.min(frames, t + MAX_STEP + 1);
+  while (next < limit && !wants(next)) next++;
+  if (block < 2 || next >= limit) return { step: 1, count: 1 };
+  const step = next - t;
+  let count = 2;
+  for (let last = next; count < block; count++, last += step) {
+    const after = last + step;
+    if (after >= frames || !wants(after)) break;
+    let between = last + 1;
+    while (between < after && !wants(between)) between++;
+    if (between < after) break;
+  }
+  return { step, count };
+}
+
+function readBlock(dataset: Dataset, slab: Hyperslab, valuesPerFrame: number, file: string): Numeric {
+  const end = slab.from + (slab.count - 1) * slab.step + 1;
+  const data = dataset.slice([slab.step === 1 ? [slab.from, end] : [slab.from, end, slab.step]]);
+  if (data instanceof Float32Array || data instanceof Float64Array) return checkedLength(data, slab, valuesPerFrame, dataset, file);
+  return checkedLength(numbersOf(data, dataset.path, file), slab, valuesPerFrame, dataset, file);
+}
+
+function checkedLength(data: Numeric, slab: Hyperslab, valuesPerFrame: number, dataset: Dataset, file: string): Numeric {
+  if (data.length !== slab.count * valuesPerFrame) {
     throw new TrajectoryFormatError('dataset returned an unexpected number of values', { file, path: dataset.path });
   }
-  return numbers;
+  return data;
 }
 
 function checkNumeric(dataset: Dataset, file: string): void {

@@ -70,12 +70,62 @@ describe('H5MD frame ranges by hyperslab', () => {
     expect(wholeReads.filter((p) => /\/(position|velocity)\/value$/.test(p))).toEqual([]);
   });
 
-  it('when every third frame is wanted, then only those frames are sliced and they match the whole-file read', async () => {
+  it('when every third frame is wanted, then only those frames are read, in one strided slice, and they match the whole-file read', async () => {
     const { Dataset } = await h5();
     const slice = vi.spyOn(Dataset.prototype, 'slice');
     const frames = await collect(readFrames(path, { from: 2, to: 20, stride: 3 }));
     expect(frames.map(numbers)).toEqual([2, 5, 8, 11, 14, 17].map((i) => numbers(whole[i])));
-    const sliced = slice.mock.calls.filter((_, k) => /\/position\/value$/.test((slice.mock.contexts[k] as { path: string }).path));
-    expect(sliced.map(([ranges]) => ranges)).toEqual([2, 5, 8, 11, 14, 17].map((i) => [[i, i + 1]]));
+    expect(frameSlices(slice, 'position')).toEqual([[[2, 18, 3]]]);
   });
 });
+
+describe('H5MD strided frame selections', () => {
+  /** The frames at `indices`, each read on its own as a range of one frame. */
+  async function oneByOne(indices: number[]): Promise<Frame[]> {
+    const out: Frame[] = [];
+    for (const i of indices) out.push(...(await collect(readFrames(path, { from: i, to: i + 1 }))));
+    return out;
+  }
+  const selected = (from: number, to: number, stride: number) =>
+    Array.from({ length: Math.ceil((Math.min(to, FRAMES) - from) / stride) }, (_, k) => from + k * stride);
+
+  it.each([[0, 23, 2], [1, 23, 4], [3, 22, 5], [0, 23, 22], [7, 8, 3], [5, 23, 1]])(
+    'when frames from %i to %i by %i are read, then they equal the same frames read one at a time, to the last bit',
+    async (from, to, stride) => {
+      const strided = await collect(readFrames(path, { from, to, stride }));
+      const single = await oneByOne(selected(from, to, stride));
+      expect(strided.map((f) => f.index)).toEqual(selected(from, to, stride));
+      expect(strided.map(numbers)).toEqual(single.map(numbers));
+    },
+  );
+
+  it('when a strided selection spans several blocks, then each block is one strided slice of positions and one of velocities', async () => {
+    const single = await oneByOne([1, 5, 9, 13, 17, 21]);
+    const { Dataset } = await h5();
+    const slice = vi.spyOn(Dataset.prototype, 'slice');
+    const perFrame = ATOMS * 3 * 8;
+    // Frames 1, 5, 9, 13, 17, 21 in blocks of 2 frames.
+    const frames = await collect(readH5md(path, {
+      file: 'multi.h5', limits: resolveLimits(), blockBytes: 2 * perFrame, wants: (i) => i >= 1 && (i - 1) % 4 === 0,
+    }));
+    expect(frames.map(numbers)).toEqual(single.map(numbers));
+    expect(frameSlices(slice, 'position')).toEqual([[[1, 6, 4]], [[9, 14, 4]], [[17, 22, 4]]]);
+    expect(frameSlices(slice, 'velocity')).toEqual([[[1, 6, 4]], [[9, 14, 4]], [[17, 22, 4]]]);
+  });
+
+  it('when the wanted frames are not evenly spaced, then each even run is one slice and no unwanted frame is returned', async () => {
+    const wanted = [0, 2, 4, 5, 6, 10, 13, 16, 17];
+    const single = await oneByOne(wanted);
+    const { Dataset } = await h5();
+    const slice = vi.spyOn(Dataset.prototype, 'slice');
+    const frames = await collect(readH5md(path, { file: 'multi.h5', limits: resolveLimits(), wants: (i) => wanted.includes(i) }));
+    expect(frames.map(numbers)).toEqual(single.map(numbers));
+    expect(frameSlices(slice, 'position')).toEqual([[[0, 5, 2]], [[5, 7]], [[10, 17, 3]], [[17, 18]]]);
+  });
+});
+
+/** The ranges of every slice of /…/<element>/value since the spy was set. */
+function frameSlices(slice: { mock: { calls: unknown[][]; contexts: unknown[] } }, element: 'position' | 'velocity'): unknown[] {
+  const pattern = new RegExp(`/${element}/value$`);
+  return slice.mock.calls.filter((_, k) => pattern.test((slice.mock.contexts[k] as { path: string }).path)).map(([ranges]) => ranges);
+}
