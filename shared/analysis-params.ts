@@ -19,6 +19,9 @@ export type SqWindow = (typeof SQ_WINDOWS)[number];
 export const COMPONENT_SETS = ['xyz', 'xy', 'xz', 'yz', 'x', 'y', 'z'] as const;
 export type ComponentSet = (typeof COMPONENT_SETS)[number];
 
+/** g(r)'s default range reaches at most the radius that holds about this many atoms at the mean density (server/run-plan/rdf-range.ts). */
+export const DEFAULT_RDF_SPHERE_ATOMS = 1000;
+
 /**
  * Bounds on every setting, so a value that would make a job run for hours,
  * a report of hundreds of megabytes or a typed-array error is refused with

@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { ANALYSIS_KEYS, analysisKeySchema, type AnalysisKey, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
+import { ANALYSIS_KEYS, analysisKeySchema, DEFAULT_RDF_SPHERE_ATOMS, type AnalysisKey, type AnalysisParamsInput } from '../../shared/analysis-params.ts';
 import { BOUNDARIES, LENGTH_UNITS, TIME_UNITS, VELOCITY_UNITS } from '../../shared/trajectory.ts';
 import { analyzeFile, planFile, type AnalyzeFileOptions } from './analyze-file.ts';
 import { printEstimate, printSummary } from './print-summary.ts';
@@ -39,8 +39,8 @@ Options:
   --velocity-unit U    ${VELOCITY_UNITS.join(' | ')} (default angstrom/ps)
   --time-unit U        unit of times written in the file: ${TIME_UNITS.join(' | ')} (default ps)
   --boundary B         ${BOUNDARIES.join(' | ')} (default: periodic when the file has a cell)
-  --r-max A            g(r) range in Å (default: half the shortest cell width, bounded for
-                       systems above 2000 atoms so cell lists apply)
+  --r-max A            g(r) range in Å (default: half the shortest cell width, at most the
+                       radius that holds about ${DEFAULT_RDF_SPHERE_ATOMS} atoms at the mean density)
   --from-frame N       first frame analysed, 0-based (default 0)
   --to-frame N         one past the last frame analysed (default: the end)
   --stride N           every N-th frame (default 1, more for runs above 100 000 frames)

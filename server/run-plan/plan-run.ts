@@ -1,7 +1,7 @@
 /**
  * A request for analyses turned into what will actually run, before
  * anything is queued: every default resolved (frame stride for long runs,
- * a bounded g(r) range for large systems), the frames selected, and the
+ * a g(r) range bounded by the sphere of about a thousand atoms), the frames selected, and the
  * cost estimated and held against the site's limits with advice on how to
  * get under them.
  */
@@ -10,7 +10,7 @@ import { selectFrames, type FrameSelection } from '../../shared/frame-selection.
 import { resolvePair } from '../../shared/interaction-model.ts';
 import type { RunEstimate } from '../../shared/run-estimate.ts';
 import { estimateCost, type CostEstimate, type CostInput } from './cost-estimate.ts';
-import { cellWidths, defaultRMaxA } from './rdf-range.ts';
+import { boundedRMaxA, cellWidths, defaultRMaxA, DEFAULT_SPHERE_ATOMS } from './rdf-range.ts';
 
 /** What is known about a trajectory before any frame is read. */
 export interface TrajectoryFacts {
@@ -97,6 +97,13 @@ function checkRdfBins(facts: TrajectoryFacts, params: AnalysisParams): void {
   throw new ParamOutOfBounds('binWidthA', `${range} in bins of ${params.binWidthA} Å makes ${bins} bins, more than ${PARAM_LIMITS.maxBins}: use bins of at least ${narrowest} Å or give a shorter rMaxA`);
 }
 
+/** x rounded down to `digits` significant digits. */
+function floorSignificant(x: number | undefined, digits: number): number | undefined {
+  if (x === undefined || !(x > 0)) return undefined;
+  const scale = 10 ** (digits - 1 - Math.floor(Math.log10(x)));
+  return Math.floor(x * scale) / scale;
+}
+
 const within = (e: CostEstimate, limits: CostLimits) => e.seconds <= limits.seconds && e.memoryBytes <= limits.memoryBytes;
 
 /** Ways to bring a run under the limits, each one change on its own, in plain words. */
@@ -125,9 +132,13 @@ export function adviceFor(plan: PlannedRun, facts: TrajectoryFacts, analyses: re
     advice.push(`Analyse a shorter frame range: at most ${lo * selection.stride} frames at stride ${selection.stride}.`);
   }
   const rdf = plan.estimate.analyses.find((a) => a.key === 'rdf');
-  const bounded = defaultRMaxA(Math.max(facts.atoms, 2001), facts.cell);
-  if (rdf && bounded !== undefined && (params.rMaxA ?? Infinity) > bounded && rdf.seconds > plan.estimate.seconds / 3) {
-    advice.push(`Use a smaller g(r) range: r_max ≤ ${bounded.toPrecision(3)} Å lets cell lists apply.`);
+  // Rounded down, so the advised range is never past half the cell.
+  const bounded = floorSignificant(boundedRMaxA(facts.atoms, facts.cell), 3);
+  const used = params.rMaxA ?? (facts.cell ? Math.min(...cellWidths(facts.cell).widths) / 2 : undefined);
+  if (rdf && bounded !== undefined && used !== undefined && used > bounded && rdf.seconds > plan.estimate.seconds / 3) {
+    const shorter = at(selection.frames, { ...params, rMaxA: bounded }).analyses.find((a) => a.key === 'rdf')!;
+    const speedup = rdf.seconds / shorter.seconds;
+    if (speedup >= 1.5) advice.push(`Use a smaller g(r) range: r_max ≤ ${bounded} Å (about ${DEFAULT_SPHERE_ATOMS} atoms within it) makes g(r) about ${speedup.toFixed(0)}× faster.`);
   }
   const heavy = [...plan.estimate.analyses].sort((a, b) => b.seconds - a.seconds)[0];
   if (heavy && analyses.length > 1 && heavy.seconds > plan.estimate.seconds / 2) {

@@ -1,17 +1,24 @@
 /**
- * The default range of g(r). Small systems keep the textbook default, half
- * the shortest cell width, where all pairs are cheap. Larger ones get a
- * bounded range, so the pair count per frame grows with N rather than N²:
- * at most a third of the shortest cell width (so the cell-list stencil of
- * three cells per side always applies) and at most the radius that holds
- * about a thousand atoms at the mean density (common practice: g(r) has
- * long converged to 1 there; S(q) resolution is 2π/r_max).
+ * The default range of g(r): the smaller of half the shortest cell width
+ * (the textbook limit of the minimum image) and the radius of the sphere
+ * that holds about DEFAULT_SPHERE_ATOMS atoms at the mean density (common
+ * practice: g(r) has long converged to 1 there; S(q) resolution is
+ * 2π/r_max). So the pairs binned per frame grow with N, not N², and cell
+ * lists (which take any r_max up to half the width) keep the pairs visited
+ * in step for large systems.
  */
+import { DEFAULT_RDF_SPHERE_ATOMS } from '../../shared/analysis-params.ts';
 
-/** Up to this many atoms the default stays half the shortest cell width. */
-export const FULL_RANGE_MAX_ATOMS = 2000;
-/** Beyond, the default sphere holds about this many atoms. */
-export const DEFAULT_SPHERE_ATOMS = 1000;
+/** The default sphere holds about this many atoms (shared, so the dialog can say it). */
+export const DEFAULT_SPHERE_ATOMS = DEFAULT_RDF_SPHERE_ATOMS;
+/**
+ * The planner sees only the first frame's cell, while the engine's own
+ * default is half the shortest width over every frame. A sphere radius this
+ * close to half the first width or closer is left to the engine, so a cell
+ * that shrinks during the run (a barostat) still holds the range; then the
+ * range is at most 1/SHRINK_ALLOWANCE of the sphere radius.
+ */
+export const SHRINK_ALLOWANCE = 0.9;
 
 /** Perpendicular widths of a cell given as lattice-vector rows, and its volume. */
 export function cellWidths(cell: ArrayLike<number>): { widths: [number, number, number]; volume: number } {
@@ -23,12 +30,23 @@ export function cellWidths(cell: ArrayLike<number>): { widths: [number, number, 
   return { widths: [volume / norm(bc), volume / norm(ca), volume / norm(ab)], volume };
 }
 
-/** r_max in Å for g(r) when none is given, or undefined to keep half the shortest width of every frame. */
-export function defaultRMaxA(atoms: number, cell: ArrayLike<number> | null): number | undefined {
-  if (!cell || atoms <= FULL_RANGE_MAX_ATOMS) return undefined;
+/** min(half the shortest width, radius holding DEFAULT_SPHERE_ATOMS at mean density) of this cell, Å, or undefined without a usable cell. */
+export function boundedRMaxA(atoms: number, cell: ArrayLike<number> | null): number | undefined {
+  if (!cell || !(atoms > 0)) return undefined;
   const { widths, volume } = cellWidths(cell);
   if (!(volume > 0)) return undefined;
-  const third = (Math.min(...widths) / 3) * (1 - 1e-9);
   const sphere = Math.cbrt((3 * DEFAULT_SPHERE_ATOMS * volume) / (4 * Math.PI * atoms));
-  return Math.min(third, sphere);
+  return Math.min(Math.min(...widths) / 2, sphere);
+}
+
+/**
+ * r_max in Å for g(r) when none is given: the sphere radius where it is
+ * clearly inside half the shortest width, else undefined to let the engine
+ * take half the shortest width of every frame.
+ */
+export function defaultRMaxA(atoms: number, cell: ArrayLike<number> | null): number | undefined {
+  const bounded = boundedRMaxA(atoms, cell);
+  if (bounded === undefined) return undefined;
+  const half = Math.min(...cellWidths(cell!).widths) / 2;
+  return bounded < SHRINK_ALLOWANCE * half ? bounded : undefined;
 }

@@ -9,7 +9,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { analysisParamsSchema, SPECTRAL_WINDOWS, SQ_WINDOWS, type AnalysisKey } from '../../../shared/analysis-params';
+import { analysisParamsSchema, DEFAULT_RDF_SPHERE_ATOMS, SPECTRAL_WINDOWS, SQ_WINDOWS, type AnalysisKey } from '../../../shared/analysis-params';
 import { RUN_NOTES_MAX_LENGTH, type AnalysisRunDto, type StartAnalysis } from '../../../shared/analysis-run';
 import type { RunEstimate } from '../../../shared/run-estimate';
 import { catchError, debounceTime, map, merge, of, startWith, switchMap } from 'rxjs';
@@ -181,7 +181,7 @@ export type AnalysisDialogResult = AnalysisRunDto | 'edit-metadata';
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>r_max (Å)</mat-label>
               <input matInput type="number" formControlName="rMaxA" min="0" step="any">
-              <mat-hint>Empty: half the shortest cell width</mat-hint>
+              <mat-hint>Empty: half the shortest cell width, at most the radius of about {{ sphereAtoms }} atoms</mat-hint>
             <mat-error>{{ fieldErrors()['rMaxA'] }}</mat-error></mat-form-field>
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>Bin width (Å)</mat-label>
@@ -250,6 +250,7 @@ export class AnalysisDialog {
   protected readonly choices = ANALYSIS_CHOICES;
   protected readonly windows = SPECTRAL_WINDOWS;
   protected readonly sqWindows = SQ_WINDOWS;
+  protected readonly sphereAtoms = DEFAULT_RDF_SPHERE_ATOMS;
   protected readonly speciesList = Object.keys(this.t.speciesCounts ?? {});
   protected readonly pairs = this.speciesList.flatMap((a, i) => this.speciesList.slice(i).map((b) => `${a}–${b}`));
   protected readonly selected = signal(new Set<AnalysisKey>(this.t.preset

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { runAnalyses } from '../../../server/analysis/index.ts';
 import type { Trajectory } from '../../../server/analysis/trajectory.ts';
-import { estimateCost } from '../../../server/run-plan/cost-estimate.ts';
+import { estimateCost, NS_PER_UNIT } from '../../../server/run-plan/cost-estimate.ts';
 import { adviceFor, ParamOutOfBounds, planRun, PlanProblem, type TrajectoryFacts } from '../../../server/run-plan/plan-run.ts';
-import { defaultRMaxA } from '../../../server/run-plan/rdf-range.ts';
+import { boundedRMaxA, DEFAULT_SPHERE_ATOMS, defaultRMaxA, SHRINK_ALLOWANCE } from '../../../server/run-plan/rdf-range.ts';
 import { fccLattice } from '../../../server/simulate/fcc-lattice.ts';
 import { AUTO_STRIDE_MAX_FRAMES, selectFrames } from '../../../shared/frame-selection.ts';
 
@@ -60,19 +60,52 @@ describe('the default range of g(r)', () => {
     expect(() => planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], { binWidthA: 0.005 })).not.toThrow();
   });
 
-  it('when a system is small, then g(r) keeps the textbook range of half the cell', () => {
-    expect(defaultRMaxA(500, cube(28.6))).toBeUndefined();
+  // The rule: r_max = min(half the shortest width, radius of the sphere holding DEFAULT_SPHERE_ATOMS at the mean density).
+  const sphereAtoms = (r: number, atoms: number, l: number) => (4 / 3) * Math.PI * r ** 3 * (atoms / l ** 3);
+
+  it('when 500 atoms fill a liquid-density cube, then the sphere of a thousand atoms is wider than half the cell and g(r) keeps half the cell', () => {
+    const l = 28.6;
+    expect(boundedRMaxA(500, cube(l))).toBeCloseTo(l / 2, 12);
+    // Left to the engine, which takes half the shortest width over every frame.
+    expect(defaultRMaxA(500, cube(l))).toBeUndefined();
     expect(planRun(facts(), ['rdf'], {}).params.rMaxA).toBeUndefined();
   });
 
-  it('when a system is large, then the range is bounded so cell lists apply and about a thousand atoms fall inside it', () => {
-    const l = Math.cbrt(50_000 / 0.021);
-    const r = defaultRMaxA(50_000, cube(l))!;
-    expect(r).toBeLessThanOrEqual(l / 3);
-    expect((4 / 3) * Math.PI * r ** 3 * 0.021).toBeCloseTo(1000, 0);
-    expect(planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], {}).params.rMaxA).toBeCloseTo(r, 4);
+  it('when 2000 atoms fill a cube at 0.021 Å⁻³, then the sphere (0.985 of half the cell) is within the shrink allowance and half the cell is kept', () => {
+    const l = Math.cbrt(2000 / 0.021);
+    const bounded = boundedRMaxA(2000, cube(l))!;
+    expect(sphereAtoms(bounded, 2000, l)).toBeCloseTo(DEFAULT_SPHERE_ATOMS, 6);
+    expect(bounded / (l / 2)).toBeCloseTo(0.985, 3);
+    expect(bounded).toBeGreaterThan(SHRINK_ALLOWANCE * (l / 2));
+    expect(defaultRMaxA(2000, cube(l))).toBeUndefined();
+  });
+
+  it('when 3000 atoms fill a cube, then the range is the sphere of a thousand atoms even though it is wider than a third of the cell', () => {
+    const l = Math.cbrt(3000 / 0.021);
+    const r = defaultRMaxA(3000, cube(l))!;
+    expect(r).toBeGreaterThan(l / 3);
+    expect(r).toBeLessThan(SHRINK_ALLOWANCE * (l / 2));
+    expect(sphereAtoms(r, 3000, l)).toBeCloseTo(DEFAULT_SPHERE_ATOMS, 6);
+  });
+
+  it('when 100 000 atoms fill a cube, then the range is the radius holding about a thousand atoms and the plan records it', () => {
+    const l = Math.cbrt(100_000 / 0.021);
+    const r = defaultRMaxA(100_000, cube(l))!;
+    expect(sphereAtoms(r, 100_000, l)).toBeCloseTo(DEFAULT_SPHERE_ATOMS, 6);
+    // (3·1000/(4π·0.021))^⅓ = 22.485 Å, whatever the size of the cell.
+    expect(r).toBeCloseTo(22.485, 3);
+    const big = facts({ atoms: 100_000, cell: cube(l) });
+    expect(planRun(big, ['rdf'], {}).params.rMaxA).toBeCloseTo(r, 4);
+    expect(planRun(big, ['sq'], {}).params.rMaxA).toBeCloseTo(r, 4);
     // A range the user gives is kept.
-    expect(planRun(facts({ atoms: 50_000, cell: cube(l) }), ['rdf'], { rMaxA: 12 }).params.rMaxA).toBe(12);
+    expect(planRun(big, ['rdf'], { rMaxA: 12 }).params.rMaxA).toBe(12);
+  });
+
+  it('when the cell is a slab (one short side), then half that side bounds the range', () => {
+    const slab = [30, 0, 0, 0, 300, 0, 0, 0, 300];
+    expect(boundedRMaxA(200_000, slab)).toBeCloseTo(Math.cbrt((3 * 1000 * 30 * 300 * 300) / (4 * Math.PI * 200_000)), 9);
+    expect(boundedRMaxA(20_000, slab)).toBe(15);
+    expect(defaultRMaxA(20_000, slab)).toBeUndefined();
   });
 
   it('when a 3000-atom crystal is analysed with the defaults, then g(r) runs on cell lists', () => {
@@ -133,6 +166,35 @@ describe('the cost estimate', () => {
     const bounded = planRun(big, ['rdf'], {}).estimate.seconds;
     const half = planRun(big, ['rdf'], { rMaxA: l / 2 }).estimate.seconds;
     expect(half / bounded).toBeGreaterThan(5);
+  });
+
+  it('when g(r) runs to half the cell, then its cell lists (two a side) visit every pair and the estimate prices them all, half of them binned', () => {
+    const n = 4000, l = Math.cbrt(n / 0.021), frames = 10;
+    const e = estimateCost(['rdf'], { atoms: n, frames, hasVelocities: false, volumePerAtomA3: l ** 3 / n, rMaxA: null, halfWidthA: l / 2, cutoffA: null });
+    const all = (n * (n - 1)) / 2, binned = (n * (Math.PI / 6) * n) / 2;
+    expect(e.analyses[0]!.seconds).toBeCloseTo((frames * (all * NS_PER_UNIT.rdfPair + binned * NS_PER_UNIT.rdfBinned)) / 1e9, 9);
+  });
+
+  it('when g(r) of a large system runs to half the cell past the limits, then the advice names the sphere radius and the speed-up it gives, and the plan with it bears that out', () => {
+    const l = Math.cbrt(20_000 / 0.021);
+    const big = facts({ atoms: 20_000, frames: 2000, cell: cube(l) });
+    const plan = planRun(big, ['rdf'], { rMaxA: l / 2 });
+    const advice = adviceFor(plan, big, ['rdf'], { seconds: plan.estimate.seconds / 10, memoryBytes: 64 * 1024 ** 3 });
+    const match = /Use a smaller g\(r\) range: r_max ≤ ([\d.]+) Å \(about 1000 atoms within it\) makes g\(r\) about (\d+)× faster\./.exec(advice.join(' '));
+    expect(match).not.toBeNull();
+    const [advised, speedup] = [Number(match![1]), Number(match![2])];
+    expect(advised).toBeLessThanOrEqual(boundedRMaxA(20_000, cube(l))!);
+    expect(advised).toBeGreaterThan(0.99 * boundedRMaxA(20_000, cube(l))!);
+    const rdfSeconds = (p: ReturnType<typeof planRun>) => p.estimate.analyses.find((a) => a.key === 'rdf')!.seconds;
+    expect(rdfSeconds(plan) / rdfSeconds(planRun(big, ['rdf'], { rMaxA: advised }))).toBeCloseTo(speedup, -0.5);
+  });
+
+  it('when a small system runs g(r) to half its cell, then no smaller range is advised (half the cell is already inside the sphere of a thousand atoms)', () => {
+    const small = facts({ frames: 4_000_000 });
+    const plan = planRun(small, ['rdf'], { frameStride: 1 });
+    const advice = adviceFor(plan, small, ['rdf'], { seconds: plan.estimate.seconds / 10, memoryBytes: 64 * 1024 ** 3 });
+    expect(advice.length).toBeGreaterThan(0);
+    expect(advice.join(' ')).not.toMatch(/g\(r\) range/);
   });
 
   it('when a run is past the limits, then each piece of advice names a change that brings it under them on its own', () => {
