@@ -46,7 +46,10 @@ test.describe('metadata', () => {
     await metadata.getByRole('button', { name: 'Save' }).click();
     await expect(metadata).toBeHidden();
     await page.getByRole('button', { name: 'Analyse untimed.xyz' }).click();
-    await expect(page.getByRole('dialog').getByRole('button', { name: 'Start analysis' })).toBeEnabled();
+    const again = page.getByRole('dialog', { name: 'Analyse untimed.xyz' });
+    await expect(again).toContainText('0.5 ps between frames');
+    await expect(again.getByRole('alert').filter({ hasText: 'time between frames is not known' })).toHaveCount(0);
+    await expect(again.getByRole('button', { name: 'Start analysis' })).toBeEnabled();
   });
 
   test('when several trajectories are selected, then one change applies to all of them and to no other', async ({ page, context }) => {

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
-import { Subscription, switchMap, timer } from 'rxjs';
+import { Subscription, catchError, of, switchMap, timer } from 'rxjs';
 import type { SeriesDto } from '../../../shared/series-api';
 import type { TrajectoryDto } from '../../../shared/trajectory';
 import { apiErrorMessage } from '../core/api-error';
@@ -62,6 +62,8 @@ export class ProjectTrajectories {
   protected readonly loadError = signal('');
   private readonly unsettled = computed(() => this.trajectories().some((t) => !SETTLED.has(t.status)));
   private polling: Subscription | null = null;
+  /** Trajectories whose analysis dialog is being opened, so a double click opens one. */
+  private readonly opening = new Set<number>();
 
   constructor() {
     effect(() => this.load(this.projectId()));
@@ -131,11 +133,19 @@ export class ProjectTrajectories {
         break;
       }
       case 'analyse':
-        this.dialog.open<AnalysisDialog, AnalysisDialogData, AnalysisDialogResult>(AnalysisDialog, { data: t, width: '720px' }).afterClosed()
-          .subscribe((result) => {
-            if (result === 'edit-metadata') this.act('edit', t);
-            else if (result) this.jobs.track(result, t.name);
-          });
+        // The row may be older than the server's copy (a time step saved a moment ago, or by another member):
+        // the dialog starts from the server's, and from the row only when the server cannot be reached.
+        if (this.opening.has(t.id)) break;
+        this.opening.add(t.id);
+        this.api.get(t.id).pipe(catchError(() => of(t))).subscribe((fresh) => {
+          this.opening.delete(t.id);
+          if (fresh !== t) this.replace(fresh);
+          this.dialog.open<AnalysisDialog, AnalysisDialogData, AnalysisDialogResult>(AnalysisDialog, { data: fresh, width: '720px' }).afterClosed()
+            .subscribe((result) => {
+              if (result === 'edit-metadata') this.act('edit', fresh);
+              else if (result) this.jobs.track(result, fresh.name);
+            });
+        });
         break;
       case 'cut':
         this.dialog.open(CutDialog, { data: t, width: '560px' });
