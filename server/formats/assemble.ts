@@ -3,7 +3,7 @@
  * With the counts from inspection the arrays are allocated once at their
  * final size, so peak memory stays about one Float32 copy of the data.
  */
-import { TrajectoryFormatError, type Frame } from './frame.ts';
+import { handBackArrays, TrajectoryFormatError, type Frame } from './frame.ts';
 import type { Trajectory } from '../analysis/trajectory.ts';
 import { BlockFileReader, BlockFileWriter, type BlockSizes } from '../out-of-core/block-file.ts';
 import {
@@ -174,6 +174,8 @@ export async function assembleTrajectory(
         if (!frame.velocities) throw new TrajectoryFormatError('frame has no velocities but the first frame has', where);
         scaleInto(writer ? writer.velocities! : velocities, base, frame.velocities, velocityFactor);
       }
+      // Copied: the reader may refill the frame's arrays rather than leave them to the collector.
+      handBackArrays(frame);
       if (cells) {
         if (!frame.cell) throw new TrajectoryFormatError('frame has no cell but the first frame has one', where);
         for (let k = 0; k < 9; k++) cells[count * 9 + k] = frame.cell[k] * lengthFactor;

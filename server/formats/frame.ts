@@ -32,6 +32,27 @@ export interface Frame {
   values?: Record<string, number>;
 }
 
+/** Frames whose reader can refill their coordinate arrays → how it takes them back (kept off the frame, which stays plain data). */
+const takeBacks = new WeakMap<Frame, () => void>();
+
+/** For readers: `takeBack` lets the reader refill this frame's coordinate arrays for a later frame. */
+export function offerArrays(frame: Frame, takeBack: () => void): void {
+  takeBacks.set(frame, takeBack);
+}
+
+/**
+ * For consumers that have copied a frame's coordinates and keep no reference
+ * to its arrays: the reader may refill them for a later frame, so reading does
+ * not leave a pair of arrays per frame behind for the collector. Does nothing
+ * for frames whose reader makes new arrays each time.
+ */
+export function handBackArrays(frame: Frame): void {
+  const takeBack = takeBacks.get(frame);
+  if (!takeBack) return;
+  takeBacks.delete(frame);
+  takeBack();
+}
+
 /** Where a frame starts in the (decompressed) byte stream, for random access. */
 export interface FrameOffset {
   index: number;

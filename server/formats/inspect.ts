@@ -6,7 +6,7 @@
  */
 import { createHash } from 'node:crypto';
 import { assertFiniteFrame } from './finite-values.ts';
-import { TrajectoryFormatError, type Compression, type Frame, type FrameOffset, type TrajectoryFormat } from './frame.ts';
+import { handBackArrays, TrajectoryFormatError, type Compression, type Frame, type FrameOffset, type TrajectoryFormat } from './frame.ts';
 import { openTrajectory, type ByteSource } from './open-trajectory.ts';
 import type { ReaderLimits } from './limits.ts';
 import { FrameIndex, DEFAULT_MAX_FRAME_OFFSETS } from './frame-index.ts';
@@ -63,7 +63,10 @@ export async function inspectTrajectory(
   name: string,
   limits: InspectLimits = {},
   onProgress?: (progress: InspectProgress) => void,
-  /** Sees every frame as it passes (the binary frame store is written from here); a returned promise is awaited. */
+  /**
+   * Sees every frame as it passes (the binary frame store is written from here); a returned promise is awaited.
+   * The frame's coordinate arrays are refilled for a later frame after that: copy what is kept.
+   */
   onFrame?: (frame: Frame) => Promise<void> | void,
 ): Promise<InspectResult> {
   const hash = limits.sha256 ? createHash('sha256') : null;
@@ -120,6 +123,8 @@ export async function inspectTrajectory(
       const pending = onFrame(frame);
       if (pending) await pending;
     }
+    // Checked and seen: the reader may refill the frame's arrays for the next one.
+    handBackArrays(frame);
     frames++;
     if (onProgress && opened.rawBytes() - reported >= PROGRESS_EVERY_BYTES) {
       reported = opened.rawBytes();

@@ -17,6 +17,12 @@ export interface LineReaderOptions {
   baseOffset?: number;
   /** Whether line numbers are meaningful (false after a seek into the middle of a file). */
   countLines?: boolean;
+  /**
+   * Called with each source chunk once no line served or to be served
+   * refers to its bytes any more (they were used up or copied), so the
+   * source may refill it (see ChunkPool).
+   */
+  recycle?: (chunk: Buffer) => void;
 }
 
 export class LineReader {
@@ -33,6 +39,8 @@ export class LineReader {
   private bufBase: number;
   /** Input that follows `buf` directly, served once `buf` is used up (see `more`). */
   private queued: Buffer | null = null;
+  /** The source chunk whose bytes `buf` or `queued` views (at most one at a time), for `recycle`. */
+  private held: Buffer | null = null;
   private readonly iterator: AsyncIterator<Buffer>;
 
   constructor(
@@ -104,6 +112,7 @@ export class LineReader {
       this.buf = Buffer.concat([this.buf.subarray(this.pos), this.queued]);
       this.pos = 0;
       this.queued = null;
+      this.hold(null);
       return;
     }
     if (this.eof) return;
@@ -132,10 +141,26 @@ export class LineReader {
       if (newline >= 0 && newline + 1 < chunk.length) {
         this.buf = Buffer.concat([parts[0], chunk.subarray(0, newline + 1)], rest + newline + 1);
         this.queued = chunk.subarray(newline + 1);
+        this.hold(chunk);
         return;
       }
     }
-    this.buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, total);
+    if (parts.length === 1) {
+      this.buf = parts[0];
+      // A new chunk served as it is; otherwise (input over) the old tail, still in the held chunk.
+      if (rest === 0) this.hold(parts[0]);
+      return;
+    }
+    this.buf = Buffer.concat(parts, total);
+    // Everything was copied: the new chunks are done with as well as the old one.
+    this.hold(null);
+    for (let k = rest ? 1 : 0; k < parts.length; k++) this.options.recycle?.(parts[k]);
+  }
+
+  /** Makes `chunk` the held source chunk, handing the previous one back when it changes. */
+  private hold(chunk: Buffer | null): void {
+    if (this.held !== null && this.held !== chunk) this.options.recycle?.(this.held);
+    this.held = chunk;
   }
 
   private tooLong(line: number): never {

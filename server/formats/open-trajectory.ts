@@ -6,7 +6,7 @@
 import { stat } from 'node:fs/promises';
 import { TrajectoryFormatError, type Compression, type Frame, type TrajectoryFormat } from './frame.ts';
 import { resolveLimits, type ReaderLimits } from './limits.ts';
-import { ByteCounter, chunksOf, peek, type ByteSource } from './sources.ts';
+import { ByteCounter, ChunkPool, chunksOf, peek, type ByteSource } from './sources.ts';
 import { DETECT_BYTES, detectCompression, detectFormat } from './detect.ts';
 import { gunzip, unzipSingle } from './decompress.ts';
 import { LineReader } from './line-reader.ts';
@@ -58,7 +58,9 @@ export async function openTrajectory(source: ByteSource, name: string, options: 
   if (totalBytes === undefined && typeof source === 'string') totalBytes = (await stat(source)).size;
 
   const raw = new ByteCounter();
-  const { head, rest } = await peek(raw.count(chunksOf(source, typeof source === 'string' ? startOffset : 0)), DETECT_BYTES);
+  // A file's read buffers are reused once the line reader is done with them (wired below for uncompressed text only).
+  const pool = new ChunkPool();
+  const { head, rest } = await peek(raw.count(chunksOf(source, typeof source === 'string' ? startOffset : 0, pool)), DETECT_BYTES);
   if (head.length === 0 && startOffset === 0) {
     await rest.return(undefined);
     throw new TrajectoryFormatError('file is empty', { file: name });
@@ -95,6 +97,8 @@ export async function openTrajectory(source: ByteSource, name: string, options: 
       maxLineBytes: limits.maxLineBytes,
       baseOffset: startOffset,
       countLines: startOffset === 0,
+      // Only there does the line reader see the file's chunks themselves; a decompressor may keep its input a while.
+      recycle: compression === 'none' ? (chunk) => pool.giveBack(chunk) : undefined,
     });
     frames = format === 'pdb' ? readPdb(lines, ctx) : format === 'extxyz' ? readExtxyz(lines, ctx) : readXyz(lines, ctx);
   }

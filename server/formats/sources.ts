@@ -3,6 +3,7 @@
  * Buffers, whether it came from a path, a Node stream or a test array.
  */
 import { createReadStream } from 'node:fs';
+import { open } from 'node:fs/promises';
 
 /** Bytes of a trajectory: a file path, a Node Readable, or any async iterable of chunks. */
 export type ByteSource = string | AsyncIterable<Uint8Array | string>;
@@ -15,12 +16,71 @@ export function asBuffer(chunk: Uint8Array | string): Buffer {
   return Buffer.isBuffer(chunk) ? chunk : Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength);
 }
 
-export async function* chunksOf(source: ByteSource, start = 0): AsyncGenerator<Buffer> {
+/** Spare read buffers a pool keeps: the line reader holds at most one chunk while the next is read. */
+const POOL_SPARES = 2;
+
+/**
+ * Read buffers of a file read once in order. A consumer that has copied
+ * what it needs of a chunk hands it back and the next read refills it, so
+ * reading a file leaves no trail of megabyte buffers for the collector
+ * (which otherwise lets tens of them pile up before it runs). Chunks nobody
+ * hands back are simply dropped, as without a pool.
+ */
+export class ChunkPool {
+  private readonly spares: Buffer[] = [];
+  /** Each chunk handed out → the whole buffer it views; only these are taken back. */
+  private readonly out = new WeakMap<Buffer, Buffer>();
+
+  /** A whole buffer to read into. */
+  take(): Buffer {
+    return this.spares.pop() ?? Buffer.allocUnsafeSlow(FILE_CHUNK_BYTES);
+  }
+
+  /** Records `chunk` (a view of `whole`) as handed out. */
+  lend(chunk: Buffer, whole: Buffer): Buffer {
+    this.out.set(chunk, whole);
+    return chunk;
+  }
+
+  /** Takes back a chunk this pool handed out, once nothing refers to its bytes any more; anything else is ignored. */
+  giveBack(chunk: Buffer): void {
+    const whole = this.out.get(chunk);
+    if (!whole) return;
+    this.out.delete(chunk);
+    if (this.spares.length < POOL_SPARES) this.spares.push(whole);
+  }
+}
+
+/**
+ * Chunks of a file or stream from byte `start` (files only). With a pool, a
+ * file is read on demand into the pool's buffers, never ahead, so a buffer
+ * handed back is not being filled while its old bytes are still in use.
+ */
+export async function* chunksOf(source: ByteSource, start = 0, pool?: ChunkPool): AsyncGenerator<Buffer> {
+  if (pool && typeof source === 'string') {
+    yield* pooledFileChunks(source, start, pool);
+    return;
+  }
   const iterable =
     typeof source === 'string' ? createReadStream(source, { start, highWaterMark: FILE_CHUNK_BYTES }) : source;
   for await (const chunk of iterable) {
     const buf = asBuffer(chunk as Uint8Array | string);
     if (buf.length) yield buf;
+  }
+}
+
+async function* pooledFileChunks(path: string, start: number, pool: ChunkPool): AsyncGenerator<Buffer> {
+  const handle = await open(path, 'r');
+  try {
+    for (let position = start; ;) {
+      const whole = pool.take();
+      const { bytesRead } = await handle.read(whole, 0, whole.length, position);
+      if (bytesRead === 0) return;
+      position += bytesRead;
+      yield pool.lend(whole.subarray(0, bytesRead), whole);
+    }
+  } finally {
+    await handle.close();
   }
 }
 

@@ -4,7 +4,7 @@
  * columns are read straight from bytes. Plain XYZ is the special case where
  * the comment is ignored and the columns are species x y z.
  */
-import { TrajectoryFormatError, type Cell } from './frame.ts';
+import { offerArrays, TrajectoryFormatError, type Cell } from './frame.ts';
 import { MIN_ATOM_LINE_BYTES } from './limits.ts';
 import { isBlank, type LineReader } from './line-reader.ts';
 import { field, parseFieldBytes, parseNumberBytes } from './number-bytes.ts';
@@ -86,10 +86,11 @@ export async function* readXyzFrames(
         }
       }
       if (atoms.speciesChanged) lastSpecies = speciesCache.slice(0, n);
-      if (ctx.transientFrames) {
+      const frameVelocities = velocities;
+      const recycle = (): void => {
         spare.positions = positions;
-        if (velocities) spare.velocities = velocities;
-      }
+        if (frameVelocities) spare.velocities = frameVelocities;
+      };
       nAtoms = n;
       const frame: TextFrame = {
         index,
@@ -98,6 +99,9 @@ export async function* readXyzFrames(
         cell: info.cell as Cell | null,
         byteOffset,
       };
+      // Refilled next time in any case when the consumer said it copies every frame; else once it hands them back.
+      if (ctx.transientFrames) recycle();
+      else offerArrays(frame, recycle);
       if (velocities) frame.velocities = velocities;
       if (info.pbc) frame.pbc = info.pbc;
       if (info.time !== undefined) frame.time = info.time;

@@ -66,6 +66,35 @@ describe('line reader', () => {
     });
   }
 
+  for (const sizes of [[1], [2, 3], [80, 81, 82], [4093, 1, 7], [70_000, 13], [1 << 20]]) {
+    it(`given chunks of ${sizes.join(', ')} bytes that are wiped as soon as they are handed back, when every line is read, then each is as in the whole text and no chunk comes back twice`, async () => {
+      const handedOut = new Set<Buffer>();
+      const back = new Set<Buffer>();
+      async function* ownCopies(): AsyncGenerator<Buffer> {
+        for await (const chunk of chunks(bytes, sizes)) {
+          const own = Buffer.from(chunk);
+          handedOut.add(own);
+          yield own;
+        }
+      }
+      const lines = new LineReader(ownCopies(), {
+        file: 't.txt', maxLineBytes: 1 << 20,
+        // As a refilled read buffer would be: any line still served from these bytes comes out garbled.
+        recycle: (chunk) => {
+          expect(handedOut.has(chunk) && !back.has(chunk)).toBe(true);
+          back.add(chunk);
+          chunk.fill(0);
+        },
+      });
+      const seen: Seen[] = [];
+      while (lines.next() || (await lines.nextLine())) {
+        seen.push({ text: lines.text(), line: lines.lineNo, offset: lines.lineOffset, consumed: lines.consumed });
+      }
+      expect(seen).toEqual(expected);
+      expect(back.size).toBeGreaterThanOrEqual(handedOut.size - 1);
+    });
+  }
+
   it('when a CR LF pair is split between two chunks, then the CR is still dropped', async () => {
     const crlf = Buffer.from('first\r\nsecond\r\nthird\r\n');
     expect((await linesOf(crlf, [6, 1, 7, 100])).map((s) => s.text)).toEqual(['first', 'second', 'third']);

@@ -6,10 +6,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { assembleTrajectory, type AssembleHints } from '../../../server/formats/assemble.ts';
-import type { Frame } from '../../../server/formats/frame.ts';
+import { handBackArrays, type Frame } from '../../../server/formats/frame.ts';
 import { openTrajectory } from '../../../server/formats/open-trajectory.ts';
 import type { Trajectory } from '../../../server/analysis/trajectory.ts';
-import { bytes, chunked, extxyzText, makeSystem, readAll, xyzText } from './synthetic.ts';
+import { writeFile } from 'node:fs/promises';
+import { inspectTrajectory } from '../../../server/formats/inspect.ts';
+import { bytes, chunked, extxyzText, gzip, makeSystem, readAll, tempDir, xyzText } from './synthetic.ts';
 
 const UNITS = { length: 'nm', time: 'ps', velocity: 'nm/ps' } as const;
 
@@ -60,6 +62,65 @@ describe('transient frames', () => {
       if (frame.velocities) expect(Array.from(frame.velocities)).toEqual(Array.from(system.velocities[frame.index]!));
     }
     expect(seen).toEqual([false, true, true, true, true, true, true, true, true]);
+  });
+});
+
+describe('frames handed back', () => {
+  const system = makeSystem(7, 9, 11, { cellChanges: true });
+  const text = bytes(extxyzText(system));
+
+  it('when each frame is handed back once read, then the next frame refills its arrays with its own values', async () => {
+    const opened = await openTrajectory(chunked(text), 'run.extxyz');
+    const arrays = new Set<Frame['positions']>();
+    for await (const frame of opened.frames) {
+      arrays.add(frame.positions).add(frame.velocities!);
+      expect(Array.from(frame.positions)).toEqual(Array.from(system.positions[frame.index]!));
+      expect(Array.from(frame.velocities!)).toEqual(Array.from(system.velocities[frame.index]!));
+      handBackArrays(frame);
+    }
+    expect(arrays.size).toBe(2);
+  });
+
+  it('when assembly hands frames back, then the trajectory equals one from frames kept apart', async () => {
+    const kept = (await readAll(text, 'run.extxyz')).map((frame) => ({ ...frame }));
+    const fromKept = await assembleTrajectory(kept, { ...UNITS, timeStepPs: 0.5 }, undefined, 'run.extxyz');
+    same(fromKept, await assembled(text, 'run.extxyz', false));
+  });
+});
+
+describe('files read into reused buffers', () => {
+  // Several one-megabyte reads, so the read buffers are handed back and refilled many times over.
+  const system = makeSystem(400, 280, 13, { cellChanges: true });
+  const text = bytes(extxyzText(system));
+
+  it('given a file of several read buffers, when it is inspected and assembled from its path, then both equal a reading of the same bytes in odd chunks', async () => {
+    expect(text.length).toBeGreaterThan(4 << 20);
+    const dir = await tempDir();
+    try {
+      const path = dir.file('run.extxyz');
+      await writeFile(path, text);
+      const info = await inspectTrajectory(path, 'run.extxyz');
+      const streamed = await inspectTrajectory(chunked(text, [70_001, 4093]), 'run.extxyz', { totalBytes: text.length });
+      expect(info).toEqual(streamed);
+      const opened = await openTrajectory(path, 'run.extxyz');
+      const fromPath = await assembleTrajectory(opened.frames, { ...UNITS, timeStepPs: 0.5 }, { atoms: info.atoms, frames: info.frames }, 'run.extxyz');
+      same(await assembled(text, 'run.extxyz', false), fromPath);
+      expect(Array.from(fromPath.positions.subarray(-3 * 400))).toEqual(Array.from(system.positions[279]!, (x) => Math.fround(x * 10)));
+    } finally {
+      await dir.remove();
+    }
+  });
+
+  it('given a gzip file, when it is read from its path, then its frames equal the plain file\'s', async () => {
+    const dir = await tempDir();
+    try {
+      const path = dir.file('run.extxyz.gz');
+      await writeFile(path, gzip(text));
+      const opened = await openTrajectory(path, 'run.extxyz.gz');
+      same(await assembled(text, 'run.extxyz', false), await assembleTrajectory(opened.frames, { ...UNITS, timeStepPs: 0.5 }, undefined, 'run.extxyz'));
+    } finally {
+      await dir.remove();
+    }
   });
 });
 
