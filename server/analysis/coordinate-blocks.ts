@@ -69,11 +69,18 @@ export class AtomCursor {
 
   at(atom: number): AtomSpan {
     if (atom < this.chunkFrom || atom >= this.chunkTo) {
-      // Drop the old chunk before reading the next, so two are never held at once.
-      this.chunk = this.span.data = EMPTY;
       const from = Math.floor(atom / this.atomsPerChunk) * this.atomsPerChunk;
       const to = Math.min(this.traj.nAtoms, from + this.atomsPerChunk);
-      this.chunk = this.whole ? gatherAtoms(this.whole, this.traj.nAtoms, this.traj.nFrames, from, to) : this.traj.blocks!.readAtoms(this.kind, from, to);
+      if (this.whole) {
+        // Gathered into the same buffer chunk after chunk: a pass over the atoms leaves no trail of them for the collector.
+        const length = this.atomsPerChunk * 3 * this.traj.nFrames;
+        if (this.chunk.length !== length) this.chunk = new Float32Array(length);
+        gatherAtoms(this.whole, this.traj.nAtoms, this.traj.nFrames, from, to, this.chunk);
+      } else {
+        // Drop the old chunk before reading the next, so two are never held at once.
+        this.chunk = this.span.data = EMPTY;
+        this.chunk = this.traj.blocks!.readAtoms(this.kind, from, to);
+      }
       this.chunkFrom = from;
       this.chunkTo = to;
     }
@@ -85,14 +92,13 @@ export class AtomCursor {
 }
 
 /**
- * Atoms [from, to) of a frame-major array, atom-major: out[(a − from)·3T + 3t + c].
+ * Atoms [from, to) of a frame-major array, atom-major, into out[(a − from)·3T + 3t + c].
  * Atom by atom, so the writes run straight through the output: the first
  * atom brings the chunk's few cache lines of each frame in, and the
  * chunk's other atoms find them still cached.
  */
-function gatherAtoms(x: Float32Array, N: number, T: number, from: number, to: number): Float32Array {
+function gatherAtoms(x: Float32Array, N: number, T: number, from: number, to: number, out: Float32Array): void {
   const atoms = to - from;
-  const out = new Float32Array(atoms * 3 * T);
   const stride = 3 * N;
   for (let a = 0; a < atoms; a++) {
     let p = 3 * (from + a);
@@ -103,7 +109,6 @@ function gatherAtoms(x: Float32Array, N: number, T: number, from: number, to: nu
       out[o + 2] = x[p + 2];
     }
   }
-  return out;
 }
 
 /** Blocks kept by a frame cursor: a frame and its two neighbours touch at most three. */
