@@ -102,9 +102,14 @@ export class FrameEnergyEvaluator {
   private order = new Int32Array(0);
   private cellOf = new Int32Array(0);
   private start = new Int32Array(0);
-  private readonly xs: Float64Array;
-  private readonly ys: Float64Array;
-  private readonly zs: Float64Array;
+  private xs: Float64Array;
+  private ys: Float64Array;
+  private zs: Float64Array;
+  /** The arrays sortByCell reorders xs, ys, zs into. */
+  private spareX: Float64Array;
+  private spareY: Float64Array;
+  private spareZ: Float64Array;
+  private fill = new Int32Array(0);
   private readonly ts: Int32Array;
   private readonly scratch = new Float64Array(2);
 
@@ -122,6 +127,9 @@ export class FrameEnergyEvaluator {
     this.xs = new Float64Array(n);
     this.ys = new Float64Array(n);
     this.zs = new Float64Array(n);
+    this.spareX = new Float64Array(n);
+    this.spareY = new Float64Array(n);
+    this.spareZ = new Float64Array(n);
     this.ts = new Int32Array(n);
   }
 
@@ -220,7 +228,11 @@ export class FrameEnergyEvaluator {
       const r = Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12));
       return wrap[k] ? r : Math.min(r, dims[k] - 1);
     }) as [number, number, number];
-    return { dims, reach, periodic: true, wrap: [wrap[0]!, wrap[1]!, wrap[2]!], lattice: [a0, a1, a2, b0, b1, b2, c0, c1, c2], volume: V };
+    const rectangular = a1 === 0 && a2 === 0 && b0 === 0 && b2 === 0 && c0 === 0 && c1 === 0;
+    return {
+      dims, reach, periodic: true, wrap: [wrap[0]!, wrap[1]!, wrap[2]!], lattice: [a0, a1, a2, b0, b1, b2, c0, c1, c2], volume: V,
+      binWidths: rectangular ? widths.map((w, k) => w / dims[k]) as [number, number, number] : null,
+    };
   }
 
   private binOpen(x: ArrayLike<number>, off: number, rc: number): Grid {
@@ -247,7 +259,10 @@ export class FrameEnergyEvaluator {
     this.sortByCell(dims[0] * dims[1] * dims[2]);
     // Nothing lies beyond the grid: a flat or thin system needs no more than its own cells.
     const reach = span.map((w, k) => Math.min(dims[k] - 1, Math.max(1, Math.ceil((rc * dims[k]) / w - 1e-12)))) as [number, number, number];
-    return { dims, reach, periodic: false, wrap: [false, false, false], lattice: [0, 0, 0, 0, 0, 0, 0, 0, 0], volume: NaN };
+    return {
+      dims, reach, periodic: false, wrap: [false, false, false], lattice: [0, 0, 0, 0, 0, 0, 0, 0, 0], volume: NaN,
+      binWidths: span.map((w, k) => w / dims[k]) as [number, number, number],
+    };
   }
 
   /** Counting sort of atoms by sub-cell, so each sub-cell's atoms lie together in xs/ys/zs/ts. */
@@ -258,33 +273,33 @@ export class FrameEnergyEvaluator {
     start.fill(0, 0, nCells + 1);
     for (let i = 0; i < n; i++) start[this.cellOf[i] + 1]++;
     for (let c = 0; c < nCells; c++) start[c + 1] += start[c];
-    const fill = start.slice(0, nCells);
-    for (let i = 0; i < n; i++) this.order[fill[this.cellOf[i]]++] = i;
-    const x = Float64Array.from(this.order, (i) => this.xs[i]);
-    const y = Float64Array.from(this.order, (i) => this.ys[i]);
-    const z = Float64Array.from(this.order, (i) => this.zs[i]);
-    this.xs.set(x);
-    this.ys.set(y);
-    this.zs.set(z);
-    for (let k = 0; k < n; k++) this.ts[k] = this.types[this.order[k]];
+    if (this.fill.length < nCells) this.fill = new Int32Array(nCells);
+    const fill = this.fill, order = this.order, cellOf = this.cellOf;
+    fill.set(start.subarray(0, nCells));
+    for (let i = 0; i < n; i++) order[fill[cellOf[i]]++] = i;
+    // Reordered through the spare arrays, which then swap roles: nothing is allocated frame after frame.
+    const xs = this.xs, ys = this.ys, zs = this.zs, x = this.spareX, y = this.spareY, z = this.spareZ;
+    for (let k = 0; k < n; k++) {
+      const i = order[k];
+      x[k] = xs[i];
+      y[k] = ys[i];
+      z[k] = zs[i];
+      this.ts[k] = this.types[i];
+    }
+    this.xs = x, this.ys = y, this.zs = z;
+    this.spareX = xs, this.spareY = ys, this.spareZ = zs;
   }
 
   /** Energy, six virial components and the pair count, accumulated by pairBlock. */
   private readonly acc = new Float64Array(8);
 
   private sweep(g: Grid, r: FrameEnergy): void {
-    const [nx, ny, nz] = g.dims, [mx, my, mz] = g.reach;
+    const [nx, ny, nz] = g.dims;
     const L = g.lattice;
     const [wx, wy, wz] = g.wrap;
     const start = this.start;
     this.acc.fill(0);
-
-    // Half-space of offsets: (0,0,0) is handled with j > i; of o and −o only one is listed.
-    const offsets: number[] = [];
-    for (let oz = -mz; oz <= mz; oz++)
-      for (let oy = -my; oy <= my; oy++)
-        for (let ox = -mx; ox <= mx; ox++)
-          if (oz > 0 || (oz === 0 && (oy > 0 || (oy === 0 && ox > 0)))) offsets.push(ox, oy, oz);
+    const rows = this.neighbourRows(g);
 
     for (let cz = 0; cz < nz; cz++)
       for (let cy = 0; cy < ny; cy++)
@@ -293,32 +308,78 @@ export class FrameEnergyEvaluator {
           const i0 = start[c], i1 = start[c + 1];
           if (i0 === i1) continue;
           this.pairBlock(i0, i1, i0, i1, true, 0, 0, 0);
-          for (let k = 0; k < offsets.length; k += 3) {
-            let tx = cx + offsets[k], ty = cy + offsets[k + 1], tz = cz + offsets[k + 2];
-            let shx = 0.5, shy = 0.5, shz = 0.5; // doubles from the start: no representation change later
-            if (g.periodic) {
-              // A neighbour cell beyond the grid along a direction that does not repeat is empty space.
-              if ((!wx && (tx < 0 || tx >= nx)) || (!wy && (ty < 0 || ty >= ny)) || (!wz && (tz < 0 || tz >= nz))) continue;
-              const sx = Math.floor(tx / nx), sy = Math.floor(ty / ny), sz = Math.floor(tz / nz);
-              tx -= sx * nx;
+          for (let k = 0; k < rows.length; k += 4) {
+            let ty = cy + rows[k + 2], tz = cz + rows[k + 3];
+            let shy = 0, shz = 0, sy = 0, sz = 0;
+            // A neighbour row beyond the grid along a direction that does not repeat is empty space.
+            if (g.periodic && wy) {
+              sy = Math.floor(ty / ny);
               ty -= sy * ny;
+            } else if (ty < 0 || ty >= ny) continue;
+            if (g.periodic && wz) {
+              sz = Math.floor(tz / nz);
               tz -= sz * nz;
-              shx = sx * L[0] + sy * L[3] + sz * L[6];
-              shy = sx * L[1] + sy * L[4] + sz * L[7];
-              shz = sx * L[2] + sy * L[5] + sz * L[8];
-            } else {
-              if (tx < 0 || ty < 0 || tz < 0 || tx >= nx || ty >= ny || tz >= nz) continue;
-              shx = shy = shz = 0;
+            } else if (tz < 0 || tz >= nz) continue;
+            if (g.periodic) {
+              shy = sy * L[4] + sz * L[7];
+              shz = sy * L[5] + sz * L[8];
             }
-            const t = (tz * ny + ty) * nx + tx;
-            const j0 = start[t], j1 = start[t + 1];
-            if (j0 !== j1) this.pairBlock(i0, i1, j0, j1, false, shx, shy, shz);
+            const row = (tz * ny + ty) * nx;
+            // The row's sub-cells cx + from … cx + to lie side by side in memory, and so do their atoms:
+            // one block per stretch that shares an image (two where the row wraps around).
+            let tx = cx + rows[k];
+            const last = cx + rows[k + 1];
+            while (tx <= last) {
+              let sx = 0;
+              if (g.periodic && wx) sx = Math.floor(tx / nx);
+              else if (tx < 0) {
+                tx = 0;
+                continue;
+              } else if (tx >= nx) break;
+              const from = tx - sx * nx;
+              const to = Math.min(nx - 1, last - sx * nx);
+              const j0 = start[row + from], j1 = start[row + to + 1];
+              if (j0 !== j1) {
+                const shx = g.periodic ? sx * L[0] + sy * L[3] + sz * L[6] : 0;
+                const imageY = g.periodic ? sx * L[1] + shy : 0;
+                const imageZ = g.periodic ? sx * L[2] + shz : 0;
+                this.pairBlock(i0, i1, j0, j1, false, shx, imageY, imageZ);
+              }
+              tx += to - from + 1;
+            }
           }
         }
     const a = this.acc;
     r.pairEV = a[0];
     r.virialEV.set(a.subarray(1, 7));
     r.pairs = a[7];
+  }
+
+  /**
+   * The half-space of neighbour sub-cell offsets as rows along x: from, to, oy, oz
+   * per row ((0,0,0) itself is handled with j > i; of o and −o only one is met).
+   * With rectangular sub-cells each row stops where its nearest corners are a
+   * cut-off or more apart, so the searched region hugs the cut-off sphere.
+   */
+  private neighbourRows(g: Grid): number[] {
+    const [mx, my, mz] = g.reach;
+    const bins = g.binWidths;
+    const rc = this.model.maxCutoffA;
+    const beyond = rc * rc * (1 + 1e-9);
+    const gap = (o: number, k: number): number => (Math.abs(o) <= 1 ? 0 : (Math.abs(o) - 1) * bins![k]);
+    const rows: number[] = [];
+    for (let oz = 0; oz <= mz; oz++)
+      for (let oy = oz === 0 ? 0 : -my; oy <= my; oy++) {
+        let from = oz === 0 && oy === 0 ? 1 : -mx, to = mx;
+        if (bins) {
+          const rest = gap(oy, 1) ** 2 + gap(oz, 2) ** 2;
+          if (rest >= beyond) continue;
+          while (to >= from && to > 1 && gap(to, 0) ** 2 + rest >= beyond) to--;
+          while (from < -1 && gap(from, 0) ** 2 + rest >= beyond) from++;
+        }
+        if (from <= to) rows.push(from, to, oy, oz);
+      }
+    return rows;
   }
 
   /** All pairs between atoms i0..i1 and j0..j1 (j > i when self), with atom j displaced by the image shift. */
@@ -387,14 +448,18 @@ interface Grid {
   wrap: [boolean, boolean, boolean];
   lattice: number[];
   volume: number;
+  /** Sub-cell edge lengths when the sub-cells are rectangular boxes (else null): for leaving out sub-cells beyond the cut-off. */
+  binWidths: [number, number, number] | null;
 }
 
 /**
- * Sub-cells per direction, about rc/SUBDIVISION wide: the searched region then
- * hugs the cut-off sphere more closely than with rc-wide cells (fewer
- * distances tried). Capped near 2N in total so sparse boxes stay cheap.
+ * Sub-cells per direction, about rc/SUBDIVISION wide: with the rows of
+ * neighbours trimmed to the cut-off sphere (neighbourRows), half-width
+ * sub-cells search about half the volume rc-wide ones do, for little more
+ * bookkeeping since each row is one run of atoms. Capped near 2N in total
+ * so sparse boxes stay cheap.
  */
-const SUBDIVISION = 1;
+const SUBDIVISION = 2;
 function subdivide(widths: number[], rc: number, n: number): [number, number, number] {
   const dims = widths.map((w) => Math.max(1, Math.floor((SUBDIVISION * w) / rc))) as [number, number, number];
   const cap = 2 * n + 27;
