@@ -22,16 +22,18 @@ export const NS_PER_UNIT = {
   /**
    * One pair distance g(r)'s cell lists visit, and one of those closer than
    * r_max put in the histogram (square root, bin). Their sum at the half
-   * filling of r_max = L/2 is the 12 ns per pair bench/cost-model.ts
-   * measured for all pairs; the split (binning about twice a bare distance)
-   * was measured on a 4000-atom gas with r_max = L/20 and L/2.
+   * filling of r_max = L/2 is about the 27 ns per pair bench/cost-model.ts
+   * measured for all pairs of 500 atoms on the 2-core build machine; the
+   * split (binning about twice a bare distance) was measured on a 4000-atom
+   * gas with r_max = L/20 and L/2. Rounded up rather than down: a limit
+   * should refuse a run before it starts, not let it run past the limit.
    */
-  rdfPair: 6,
-  rdfBinned: 12,
-  /** One pair distance of the Lindemann index (minimum image, square root, two sums). */
-  lindemannPair: 25,
-  /** One displacement of the non-Gaussian parameter. */
-  ngpStep: 6,
+  rdfPair: 12,
+  rdfBinned: 24,
+  /** One pair distance of the Lindemann index (minimum image, square root, two sums); 500 atoms measured about 3× the former 25 ns. */
+  lindemannPair: 75,
+  /** One displacement of the non-Gaussian parameter; measured about 3× the former 6 ns. */
+  ngpStep: 18,
   /** One pair energy and virial term. */
   energyPair: 20,
 } as const;
