@@ -8,7 +8,9 @@ import { readyTrajectory } from './helpers/viewer-data.ts';
 /** Opens the analysis dialog for a trajectory on its project page, keeps only the named analyses and starts. */
 async function startAnalysis(page: Page, fileName: string, analyses: string[]): Promise<void> {
   await page.getByRole('button', { name: `Analyse ${fileName}` }).click();
-  const dialog = page.getByRole('dialog');
+  const dialog = page.getByRole('dialog', { name: `Analyse ${fileName}` });
+  // The dialog opens once the server's copy of the trajectory is read: its checkboxes are counted only then.
+  await expect(dialog.getByRole('button', { name: 'Start analysis' })).toBeVisible();
   for (const box of await dialog.getByRole('checkbox').all()) {
     if (await box.isChecked()) await box.uncheck();
   }
@@ -22,6 +24,10 @@ test.describe('analysis runs', () => {
     const bytes = await randomWalkExtxyz({ atoms: 30, frames: 60, diffusionA2PerPs: 0.5, timeStepPs: 0.1, boxA: 20, seed: 11 });
     const trajectory = await readyTrajectory(context, 'notice-walk.extxyz', bytes);
     await page.goto(`/projects/${trajectory.projectId}`);
+    // Each notice shows for a while and gives way to the next; watched from the start, so a slow machine
+    // that is still opening the next page when a run ends cannot make the test look too late.
+    const temperatureNotice = expect(page.getByText('The analysis of notice-walk.extxyz (temperature) is done.')).toBeVisible({ timeout: 120_000 });
+    const msdNotice = expect(page.getByText('The analysis of notice-walk.extxyz (MSD) is done.')).toBeVisible({ timeout: 120_000 });
     await startAnalysis(page, 'notice-walk.extxyz', ['Temperature and density']);
     await startAnalysis(page, 'notice-walk.extxyz', ['MSD and diffusion']);
 
@@ -31,9 +37,9 @@ test.describe('analysis runs', () => {
     const field = page.getByLabel('Token name');
     await field.fill('laptop at the beamline');
 
-    await expect(page.getByText('The analysis of notice-walk.extxyz (temperature) is done.')).toBeVisible({ timeout: 120_000 });
+    await temperatureNotice;
     await expect(page).toHaveURL(/\/account\/tokens$/);
-    await expect(page.getByText('The analysis of notice-walk.extxyz (MSD) is done.')).toBeVisible({ timeout: 120_000 });
+    await msdNotice;
     await expect(page).toHaveURL(/\/account\/tokens$/);
     await expect(field).toHaveValue('laptop at the beamline');
 
